@@ -1,0 +1,79 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import express from 'express';
+import session from 'express-session';
+import sqliteStoreFactory from 'better-sqlite3-session-store';
+import swaggerUi from 'swagger-ui-express';
+import { authRoutes } from './auth/auth.routes';
+import { createPassport } from './auth/passport';
+import type { Deps } from './deps';
+import { createApiRoutes, mountApiRoutes } from './http/api';
+import { errorHandler } from './http/errors';
+import { originCheck, securityHeaders } from './http/security';
+import { memberRoutes } from './members/members.routes';
+import { buildOpenApiDocument } from './openapi/openapi';
+import { segmentRoutes } from './segments/segments.routes';
+
+const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
+
+export const SESSION_COOKIE = 'wearcourse.sid';
+export const JSON_LIMIT = '1mb';
+
+export function createApp(deps: Deps) {
+  const app = express();
+  app.disable('x-powered-by');
+  if (deps.config.trustProxy) app.set('trust proxy', 1);
+  app.use(securityHeaders(deps.config.appUrl.startsWith('https:')));
+
+  app.get('/api/health', (_req, res) => {
+    res.json({ ok: true });
+  });
+
+  const SqliteStore = sqliteStoreFactory(session);
+  const pp = createPassport(deps);
+  app.use(
+    '/api',
+    session({
+      name: SESSION_COOKIE,
+      secret: deps.config.sessionSecret,
+      store: new SqliteStore({ client: deps.sqlite, expired: { clear: true, intervalMs: 15 * 60 * 1000 } }),
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: 12 * 60 * 60 * 1000 },
+    }),
+    pp.initialize(),
+    pp.session(),
+    express.json({ limit: JSON_LIMIT }),
+    originCheck(deps.config.appUrl),
+  );
+
+  const routes = createApiRoutes();
+  authRoutes(routes, deps, pp);
+  segmentRoutes(routes, deps);
+  memberRoutes(routes, deps);
+  const router = express.Router();
+  mountApiRoutes(router, routes, deps);
+  app.use(router);
+
+  const openapi = buildOpenApiDocument(routes.list);
+  app.get('/api/openapi.json', (_req, res) => {
+    res.json(openapi);
+  });
+  app.use('/api/docs', swaggerUi.serve, swaggerUi.setup(openapi, { customSiteTitle: 'Wearcourse API reference' }));
+
+  app.use('/api', (_req, res) => {
+    res.status(404).json({ error: { code: 'not_found', message: 'No such API route' } });
+  });
+
+  if (fs.existsSync(path.join(distDir, 'index.html'))) {
+    app.use(express.static(distDir, { index: false, maxAge: '1h' }));
+    app.get('/{*path}', (_req, res) => {
+      res.sendFile(path.join(distDir, 'index.html'));
+    });
+  }
+
+  app.use(errorHandler);
+  return { app, routes: routes.list };
+}

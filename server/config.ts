@@ -1,0 +1,61 @@
+import path from 'node:path';
+import { z } from 'zod';
+
+// Every setting comes from the environment, validated once, with defaults that
+// run on a fresh machine: a SQLite file under data/ and a local mail catcher.
+const EnvSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default('127.0.0.1'),
+  DATABASE_PATH: z.string().default('data/wearcourse.db'),
+  APP_URL: z.string().url().optional(),
+  SMTP_URL: z.string().url().optional(),
+  MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  MAIL_FROM: z.string().default('Wearcourse <no-reply@wearcourse.local>'),
+  SESSION_SECRET: z.string().min(16).optional(),
+  TRUST_PROXY: z.enum(['0', '1']).default('0'),
+  SIGNIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  SEED_DEMO: z.enum(['0', '1']).default('1'),
+});
+
+export type AppConfig = {
+  env: 'development' | 'production' | 'test';
+  port: number;
+  host: string;
+  databasePath: string;
+  appUrl: string;
+  smtpUrl: string | undefined;
+  mailCatcherPort: number;
+  mailFrom: string;
+  sessionSecret: string;
+  trustProxy: boolean;
+  signInRateLimit: number;
+  seedDemo: boolean;
+};
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
+  const parsed = EnvSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) {
+    throw new Error('SESSION_SECRET (16+ characters) is required when NODE_ENV=production');
+  }
+  return {
+    env: e.NODE_ENV,
+    port: e.PORT,
+    host: e.HOST,
+    databasePath: path.resolve(e.DATABASE_PATH),
+    appUrl: (e.APP_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
+    smtpUrl: e.SMTP_URL,
+    mailCatcherPort: e.MAIL_CATCHER_PORT,
+    mailFrom: e.MAIL_FROM,
+    // A development secret is fine on a desk machine; production must set one.
+    sessionSecret: e.SESSION_SECRET ?? 'wearcourse-development-session-secret',
+    trustProxy: e.TRUST_PROXY === '1',
+    signInRateLimit: e.SIGNIN_RATE_LIMIT,
+    seedDemo: e.SEED_DEMO === '1',
+  };
+}

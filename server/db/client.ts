@@ -1,0 +1,26 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import Database from 'better-sqlite3';
+import { drizzle } from 'drizzle-orm/better-sqlite3';
+import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
+import * as schema from './schema';
+
+export type Db = ReturnType<typeof openDb>['db'];
+export type Sqlite = Database.Database;
+
+const migrationsFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../drizzle');
+
+// Opens (creating if needed) the SQLite file, turns on WAL and foreign keys and
+// applies the committed migrations.
+export function openDb(file: string) {
+  fs.mkdirSync(path.dirname(file), { recursive: true });
+  const sqlite = new Database(file);
+  sqlite.pragma('journal_mode = WAL');
+  sqlite.pragma('foreign_keys = ON');
+  sqlite.pragma('busy_timeout = 5000');
+  sqlite.pragma('synchronous = NORMAL');
+  const db = drizzle(sqlite, { schema, casing: 'snake_case' });
+  migrate(db, { migrationsFolder });
+  return { db, sqlite };
+}

@@ -1,0 +1,167 @@
+// The Drizzle schema is the source of truth; `npm run db:generate` writes the
+// SQL migrations in drizzle/. Property names are camelCase, columns snake_case
+// (the `casing` option in drizzle.config.ts and server/db/client.ts).
+import { sql } from 'drizzle-orm';
+import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+
+const createdAt = () =>
+  text()
+    .notNull()
+    .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
+
+export const agencies = sqliteTable('agencies', {
+  id: text().primaryKey(),
+  name: text().notNull(),
+  kind: text({ enum: ['county', 'city', 'other'] }).notNull(),
+  state: text(),
+  units: text({ enum: ['us', 'metric'] })
+    .notNull()
+    .default('us'),
+  discountRate: real().notNull().default(0.02),
+  discountRateSource: text(),
+  analysisPeriodYears: integer().notNull().default(40),
+  baseYear: integer().notNull(),
+  createdAt: createdAt(),
+});
+
+export const users = sqliteTable('users', {
+  id: text().primaryKey(),
+  email: text().notNull().unique(),
+  name: text().notNull(),
+  passwordHash: text().notNull(),
+  // Bumped when the password changes, so older sessions stop being accepted.
+  sessionVersion: integer().notNull().default(1),
+  isDemo: integer({ mode: 'boolean' }).notNull().default(false),
+  createdAt: createdAt(),
+});
+
+export const memberships = sqliteTable(
+  'memberships',
+  {
+    id: integer().primaryKey({ autoIncrement: true }),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    userId: text()
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    role: text({ enum: ['admin', 'engineer', 'viewer'] }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('memberships_agency_user').on(t.agencyId, t.userId)],
+);
+
+export const invitations = sqliteTable(
+  'invitations',
+  {
+    id: text().primaryKey(),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    email: text().notNull(),
+    role: text({ enum: ['admin', 'engineer', 'viewer'] }).notNull(),
+    tokenHash: text().notNull().unique(),
+    invitedBy: text().references(() => users.id, { onDelete: 'set null' }),
+    expiresAt: text().notNull(),
+    acceptedAt: text(),
+    revokedAt: text(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('invitations_agency').on(t.agencyId)],
+);
+
+export const passwordResets = sqliteTable('password_resets', {
+  id: text().primaryKey(),
+  userId: text()
+    .notNull()
+    .references(() => users.id, { onDelete: 'cascade' }),
+  tokenHash: text().notNull().unique(),
+  expiresAt: text().notNull(),
+  usedAt: text(),
+  createdAt: createdAt(),
+});
+
+// Messages received by the local mail catcher. agencyId tags mail that belongs
+// to one agency (invitations, plan notices) so admins only see their own.
+export const caughtMail = sqliteTable(
+  'caught_mail',
+  {
+    id: integer().primaryKey({ autoIncrement: true }),
+    agencyId: text(),
+    fromAddress: text().notNull(),
+    toAddress: text().notNull(),
+    subject: text().notNull(),
+    textBody: text().notNull(),
+    htmlBody: text(),
+    receivedAt: createdAt(),
+  },
+  (t) => [index('caught_mail_agency').on(t.agencyId)],
+);
+
+export const segments = sqliteTable(
+  'segments',
+  {
+    id: integer().primaryKey({ autoIncrement: true }),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    segmentId: text().notNull(),
+    roadName: text().notNull(),
+    fromDesc: text(),
+    toDesc: text(),
+    lengthMi: real().notNull(),
+    widthFt: real().notNull(),
+    lanes: integer().notNull(),
+    functionalClass: text().notNull(),
+    surface: text().notNull(),
+    adt: integer(),
+    truckPct: real(),
+    district: text(),
+    lastTreatment: text(),
+    lastTreatmentYear: integer(),
+    pci: real(),
+    pciDate: text(),
+    geometry: text(), // GeoJSON LineString / MultiLineString in WGS84, as text
+    notes: text(),
+    updatedAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('segments_agency_segment').on(t.agencyId, t.segmentId),
+    index('segments_agency_road').on(t.agencyId, t.roadName),
+  ],
+);
+
+export const surveys = sqliteTable(
+  'surveys',
+  {
+    id: integer().primaryKey({ autoIncrement: true }),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    segmentRef: integer()
+      .notNull()
+      .references(() => segments.id, { onDelete: 'cascade' }),
+    surveyDate: text().notNull(),
+    pci: real().notNull(),
+    source: text(),
+  },
+  (t) => [
+    index('surveys_segment').on(t.segmentRef),
+    uniqueIndex('surveys_segment_date').on(t.segmentRef, t.surveyDate),
+  ],
+);
+
+export const auditLog = sqliteTable(
+  'audit_log',
+  {
+    id: integer().primaryKey({ autoIncrement: true }),
+    agencyId: text(),
+    userId: text(),
+    action: text().notNull(),
+    entity: text().notNull(),
+    entityId: text(),
+    detail: text(), // JSON: before/after of changed fields
+    at: createdAt(),
+  },
+  (t) => [index('audit_agency_at').on(t.agencyId, t.at)],
+);

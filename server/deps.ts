@@ -1,0 +1,11 @@
+import type { AppConfig } from './config';
+import type { Db, Sqlite } from './db/client';
+import type { Mailer } from './mail/mailer';
+
+// What services and routes are handed: no globals, so tests build their own.
+export type Deps = {
+  db: Db;
+  sqlite: Sqlite;
+  config: AppConfig;
+  mailer: Mailer;
+};

@@ -1,0 +1,56 @@
+import type { ErrorRequestHandler } from 'express';
+import { ZodError } from 'zod';
+import type { ErrorBody } from '../../shared/schemas/common';
+
+export class HttpError extends Error {
+  constructor(
+    public status: number,
+    public code: string,
+    message: string,
+    public issues?: { path: string; message: string }[],
+  ) {
+    super(message);
+  }
+}
+
+export const notFound = (what = 'Not found') => new HttpError(404, 'not_found', what);
+export const forbidden = (what = 'Your role does not allow this') => new HttpError(403, 'forbidden', what);
+export const unauthorized = () => new HttpError(401, 'unauthorized', 'Sign in first');
+export const badRequest = (message: string, issues?: { path: string; message: string }[]) =>
+  new HttpError(400, 'bad_request', message, issues);
+
+export function zodIssues(err: ZodError, prefix = '') {
+  return err.issues.map((i) => ({
+    path: [prefix, ...i.path.map(String)].filter(Boolean).join('.'),
+    message: i.message,
+  }));
+}
+
+// The one error handler: stable JSON shape, never a stack trace to the client.
+export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
+  let status = 500;
+  let body: ErrorBody = { error: { code: 'internal', message: 'Something went wrong on our side' } };
+  if (err instanceof HttpError) {
+    status = err.status;
+    body = { error: { code: err.code, message: err.message, issues: err.issues } };
+  } else if (err instanceof ZodError) {
+    status = 400;
+    const issues = zodIssues(err);
+    body = {
+      error: { code: 'invalid_request', message: `Invalid request: ${issues.map((i) => `${i.path || '(body)'} — ${i.message}`).join('; ')}`, issues },
+    };
+  } else if (err && typeof err === 'object' && 'type' in err && typeof err.status === 'number' && err.status < 500) {
+    // body-parser errors: malformed JSON, too large, wrong charset…
+    status = err.status;
+    const messages: Record<string, string> = {
+      'entity.too.large': 'The request body is larger than allowed',
+      'entity.parse.failed': 'The request body is not valid JSON',
+      'charset.unsupported': 'Unsupported character set',
+      'encoding.unsupported': 'Unsupported content encoding',
+    };
+    body = { error: { code: String(err.type), message: messages[String(err.type)] ?? 'Malformed request' } };
+  } else {
+    console.error(err);
+  }
+  res.status(status).json(body);
+};

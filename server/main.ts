@@ -1,0 +1,45 @@
+import type { Server } from 'node:http';
+import { createApp } from './app';
+import { DEMO_PASSWORD } from './auth/passwords';
+import type { AppConfig } from './config';
+import { openDb } from './db/client';
+import type { Deps } from './deps';
+import { startMailCatcher, type MailCatcher } from './mail/catcher';
+import { createMailer } from './mail/mailer';
+import { DEMO_ACCOUNTS, hasAnyAgency, seedDemo } from './seed/seed';
+
+export type Running = { server: Server; deps: Deps; url: string; catcher: MailCatcher | null; stop: () => Promise<void> };
+
+/** Opens the database, seeds the demo on a fresh file, starts the catcher and listens. */
+export async function startWearcourse(config: AppConfig, log = console.log): Promise<Running> {
+  const { db, sqlite } = openDb(config.databasePath);
+  let seeded = false;
+  if (config.seedDemo && !hasAnyAgency(db)) {
+    await seedDemo(db);
+    seeded = true;
+  }
+  const catcher = config.smtpUrl ? null : await startMailCatcher(db, config.mailCatcherPort, config.env !== 'test');
+  const mailer = createMailer({ smtpUrl: config.smtpUrl, catcherPort: catcher?.port, from: config.mailFrom });
+  const deps: Deps = { db, sqlite, config, mailer };
+  const { app } = createApp(deps);
+  const server = await new Promise<Server>((resolve, reject) => {
+    const s = app.listen(config.port, config.host, () => resolve(s));
+    s.once('error', reject);
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.port;
+  const url = `http://localhost:${port}`;
+  log(`Wearcourse is running at ${url}  (database ${config.databasePath}${seeded ? ', demo seeded' : ''})`);
+  log(catcher ? `Mail goes to the local catcher on 127.0.0.1:${catcher.port}; admins read it under "Sent mail".` : 'Mail goes to SMTP_URL.');
+  if (config.env !== 'production' && config.seedDemo) {
+    log(`Demo accounts (password ${DEMO_PASSWORD}):`);
+    for (const a of DEMO_ACCOUNTS) log(`  ${a.email.padEnd(28)} ${a.note}`);
+  }
+  const stop = async () => {
+    await new Promise<void>((resolve) => server.close(() => resolve()));
+    await catcher?.close();
+    mailer.close();
+    sqlite.close();
+  };
+  return { server, deps, url, catcher, stop };
+}

@@ -1,0 +1,118 @@
+import { and, asc, desc, eq, inArray, isNull, or, sql, type SQL } from 'drizzle-orm';
+import { CONDITION_BANDS } from '../../shared/condition';
+import { areaSy, laneMiles } from '../../shared/engine/quantities';
+import type { FunctionalClass, Segment, SegmentListQuery, Surface } from '../../shared/schemas/segments';
+import type { Db } from '../db/client';
+import { segments, surveys } from '../db/schema';
+
+export type SegmentRow = typeof segments.$inferSelect;
+
+export function toSegment(r: SegmentRow): Segment {
+  return {
+    id: r.id,
+    segmentId: r.segmentId,
+    roadName: r.roadName,
+    fromDesc: r.fromDesc,
+    toDesc: r.toDesc,
+    lengthMi: r.lengthMi,
+    widthFt: r.widthFt,
+    lanes: r.lanes,
+    functionalClass: r.functionalClass as FunctionalClass,
+    surface: r.surface as Surface,
+    adt: r.adt,
+    truckPct: r.truckPct,
+    district: r.district,
+    lastTreatment: r.lastTreatment,
+    lastTreatmentYear: r.lastTreatmentYear,
+    pci: r.pci,
+    pciDate: r.pciDate,
+    laneMiles: laneMiles(r.lengthMi, r.lanes),
+    areaSy: areaSy(r.lengthMi, r.widthFt),
+  };
+}
+
+function filters(agencyId: string, q: SegmentListQuery): SQL {
+  const parts: (SQL | undefined)[] = [eq(segments.agencyId, agencyId)];
+  if (q.q) {
+    const pattern = `%${q.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    parts.push(or(sql`${segments.roadName} LIKE ${pattern} ESCAPE '\\'`, sql`${segments.segmentId} LIKE ${pattern} ESCAPE '\\'`));
+  }
+  if (q.class?.length) parts.push(inArray(segments.functionalClass, q.class));
+  if (q.surface?.length) parts.push(inArray(segments.surface, q.surface));
+  if (q.district) parts.push(eq(segments.district, q.district));
+  if (q.band?.length) {
+    const bandParts: SQL[] = [];
+    for (const id of q.band) {
+      if (id === 'none') {
+        bandParts.push(isNull(segments.pci));
+        continue;
+      }
+      const b = CONDITION_BANDS.find((x) => x.id === id)!;
+      // Bands are defined on the rounded PCI.
+      bandParts.push(sql`round(${segments.pci}) BETWEEN ${b.min} AND ${b.max}`);
+    }
+    parts.push(or(...bandParts));
+  }
+  return and(...parts)!;
+}
+
+const sortColumns = {
+  segmentId: segments.segmentId,
+  roadName: segments.roadName,
+  lengthMi: segments.lengthMi,
+  pci: segments.pci,
+  functionalClass: segments.functionalClass,
+  district: segments.district,
+} as const;
+
+export function listSegments(db: Db, agencyId: string, q: SegmentListQuery) {
+  const where = filters(agencyId, q);
+  const col = sortColumns[q.sort];
+  const rows = db
+    .select()
+    .from(segments)
+    .where(where)
+    .orderBy(q.dir === 'asc' ? asc(col) : desc(col), asc(segments.id))
+    .limit(q.limit)
+    .offset(q.offset)
+    .all();
+  const t = db
+    .select({
+      count: sql<number>`count(*)`,
+      miles: sql<number>`coalesce(sum(${segments.lengthMi}), 0)`,
+      laneMiles: sql<number>`coalesce(sum(${segments.lengthMi} * ${segments.lanes}), 0)`,
+      areaSy: sql<number>`coalesce(sum(${segments.lengthMi} * 5280 * ${segments.widthFt} / 9.0), 0)`,
+      weightedPci: sql<number | null>`sum(${segments.pci} * ${segments.lengthMi}) / nullif(sum(case when ${segments.pci} is not null then ${segments.lengthMi} end), 0)`,
+    })
+    .from(segments)
+    .where(where)
+    .get()!;
+  return { total: t.count, items: rows.map(toSegment), totals: t };
+}
+
+export function networkStats(db: Db, agencyId: string) {
+  const rows = db
+    .select({ lengthMi: segments.lengthMi, lanes: segments.lanes, pci: segments.pci, pciDate: segments.pciDate })
+    .from(segments)
+    .where(eq(segments.agencyId, agencyId))
+    .all();
+  return rows;
+}
+
+
+export function segmentById(db: Db, agencyId: string, id: number) {
+  return db
+    .select()
+    .from(segments)
+    .where(and(eq(segments.agencyId, agencyId), eq(segments.id, id)))
+    .get();
+}
+
+export function surveysOf(db: Db, agencyId: string, segmentRef: number) {
+  return db
+    .select({ surveyDate: surveys.surveyDate, pci: surveys.pci, source: surveys.source })
+    .from(surveys)
+    .where(and(eq(surveys.agencyId, agencyId), eq(surveys.segmentRef, segmentRef)))
+    .orderBy(asc(surveys.surveyDate))
+    .all();
+}

@@ -1,0 +1,14 @@
+import { QueryClientProvider } from '@tanstack/react-query';
+import { RouterProvider } from 'react-router-dom';
+import { Toaster } from 'sonner';
+import { queryClient } from '@/lib/query-client';
+import { router } from './router';
+
+export function App() {
+  return (
+    <QueryClientProvider client={queryClient}>
+      <RouterProvider router={router} />
+      <Toaster position="bottom-right" richColors closeButton />
+    </QueryClientProvider>
+  );
+}

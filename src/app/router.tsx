@@ -1,0 +1,44 @@
+import { createBrowserRouter, Navigate } from 'react-router-dom';
+import { AppShell } from './routes/app-shell';
+import { ErrorPage } from './routes/error-page';
+import { ForgotPasswordPage } from './routes/forgot-password';
+import { HomeRedirect } from './routes/home-redirect';
+import { InvitePage } from './routes/invite';
+import { MembersPage } from './routes/members';
+import { NetworkPage } from './routes/network';
+import { NotFoundPage } from './routes/not-found';
+import { PlaceholderPage } from './routes/placeholder';
+import { ResetPasswordPage } from './routes/reset-password';
+import { RoadsPage } from './routes/roads';
+import { SentMailPage } from './routes/sent-mail';
+import { SettingsPage } from './routes/settings';
+import { SignInPage } from './routes/sign-in';
+
+export const router = createBrowserRouter([
+  { path: '/sign-in', element: <SignInPage />, errorElement: <ErrorPage /> },
+  { path: '/forgot-password', element: <ForgotPasswordPage />, errorElement: <ErrorPage /> },
+  { path: '/reset-password/:token', element: <ResetPasswordPage />, errorElement: <ErrorPage /> },
+  { path: '/invite/:token', element: <InvitePage />, errorElement: <ErrorPage /> },
+  { path: '/', element: <HomeRedirect />, errorElement: <ErrorPage /> },
+  {
+    path: '/a/:agencyId',
+    element: <AppShell />,
+    errorElement: <ErrorPage />,
+    children: [
+      { index: true, element: <Navigate to="network" replace /> },
+      { path: 'network', element: <NetworkPage /> },
+      { path: 'roads', element: <RoadsPage /> },
+      { path: 'imports', element: <PlaceholderPage area="imports" /> },
+      { path: 'catalog', element: <PlaceholderPage area="catalog" /> },
+      { path: 'compare', element: <PlaceholderPage area="compare" /> },
+      { path: 'forecast', element: <PlaceholderPage area="forecast" /> },
+      { path: 'plans', element: <PlaceholderPage area="plans" /> },
+      { path: 'members', element: <MembersPage /> },
+      { path: 'settings', element: <SettingsPage /> },
+      { path: 'activity', element: <PlaceholderPage area="activity" /> },
+      { path: 'sent-mail', element: <SentMailPage /> },
+      { path: '*', element: <NotFoundPage /> },
+    ],
+  },
+  { path: '*', element: <NotFoundPage /> },
+]);

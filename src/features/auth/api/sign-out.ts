@@ -1,0 +1,13 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+
+export const signOut = () => api<{ ok: true }>('/api/auth/sign-out', { method: 'POST' });
+
+export function useSignOut() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: signOut,
+    // Nothing of the previous user stays in the cache.
+    onSettled: () => qc.clear(),
+  });
+}

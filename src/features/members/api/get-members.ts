@@ -1,0 +1,10 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { MembersResponse } from '@shared/schemas/members';
+import { api } from '@/lib/api-client';
+
+export const getMembers = (agencyId: string) => api<MembersResponse>(`/api/agencies/${agencyId}/members`);
+
+export const membersQueryOptions = (agencyId: string) =>
+  queryOptions({ queryKey: ['members', agencyId], queryFn: () => getMembers(agencyId) });
+
+export const useMembers = (agencyId: string) => useQuery(membersQueryOptions(agencyId));
