@@ -46,7 +46,7 @@ export function createApp(deps: Deps) {
     pp.initialize(),
     pp.session(),
     express.json({ limit: JSON_LIMIT }),
-    originCheck(deps.config.appUrl),
+    originCheck(() => deps.config.appUrl),
   );
 
   const routes = createApiRoutes();

@@ -24,6 +24,8 @@ export type AppConfig = {
   host: string;
   databasePath: string;
   appUrl: string;
+  /** True when APP_URL was not set and the URL follows the port actually bound. */
+  appUrlFromPort: boolean;
   smtpUrl: string | undefined;
   mailCatcherPort: number;
   mailFrom: string;
@@ -49,6 +51,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     host: e.HOST,
     databasePath: path.resolve(e.DATABASE_PATH),
     appUrl: (e.APP_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
+    appUrlFromPort: !e.APP_URL,
     smtpUrl: e.SMTP_URL,
     mailCatcherPort: e.MAIL_CATCHER_PORT,
     mailFrom: e.MAIL_FROM,

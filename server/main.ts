@@ -29,6 +29,8 @@ export async function startWearcourse(config: AppConfig, log = console.log): Pro
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
   const url = `http://localhost:${port}`;
+  // With PORT=0 the real port is known only now; links in mail must use it.
+  if (config.appUrlFromPort) config.appUrl = url;
   log(`Wearcourse is running at ${url}  (database ${config.databasePath}${seeded ? ', demo seeded' : ''})`);
   log(catcher ? `Mail goes to the local catcher on 127.0.0.1:${catcher.port}; admins read it under "Sent mail".` : 'Mail goes to SMTP_URL.');
   if (config.env !== 'production' && config.seedDemo) {

@@ -32,10 +32,10 @@ const UNSAFE = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
 // CSRF defence for cookie sessions: a state-changing request must say where it
 // comes from, and that must be this server (or the configured public URL).
-export function originCheck(appUrl: string): RequestHandler {
-  const allowed = new URL(appUrl).host;
+export function originCheck(appUrl: () => string): RequestHandler {
   return (req, res, next) => {
     if (!UNSAFE.has(req.method)) return next();
+    const allowed = new URL(appUrl()).host;
     const source = req.get('origin') ?? req.get('referer');
     let host: string | null = null;
     try {

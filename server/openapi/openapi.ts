@@ -1,5 +1,5 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31 } from '@asteasolutions/zod-to-openapi';
-import { z } from 'zod';
+import type { z } from 'zod';
 import { ErrorBodySchema } from '../../shared/schemas/common';
 import type { RouteDef } from '../http/api';
 

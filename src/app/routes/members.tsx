@@ -47,7 +47,7 @@ export function MembersPage() {
           <div className="w-72"><Field label="E-mail"><TextInput type="email" required value={email} onChange={(e) => setEmail(e.target.value)} /></Field></div>
           <div className="w-40">
             <Field label="Role">
-              <Select value={role} onChange={(e) => setRole(e.target.value as Role)}>
+              <Select aria-label="Role" value={role} onChange={(e) => setRole(e.target.value as Role)}>
                 {ROLES.map((r) => <option key={r} value={r}>{r}</option>)}
               </Select>
             </Field>

@@ -1,0 +1,85 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { CONDITION_BANDS } from '../../shared/condition';
+import { createTestApp, type TestApp } from '../helpers/test-app';
+
+let t: TestApp;
+let u: Awaited<ReturnType<TestApp['as']>>;
+let base: string;
+beforeAll(async () => {
+  t = await createTestApp();
+  u = await t.as('viewer@brannock.example');
+  base = `/api/agencies/${t.ids.brannock}/segments`;
+});
+afterAll(() => t.close());
+
+describe('segment list', () => {
+  it('pages with limit and offset over the seeded county', async () => {
+    const a = await u.get(`${base}?limit=10&offset=0`);
+    const b = await u.get(`${base}?limit=10&offset=10`);
+    expect(a.body.total).toBe(1224);
+    expect(a.body.items).toHaveLength(10);
+    expect(b.body.items).toHaveLength(10);
+    const ids = new Set([...a.body.items, ...b.body.items].map((s: { id: number }) => s.id));
+    expect(ids.size).toBe(20);
+    for (const key of ['id', 'segmentId', 'roadName', 'lengthMi', 'widthFt', 'lanes', 'functionalClass', 'surface', 'pci']) {
+      expect(a.body.items[0]).toHaveProperty(key);
+    }
+  });
+
+  it('q matches road name or segment id', async () => {
+    const byName = await u.get(`${base}?q=Tallow Creek Parkway&limit=1000`);
+    expect(byName.body.total).toBe(20);
+    expect(byName.body.items.every((s: { roadName: string }) => s.roadName === 'Tallow Creek Parkway')).toBe(true);
+    const byId = await u.get(`${base}?q=TC-S06`);
+    expect(byId.body.total).toBe(10);
+  });
+
+  it('a LIKE wildcard in q is taken literally', async () => {
+    const res = await u.get(`${base}?q=%25`);
+    expect(res.body.total).toBe(0);
+  });
+
+  it('class and band filters return only matching rows, and totals describe the filtered set', async () => {
+    const res = await u.get(`${base}?class=principal_arterial&limit=1000`);
+    expect(res.body.total).toBe(24);
+    expect(res.body.items.every((s: { functionalClass: string }) => s.functionalClass === 'principal_arterial')).toBe(true);
+    const miles = res.body.items.reduce((s: number, x: { lengthMi: number }) => s + x.lengthMi, 0);
+    expect(res.body.totals.miles).toBeCloseTo(miles, 6);
+    const lm = res.body.items.reduce((s: number, x: { laneMiles: number }) => s + x.laneMiles, 0);
+    expect(res.body.totals.laneMiles).toBeCloseTo(lm, 6);
+    const fair = CONDITION_BANDS.find((b) => b.id === 'fair')!;
+    const banded = await u.get(`${base}?band=fair&limit=1000`);
+    expect(banded.body.total).toBeGreaterThan(0);
+    expect(banded.body.items.every((s: { pci: number }) => Math.round(s.pci) >= fair.min && Math.round(s.pci) <= fair.max)).toBe(true);
+    const none = await u.get(`${base}?band=none&limit=1000`);
+    expect(none.body.items.every((s: { pci: number | null; surface: string }) => s.pci === null && s.surface === 'gravel')).toBe(true);
+  });
+
+  it('sorts by PCI descending', async () => {
+    const res = await u.get(`${base}?sort=pci&dir=desc&band=very-good,good&limit=50`);
+    const pcis = res.body.items.map((s: { pci: number }) => s.pci);
+    expect(pcis).toEqual([...pcis].sort((a, b) => b - a));
+  });
+
+  it('one segment carries its survey history, oldest first', async () => {
+    const list = await u.get(`${base}?class=principal_arterial&limit=1`);
+    const detail = await u.get(`${base}/${list.body.items[0].id}`);
+    expect(detail.status).toBe(200);
+    expect(detail.body.surveys).toHaveLength(8);
+    const dates = detail.body.surveys.map((s: { surveyDate: string }) => s.surveyDate);
+    expect(dates).toEqual([...dates].sort());
+    expect(detail.body.pci).toBe(detail.body.surveys.at(-1).pci);
+    expect(detail.body.geometry.type).toBe('LineString');
+  });
+});
+
+describe('network summary', () => {
+  it('lane-miles by band add up to the network lane-miles', async () => {
+    const res = await u.get(`/api/agencies/${t.ids.brannock}/network`);
+    expect(res.status).toBe(200);
+    const sum = res.body.laneMilesByBand.reduce((s: number, b: { laneMiles: number }) => s + b.laneMiles, 0);
+    expect(sum).toBeCloseTo(res.body.laneMiles, 6);
+    expect(res.body.weightedPci).toBeGreaterThan(0);
+    expect(res.body.weightedPci).toBeLessThan(100);
+  });
+});
