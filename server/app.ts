@@ -11,6 +11,7 @@ import type { Deps } from './deps';
 import { createApiRoutes, mountApiRoutes } from './http/api';
 import { errorHandler } from './http/errors';
 import { originCheck, securityHeaders } from './http/security';
+import { importRoutes } from './imports/imports.routes';
 import { memberRoutes } from './members/members.routes';
 import { buildOpenApiDocument } from './openapi/openapi';
 import { segmentRoutes } from './segments/segments.routes';
@@ -53,6 +54,7 @@ export function createApp(deps: Deps) {
   authRoutes(routes, deps, pp);
   segmentRoutes(routes, deps);
   memberRoutes(routes, deps);
+  importRoutes(routes, deps);
   const router = express.Router();
   mountApiRoutes(router, routes, deps);
   app.use(router);

@@ -165,3 +165,39 @@ export const auditLog = sqliteTable(
   },
   (t) => [index('audit_agency_at').on(t.agencyId, t.at)],
 );
+
+export const imports = sqliteTable(
+  'imports',
+  {
+    id: text().primaryKey(),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    userId: text().references(() => users.id, { onDelete: 'set null' }),
+    fileName: text().notNull(),
+    kind: text({ enum: ['segments', 'surveys'] }).notNull(),
+    format: text().notNull(),
+    mode: text().notNull(),
+    added: integer().notNull(),
+    updated: integer().notNull(),
+    unchanged: integer().notNull(),
+    rejected: integer().notNull(),
+    // The rejected rows as CSV with a reason column, for download.
+    rejectedCsv: text(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('imports_agency').on(t.agencyId, t.createdAt)],
+);
+
+export const importMappings = sqliteTable(
+  'import_mappings',
+  {
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    kind: text().notNull(),
+    mapping: text().notNull(),
+    updatedAt: createdAt(),
+  },
+  (t) => [uniqueIndex('import_mappings_agency_kind').on(t.agencyId, t.kind)],
+);

@@ -7,3 +7,6 @@ declare module 'epsg-index/all.json' {
   const value: Record<string, { proj4?: string; name?: string; unit?: string }>;
   export default value;
 }
+declare module 'shpjs' {
+  export default function shp(input: ArrayBuffer | Buffer | string): Promise<unknown>;
+}

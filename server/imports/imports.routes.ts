@@ -1,0 +1,91 @@
+import type { RequestHandler } from 'express';
+import multer from 'multer';
+import { z } from 'zod';
+import { AgencyParamsSchema } from '../../shared/schemas/common';
+import { ImportHistorySchema, ImportOptionsSchema, ImportParamsSchema, ImportReportSchema, SavedMappingSchema } from '../../shared/schemas/imports';
+import type { Deps } from '../deps';
+import type { ApiRoutes } from '../http/api';
+import { HttpError } from '../http/errors';
+import * as service from './imports.service';
+
+export const MAX_UPLOAD_BYTES = 25 * 1024 * 1024;
+
+const upload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 12, fieldSize: 64 * 1024, parts: 16 },
+}).single('file');
+
+// multer's own errors become our clear 4xx answers.
+const uploadOne: RequestHandler = (req, res, next) => {
+  if (!req.is('multipart/form-data')) {
+    next(new HttpError(415, 'unsupported_media_type', 'Send the file as multipart/form-data with the field "file"'));
+    return;
+  }
+  upload(req, res, (err: unknown) => {
+    if (!err) return next();
+    if (err instanceof multer.MulterError) {
+      if (err.code === 'LIMIT_FILE_SIZE') return next(new HttpError(413, 'file_too_large', `The file is larger than the ${MAX_UPLOAD_BYTES / 1024 / 1024} MB limit`));
+      return next(new HttpError(400, 'bad_upload', `Upload refused: ${err.message}${err.field ? ` (${err.field})` : ''}`));
+    }
+    next(new HttpError(400, 'bad_upload', 'The upload could not be read as multipart/form-data'));
+  });
+};
+
+export function importRoutes(api: ApiRoutes, deps: Deps) {
+  const engineer = { kind: 'agency', role: 'engineer' } as const;
+  api.add({
+    method: 'post',
+    path: '/api/agencies/:agencyId/imports',
+    tag: 'Imports',
+    summary:
+      'Import segments (kind=segments) or condition surveys (kind=surveys) from CSV, XLSX, GeoJSON or a zipped shapefile. Multipart: file, and optional mapping (JSON: our field → the file’s column), crs (EPSG:code), mode (all-or-nothing | skip-invalid), dryRun, lengthUnit, widthUnit. 200 when it wrote or would write; 422 with the same report when all-or-nothing refused the file.',
+    access: engineer,
+    params: AgencyParamsSchema,
+    body: ImportOptionsSchema,
+    response: ImportReportSchema,
+    before: [uploadOne],
+    handler: async ({ agency, user, body, req, res }) => {
+      if (!req.file) throw new HttpError(400, 'invalid_request', 'Invalid request: file — attach the file in the multipart field "file"', [{ path: 'file', message: 'is required' }]);
+      // Path tricks in a client's file name are cut to the bare name; it is only ever a label.
+      const name = req.file.originalname.split(/[\\/]/).pop()!.replace(/[^\w.\- ()]/g, '_').slice(0, 200) || 'upload';
+      const { status, report } = await service.runImport(deps, agency!.id, user!.id, { name, buffer: req.file.buffer }, body);
+      res.status(status).json(report);
+    },
+  });
+  api.add({
+    method: 'get',
+    path: '/api/agencies/:agencyId/imports',
+    tag: 'Imports',
+    summary: 'Import history: who, when, which file, and the counts',
+    access: engineer,
+    params: AgencyParamsSchema,
+    response: ImportHistorySchema,
+    handler: ({ agency }) => service.history(deps, agency!.id),
+  });
+  api.add({
+    method: 'get',
+    path: '/api/agencies/:agencyId/imports/mapping',
+    tag: 'Imports',
+    summary: 'The column mapping remembered from the last import of this kind',
+    access: engineer,
+    params: AgencyParamsSchema,
+    query: z.object({ kind: z.enum(['segments', 'surveys']).default('segments') }),
+    response: SavedMappingSchema,
+    handler: ({ agency, query }) => service.mappingFor(deps, agency!.id, query.kind),
+  });
+  api.add({
+    method: 'get',
+    path: '/api/agencies/:agencyId/imports/:importId/rejected.csv',
+    tag: 'Imports',
+    summary: 'The rows an import rejected, as CSV with a reason column',
+    access: engineer,
+    params: ImportParamsSchema,
+    responseDescription: 'text/csv',
+    handler: ({ agency, params, res }) => {
+      const f = service.rejectedFile(deps, agency!.id, params.importId);
+      res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+      res.setHeader('Content-Disposition', `attachment; filename="${f.fileName.replace(/"/g, '')}"`);
+      res.send(f.csv);
+    },
+  });
+}

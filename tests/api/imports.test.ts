@@ -1,0 +1,298 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, type TestApp } from '../helpers/test-app';
+
+const sample = (name: string) => path.resolve('data/samples', name);
+
+let t: TestApp;
+let eng: Awaited<ReturnType<TestApp['as']>>;
+let url: string;
+const count = (sql: string, ...args: unknown[]) => (t.sqlite.prepare(sql).get(...args) as { n: number }).n;
+const segCount = () => count('SELECT count(*) AS n FROM segments WHERE agency_id = ?', t.ids.brannock);
+
+beforeAll(async () => {
+  t = await createTestApp();
+  eng = await t.as('engineer@brannock.example');
+  url = `/api/agencies/${t.ids.brannock}/imports`;
+});
+afterAll(() => t.close());
+
+function upload(file: string | { name: string; content: string | Buffer }, fields: Record<string, string> = {}) {
+  let req = eng.post(url);
+  for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
+  return typeof file === 'string' ? req.attach('file', file) : req.attach('file', Buffer.from(file.content), file.name);
+}
+
+describe('CSV with our canonical headers', () => {
+  it('a dry run reports what would happen and writes nothing', async () => {
+    const before = segCount();
+    const res = await upload(sample('brannock-prairie-view.csv'), { dryRun: 'true' });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ dryRun: true, format: 'csv', added: 58, updated: 0, unchanged: 0, rejected: 0, errors: [] });
+    expect(res.body.preview).toHaveLength(10);
+    expect(res.body.mapping.segment_id).toBe('segment_id');
+    expect(segCount()).toBe(before);
+  });
+
+  it('imports with no mapping, records the history and the surveys; a re-import is all unchanged', async () => {
+    const before = segCount();
+    const res = await upload(sample('brannock-prairie-view.csv'));
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ dryRun: false, added: 58, updated: 0, unchanged: 0, rejected: 0 });
+    expect(segCount()).toBe(before + 58);
+    const seg = t.sqlite.prepare("SELECT * FROM segments WHERE agency_id = ? AND segment_id = 'PV-S1-1'").get(t.ids.brannock) as Record<string, unknown>;
+    expect(seg).toMatchObject({ road_name: 'Bluestem Dr', length_mi: 0.08, width_ft: 30, functional_class: 'local', surface: 'asphalt' });
+    expect(count('SELECT count(*) AS n FROM surveys WHERE segment_ref = ?', seg.id)).toBe(1);
+    const again = await upload(sample('brannock-prairie-view.csv'));
+    expect(again.body).toMatchObject({ added: 0, updated: 0, unchanged: 58, rejected: 0 });
+    const history = await eng.get(url);
+    expect(history.body.items[0]).toMatchObject({ fileName: 'brannock-prairie-view.csv', unchanged: 58, userName: 'Ruben Osei' });
+    expect(history.body.items[1]).toMatchObject({ added: 58 });
+  });
+
+  it('re-import upserts by segment id: changed rows are updated, others unchanged', async () => {
+    const text = fs.readFileSync(sample('brannock-prairie-view.csv'), 'utf8').replace('PV-S1-1,Bluestem Dr', 'PV-S1-1,Bluestem Drive');
+    const res = await upload({ name: 'edited.csv', content: text });
+    expect(res.body).toMatchObject({ added: 0, updated: 1, unchanged: 57 });
+  });
+});
+
+describe('XLSX with its own headers', () => {
+  it('guesses the mapping from the header names and reads the same rows', async () => {
+    const res = await upload(sample('brannock-prairie-view.xlsx'), { dryRun: 'true' });
+    expect(res.status).toBe(200);
+    expect(res.body.format).toBe('xlsx');
+    expect(res.body.mapping).toMatchObject({ segment_id: 'Segment ID', road_name: 'Road Name', length_mi: 'Length (mi)', surface: 'Surface Type', adt: 'AADT', pci_date: 'Survey Date' });
+    expect(res.body.rejected).toBe(0);
+    expect(res.body.unchanged + res.body.updated).toBe(58);
+  });
+
+  it('an explicit mapping naming a column that is not there answers 400 naming the field', async () => {
+    const res = await upload(sample('brannock-prairie-view.xlsx'), { dryRun: 'true', mapping: JSON.stringify({ road_name: 'Street' }) });
+    expect(res.status).toBe(400);
+    expect(res.body.error.issues[0].path).toBe('mapping.road_name');
+  });
+});
+
+describe('GeoJSON', () => {
+  it('lon/lat features import with lengths from the geometry', async () => {
+    const fresh = await createTestApp();
+    try {
+      const u = await fresh.as('engineer@marlow.example');
+      const res = await u.post(`/api/agencies/${fresh.ids.marlow}/imports`).attach('file', sample('brannock-prairie-view.geojson'));
+      expect(res.status).toBe(200);
+      expect(res.body).toMatchObject({ format: 'geojson', added: 58, rejected: 0 });
+      const row = fresh.sqlite.prepare("SELECT length_mi, geometry FROM segments WHERE segment_id = 'PV-S1-1'").get() as { length_mi: number; geometry: string };
+      // 0.08 mi blocks laid out on the sample's grid; turf's geodesic length agrees within 0.5%.
+      expect(row.length_mi).toBeGreaterThan(0.08 * 0.995);
+      expect(row.length_mi).toBeLessThan(0.08 * 1.005);
+      expect(JSON.parse(row.geometry).type).toBe('LineString');
+    } finally {
+      await fresh.close();
+    }
+  });
+
+  it('the State Plane twin (EPSG:3419 named in the file) lands within 1 m of the lon/lat file', async () => {
+    const a = await createTestApp();
+    const b = await createTestApp();
+    try {
+      const ua = await a.as('engineer@marlow.example');
+      const ub = await b.as('engineer@marlow.example');
+      expect((await ua.post(`/api/agencies/${a.ids.marlow}/imports`).attach('file', sample('brannock-prairie-view.geojson'))).status).toBe(200);
+      const rb = await ub.post(`/api/agencies/${b.ids.marlow}/imports`).attach('file', sample('brannock-prairie-view-stateplane.geojson'));
+      expect(rb.status).toBe(200);
+      expect(rb.body.crs).toBe('EPSG:3419');
+      const geo = (app: TestApp) =>
+        new Map((app.sqlite.prepare("SELECT segment_id, geometry FROM segments WHERE segment_id LIKE 'PV-%'").all() as { segment_id: string; geometry: string }[]).map((r) => [r.segment_id, JSON.parse(r.geometry).coordinates as number[][]]));
+      const ga = geo(a);
+      const gb = geo(b);
+      expect(gb.size).toBe(58);
+      let worst = 0;
+      for (const [id, coords] of ga) {
+        coords.forEach(([lon, lat], i) => {
+          const [lon2, lat2] = gb.get(id)![i];
+          const dy = (lat2 - lat) * 111_320;
+          const dx = (lon2 - lon) * 111_320 * Math.cos((lat * Math.PI) / 180);
+          worst = Math.max(worst, Math.hypot(dx, dy));
+        });
+      }
+      expect(worst).toBeLessThan(1);
+    } finally {
+      await a.close();
+      await b.close();
+    }
+  });
+
+  it('projected coordinates without a CRS are refused with a clear message; naming the CRS fixes it', async () => {
+    const doc = JSON.parse(fs.readFileSync(sample('brannock-prairie-view-stateplane.geojson'), 'utf8'));
+    delete doc.crs;
+    const bare = JSON.stringify(doc);
+    const res = await upload({ name: 'no-crs.geojson', content: bare }, { dryRun: 'true' });
+    expect(res.status).toBe(422);
+    expect(res.body.errors[0]).toMatchObject({ column: 'geometry' });
+    expect(res.body.errors[0].message).toMatch(/not longitude\/latitude/);
+    const ok = await upload({ name: 'no-crs.geojson', content: bare }, { dryRun: 'true', crs: 'EPSG:3419' });
+    expect(ok.status).toBe(200);
+    expect(ok.body.rejected).toBe(0);
+  });
+
+  it('an unknown EPSG code answers 400 naming crs', async () => {
+    const res = await upload(sample('brannock-prairie-view-stateplane.geojson'), { dryRun: 'true', crs: 'EPSG:999999' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.issues[0].path).toBe('crs');
+  });
+
+  it('invalid and empty geometries are reported per feature', async () => {
+    const doc = {
+      type: 'FeatureCollection',
+      features: [
+        { type: 'Feature', properties: { segment_id: 'G-1', road_name: 'A', width_ft: 24, lanes: 2, functional_class: 'local', surface: 'asphalt' }, geometry: { type: 'Point', coordinates: [-98.5, 38.8] } },
+        { type: 'Feature', properties: { segment_id: 'G-2', road_name: 'B', width_ft: 24, lanes: 2, functional_class: 'local', surface: 'asphalt' }, geometry: { type: 'LineString', coordinates: [[-98.5, 38.8]] } },
+        { type: 'Feature', properties: { segment_id: 'G-3', road_name: 'C', width_ft: 24, lanes: 2, functional_class: 'local', surface: 'asphalt' }, geometry: null },
+      ],
+    };
+    const res = await upload({ name: 'bad.geojson', content: JSON.stringify(doc) }, { dryRun: 'true' });
+    expect(res.status).toBe(422);
+    expect(res.body.errors.map((e: { row: number; column: string }) => `${e.row}:${e.column}`)).toEqual(['1:geometry', '2:geometry', '3:geometry']);
+  });
+});
+
+describe('the messy sample', () => {
+  it('gives exactly the expected report', async () => {
+    const res = await upload(sample('brannock-messy.csv'), { dryRun: 'true' });
+    expect(res.status).toBe(422);
+    // Row numbers are spreadsheet rows: the header is row 1.
+    expect(res.body.errors).toEqual([
+      { row: 3, column: 'Length (mi)', value: '1,000', message: 'must be at most 100' },
+      { row: 4, column: 'Width (ft)', value: '-22', message: 'must be greater than 0' },
+      { row: 5, column: 'Lanes', value: 'two', message: 'is not a number' },
+      { row: 6, column: 'Road Name', value: '', message: 'is required' },
+      { row: 7, column: 'Functional Class', value: 'Arterial Road', message: 'is not one of interstate, freeway, principal_arterial, minor_arterial, major_collector, minor_collector, local' },
+      { row: 8, column: 'Surface', value: 'Cobblestone', message: 'is not one of asphalt, chip_seal, concrete, gravel, other' },
+      { row: 9, column: 'PCI', value: '140', message: 'must be at most 100' },
+      { row: 10, column: 'Survey Date', value: '06/04/2026', message: 'is not a date in YYYY-MM-DD form' },
+      { row: 11, column: 'Segment ID', value: 'RD-101', message: 'repeats the segment id of row 2' },
+      { row: 12, column: 'Length (mi)', value: '', message: 'is required when the row has no geometry' },
+      { row: 13, column: 'ADT', value: 'abc', message: 'is not a number' },
+    ]);
+    expect(res.body).toMatchObject({ rejected: 11, totalRows: 12, added: 0 });
+  });
+
+  it('all-or-nothing writes nothing; skip-invalid writes the one good row and keeps the rejects for download', async () => {
+    const before = segCount();
+    const refused = await upload(sample('brannock-messy.csv'));
+    expect(refused.status).toBe(422);
+    expect(segCount()).toBe(before);
+    const skipped = await upload(sample('brannock-messy.csv'), { mode: 'skip-invalid' });
+    expect(skipped.status).toBe(200);
+    expect(skipped.body).toMatchObject({ added: 1, rejected: 11 });
+    expect(segCount()).toBe(before + 1);
+    const csv = await eng.get(`${url}/${skipped.body.importId}/rejected.csv`);
+    expect(csv.status).toBe(200);
+    expect(csv.headers['content-type']).toMatch(/text\/csv/);
+    const lines = csv.text.trim().split(/\r?\n/);
+    expect(lines[0]).toMatch(/^row,Segment ID,.*,reason$/);
+    expect(lines).toHaveLength(12);
+    expect(lines[1]).toMatch(/^3,RD-102,.*must be at most 100/);
+  });
+});
+
+describe('bad files get a clear 4xx, never a 500', () => {
+  const good = 'segment_id,road_name,length_mi,width_ft,lanes,functional_class,surface\n';
+  const cases: { name: string; content: string | Buffer; status: number; match: RegExp }[] = [
+    { name: 'empty.csv', content: '', status: 400, match: /empty/ },
+    { name: 'header-only.csv', content: good, status: 400, match: /no data rows/ },
+    { name: 'colon.csv', content: 'segment_id:road_name:length_mi\nA:B:1\n', status: 400, match: /Only one column/ },
+    { name: 'dup-header.csv', content: 'segment_id,segment_id,road_name\nA,B,C\n', status: 400, match: /twice/ },
+    { name: 'not-a-workbook.xlsx', content: 'this is plain text, not a zip', status: 400, match: /not an Excel workbook/ },
+    { name: 'broken.xlsx', content: Buffer.from('PK\u0003\u0004garbage-garbage-garbage'), status: 400, match: /not a readable Excel workbook/ },
+    { name: 'broken.geojson', content: '{"type": "FeatureCollection", "features": [', status: 400, match: /not valid JSON/ },
+    { name: 'points.geojson', content: '{"type": "Point", "coordinates": [1, 2]}', status: 400, match: /not GeoJSON/ },
+    { name: 'image.png', content: Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a]), status: 400, match: /Unsupported file type/ },
+  ];
+  it.each(cases)('$name → $status', async (c) => {
+    const before = segCount();
+    const res = await upload({ name: c.name, content: c.content });
+    expect(res.status).toBe(c.status);
+    expect(res.body.error.message).toMatch(c.match);
+    expect(segCount()).toBe(before);
+  });
+
+  it('a BOM and semicolons are understood', async () => {
+    const res = await upload({ name: 'bom.csv', content: `\ufeffsegment_id;road_name;length_mi;width_ft;lanes;functional_class;surface\nBOM-1;Test Rd;0.5;24;2;Local;Asphalt\n` }, { dryRun: 'true' });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ added: 1, rejected: 0 });
+  });
+
+  it('duplicate ids, negative widths and PCI out of range are row errors', async () => {
+    const content = `${good.trim()},pci\nD-1,A,1,24,2,local,asphalt,50\nD-1,B,1,-3,2,local,asphalt,101\n`;
+    const res = await upload({ name: 'dups.csv', content }, { dryRun: 'true' });
+    expect(res.status).toBe(422);
+    expect(res.body.errors.map((e: { column: string }) => e.column).sort()).toEqual(['pci', 'segment_id', 'width_ft']);
+  });
+
+  it('a file over the size limit answers 413', async () => {
+    const res = await upload({ name: 'huge.csv', content: Buffer.alloc(26 * 1024 * 1024, 0x61) });
+    expect(res.status).toBe(413);
+    expect(res.body.error.code).toBe('file_too_large');
+  });
+
+  it('a missing required column is named once, not row by row', async () => {
+    const res = await upload({ name: 'nowidth.csv', content: 'segment_id,road_name,length_mi,lanes,functional_class,surface\nX,Y,1,2,local,asphalt\n' }, { dryRun: 'true' });
+    expect(res.status).toBe(422);
+    expect(res.body.errors).toEqual([{ row: 1, column: 'width_ft', value: '', message: 'no column of the file is matched to this required field' }]);
+  });
+
+  it('no file answers 400 naming the field; JSON instead of multipart answers 415', async () => {
+    const none = await eng.post(url).field('dryRun', 'true');
+    expect(none.status).toBe(400);
+    expect(none.body.error.issues[0].path).toBe('file');
+    const json = await eng.post(url).send({ file: 'x' });
+    expect(json.status).toBe(415);
+  });
+
+  it('path tricks in the file name are reduced to a bare label', async () => {
+    const res = await upload({ name: '../../etc/passwd.csv', content: 'segment_id,road_name,length_mi,width_ft,lanes,functional_class,surface\nP-1,Path Rd,1,24,2,local,asphalt\n' });
+    expect(res.status).toBe(200);
+    const history = await eng.get(url);
+    expect(history.body.items[0].fileName).toBe('passwd.csv');
+  });
+});
+
+describe('survey import', () => {
+  it('adds history rows and lifts the latest PCI only when newer', async () => {
+    const res = await upload(sample('brannock-prairie-view-surveys.csv'), { kind: 'surveys' });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ kind: 'surveys', added: 58, rejected: 0 });
+    const seg = t.sqlite.prepare("SELECT id, pci, pci_date FROM segments WHERE agency_id = ? AND segment_id = 'PV-S1-2'").get(t.ids.brannock) as { id: number; pci: number; pci_date: string };
+    // The 2025 survey is older than the 2026 one from the segment file: the latest stays.
+    expect(seg.pci_date.startsWith('2026')).toBe(true);
+    expect(count('SELECT count(*) AS n FROM surveys WHERE segment_ref = ?', seg.id)).toBe(2);
+  });
+
+  it('an unknown segment id is a row error', async () => {
+    const res = await upload({ name: 's.csv', content: 'segment_id,survey_date,pci\nNOPE-1,2025-05-01,70\n' }, { kind: 'surveys', dryRun: 'true' });
+    expect(res.status).toBe(422);
+    expect(res.body.errors[0]).toMatchObject({ row: 2, column: 'segment_id', value: 'NOPE-1' });
+  });
+});
+
+describe('permissions', () => {
+  it('viewers cannot import; another agency cannot be imported into', async () => {
+    const viewer = await t.as('viewer@brannock.example');
+    const v = await viewer.post(url).attach('file', sample('brannock-prairie-view.csv'));
+    expect(v.status).toBe(403);
+    const marlowEng = await t.as('engineer@marlow.example');
+    const m = await marlowEng.post(url).attach('file', sample('brannock-prairie-view.csv'));
+    expect(m.status).toBe(404);
+  });
+
+  it('the remembered mapping is per agency', async () => {
+    const b = await eng.get(`${url}/mapping?kind=segments`);
+    expect(b.body.mapping).not.toBeNull();
+    const marlowEng = await t.as('engineer@marlow.example');
+    const m = await marlowEng.get(`/api/agencies/${t.ids.marlow}/imports/mapping?kind=segments`);
+    expect(m.body.mapping).toBeNull();
+  });
+});
