@@ -103,7 +103,10 @@ function authorize(def: RouteDef, req: Request, deps: Deps) {
 }
 
 export function mountApiRoutes(router: Router, routes: ApiRoutes, deps: Deps) {
-  for (const def of routes.list) {
+  // Literal path parts win over parameters (…/segments/export before …/segments/:id).
+  const paramCount = (p: string) => (p.match(/:/g) ?? []).length;
+  const ordered = [...routes.list].sort((a, b) => paramCount(a.path) - paramCount(b.path));
+  for (const def of ordered) {
     const run = async (req: Request, res: Response, next: NextFunction) => {
       try {
         const { user, agency } = authorize(def, req, deps);

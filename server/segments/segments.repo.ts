@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, isNull, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
 import { CONDITION_BANDS } from '../../shared/condition';
 import { areaSy, laneMiles } from '../../shared/engine/quantities';
 import type { FunctionalClass, Segment, SegmentListQuery, Surface } from '../../shared/schemas/segments';
@@ -31,7 +31,9 @@ export function toSegment(r: SegmentRow): Segment {
   };
 }
 
-function filters(agencyId: string, q: SegmentListQuery): SQL {
+export type SegmentFilter = Omit<SegmentListQuery, 'limit' | 'offset' | 'sort' | 'dir'>;
+
+function filters(agencyId: string, q: SegmentFilter): SQL {
   const parts: (SQL | undefined)[] = [eq(segments.agencyId, agencyId)];
   if (q.q) {
     const pattern = `%${q.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
@@ -114,5 +116,28 @@ export function surveysOf(db: Db, agencyId: string, segmentRef: number) {
     .from(surveys)
     .where(and(eq(surveys.agencyId, agencyId), eq(surveys.segmentRef, segmentRef)))
     .orderBy(asc(surveys.surveyDate))
+    .all();
+}
+
+/** Map features as one JSON string: the stored geometry text is spliced in, never parsed. */
+export function segmentsGeoJson(db: Db, agencyId: string, q: SegmentFilter): string {
+  const rows = db
+    .select({ id: segments.id, segmentId: segments.segmentId, roadName: segments.roadName, pci: segments.pci, cls: segments.functionalClass, geometry: segments.geometry })
+    .from(segments)
+    .where(and(filters(agencyId, q), isNotNull(segments.geometry)))
+    .all();
+  const parts = rows.map(
+    (r) => `{"type":"Feature","id":${r.id},"properties":${JSON.stringify({ id: r.id, s: r.segmentId, r: r.roadName, p: r.pci === null ? -1 : Math.round(r.pci), c: r.cls })},"geometry":${r.geometry}}`,
+  );
+  return `{"type":"FeatureCollection","features":[${parts.join(',')}]}`;
+}
+
+export function allSegments(db: Db, agencyId: string, q: SegmentListQuery) {
+  const col = sortColumns[q.sort];
+  return db
+    .select()
+    .from(segments)
+    .where(filters(agencyId, q))
+    .orderBy(q.dir === 'asc' ? asc(col) : desc(col), asc(segments.id))
     .all();
 }

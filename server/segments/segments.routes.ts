@@ -9,7 +9,13 @@ import {
 } from '../../shared/schemas/segments';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
+import { z } from 'zod';
+import { agencyById } from '../agencies/agencies.repo';
+import { allSegments, segmentsGeoJson } from './segments.repo';
+import { segmentsCsv, segmentsXlsx } from './segments.export';
 import * as service from './segments.service';
+
+const FilterQuerySchema = SegmentListQuerySchema.omit({ limit: true, offset: true });
 
 export function segmentRoutes(api: ApiRoutes, deps: Deps) {
   api.add({
@@ -53,5 +59,43 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
     body: SegmentUpdateSchema,
     response: SegmentDetailSchema,
     handler: ({ agency, user, params, body }) => service.updateSegment(deps, agency!.id, user!.id, params.id, body),
+  });
+  api.add({
+    method: 'get',
+    path: '/api/agencies/:agencyId/segments.geojson',
+    tag: 'Segments',
+    summary: 'Segments with geometry as GeoJSON for the map (id, segment id, road name, PCI, class), same filters as the list',
+    access: { kind: 'agency', role: 'viewer' },
+    params: AgencyParamsSchema,
+    query: FilterQuerySchema,
+    responseDescription: 'application/geo+json FeatureCollection',
+    handler: ({ agency, query, res }) => {
+      res.setHeader('Content-Type', 'application/geo+json; charset=utf-8');
+      res.send(segmentsGeoJson(deps.db, agency!.id, query));
+    },
+  });
+  api.add({
+    method: 'get',
+    path: '/api/agencies/:agencyId/segments/export',
+    tag: 'Segments',
+    summary: 'The filtered segment list as CSV or XLSX, with the canonical import headers',
+    access: { kind: 'agency', role: 'viewer' },
+    params: AgencyParamsSchema,
+    query: FilterQuerySchema.extend({ format: z.enum(['csv', 'xlsx']).default('csv') }),
+    responseDescription: 'text/csv or an XLSX workbook',
+    handler: async ({ agency, query, res }) => {
+      const rows = allSegments(deps.db, agency!.id, { ...query, limit: 0, offset: 0 });
+      const name = agencyById(deps.db, agency!.id)!.name;
+      const base = `${name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-segments`;
+      if (query.format === 'xlsx') {
+        res.setHeader('Content-Type', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
+        res.setHeader('Content-Disposition', `attachment; filename="${base}.xlsx"`);
+        res.send(await segmentsXlsx(rows, name));
+      } else {
+        res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+        res.setHeader('Content-Disposition', `attachment; filename="${base}.csv"`);
+        res.send(segmentsCsv(rows));
+      }
+    },
   });
 }

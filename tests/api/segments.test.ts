@@ -83,3 +83,44 @@ describe('network summary', () => {
     expect(res.body.weightedPci).toBeLessThan(100);
   });
 });
+
+describe('map GeoJSON and exports', () => {
+  it('GeoJSON carries only what the map needs, for the filtered set', async () => {
+    const res = await u.get(`/api/agencies/${t.ids.brannock}/segments.geojson?class=principal_arterial`);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/application\/geo\+json/);
+    const fc = JSON.parse(res.text);
+    expect(fc.type).toBe('FeatureCollection');
+    expect(fc.features).toHaveLength(24);
+    expect(Object.keys(fc.features[0].properties).sort()).toEqual(['c', 'id', 'p', 'r', 's']);
+    expect(fc.features[0].geometry.type).toBe('LineString');
+  });
+
+  it('CSV export has the canonical headers and re-imports as unchanged', async () => {
+    const csv = await u.get(`/api/agencies/${t.ids.brannock}/segments/export?format=csv&class=minor_arterial`);
+    expect(csv.status).toBe(200);
+    expect(csv.headers['content-disposition']).toMatch(/brannock-county-segments\.csv/);
+    const lines = csv.text.trim().split(/\r?\n/);
+    expect(lines[0]).toBe('segment_id,road_name,from_desc,to_desc,length_mi,width_ft,lanes,functional_class,surface,adt,truck_pct,pci,pci_date,last_treatment,last_treatment_year,district,notes');
+    expect(lines).toHaveLength(1 + 20 + 20); // the parkway and the two Tallow Creek main streets
+    const eng = await t.as('engineer@brannock.example');
+    const re = await eng.post(`/api/agencies/${t.ids.brannock}/imports`).field('dryRun', 'true').attach('file', Buffer.from(csv.text), 'export.csv');
+    expect(re.status).toBe(200);
+    expect(re.body).toMatchObject({ added: 0, updated: 0, unchanged: 40, rejected: 0 });
+  });
+
+  it('XLSX export is a workbook that re-imports as unchanged', async () => {
+    const x = await u.get(`/api/agencies/${t.ids.brannock}/segments/export?format=xlsx&district=Tallow Creek`).buffer(true).parse((res, cb) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+    expect(x.status).toBe(200);
+    const body = x.body as Buffer;
+    expect(body.subarray(0, 2).toString('latin1')).toBe('PK');
+    const eng = await t.as('engineer@brannock.example');
+    const re = await eng.post(`/api/agencies/${t.ids.brannock}/imports`).field('dryRun', 'true').attach('file', body, 'export.xlsx');
+    expect(re.status).toBe(200);
+    expect(re.body).toMatchObject({ added: 0, updated: 0, unchanged: 220, rejected: 0 });
+  });
+});

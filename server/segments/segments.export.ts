@@ -1,0 +1,46 @@
+// Export of the filtered segment list. Columns are our canonical import
+// headers, so an exported file re-imports as "unchanged".
+import ExcelJS from 'exceljs';
+import Papa from 'papaparse';
+import { SEGMENT_FIELDS } from '../../shared/schemas/imports';
+import type { SegmentRow } from './segments.repo';
+
+function record(r: SegmentRow): Record<(typeof SEGMENT_FIELDS)[number], string | number | null> {
+  return {
+    segment_id: r.segmentId,
+    road_name: r.roadName,
+    from_desc: r.fromDesc,
+    to_desc: r.toDesc,
+    length_mi: r.lengthMi,
+    width_ft: r.widthFt,
+    lanes: r.lanes,
+    functional_class: r.functionalClass,
+    surface: r.surface,
+    adt: r.adt,
+    truck_pct: r.truckPct,
+    pci: r.pci,
+    pci_date: r.pciDate,
+    last_treatment: r.lastTreatment,
+    last_treatment_year: r.lastTreatmentYear,
+    district: r.district,
+    notes: r.notes,
+  };
+}
+
+export function segmentsCsv(rows: SegmentRow[]) {
+  return `${Papa.unparse({ fields: [...SEGMENT_FIELDS], data: rows.map((r) => SEGMENT_FIELDS.map((f) => record(r)[f] ?? '')) })}\n`;
+}
+
+export async function segmentsXlsx(rows: SegmentRow[], agencyName: string) {
+  const wb = new ExcelJS.Workbook();
+  wb.creator = 'Wearcourse';
+  const ws = wb.addWorksheet('Segments');
+  ws.columns = SEGMENT_FIELDS.map((f) => ({ header: f, key: f, width: Math.max(10, f.length + 2) }));
+  for (const r of rows) ws.addRow(record(r));
+  ws.getRow(1).font = { bold: true };
+  ws.views = [{ state: 'frozen', ySplit: 1 }];
+  const about = wb.addWorksheet('About');
+  about.addRow([`${agencyName} — segment inventory exported from Wearcourse on ${new Date().toISOString().slice(0, 10)}`]);
+  about.addRow(['Lengths in miles, widths in feet. Re-import this file to update segments by segment_id.']);
+  return Buffer.from(await wb.xlsx.writeBuffer());
+}
