@@ -59,7 +59,10 @@ for (let dir = 0; dir < 2; dir++) {
 }
 
 const fields = Object.keys(rows[0]);
-fs.writeFileSync(path.join(out, 'brannock-prairie-view.csv'), `${Papa.unparse(rows, { columns: fields })}\n`);
+// The CSV carries each centreline as WKT in a geometry column, as GIS exports to CSV do.
+const wkt = (c: [number, number][]) => `LINESTRING (${c.map((p) => p.join(' ')).join(', ')})`;
+const csvRows = rows.map((row, i) => ({ ...row, geometry: wkt(geoms[i]) }));
+fs.writeFileSync(path.join(out, 'brannock-prairie-view.csv'), `${Papa.unparse(csvRows, { columns: [...fields, 'geometry'] })}\n`);
 
 // The same rows as a workbook with the headers a county spreadsheet might use.
 const wb = new ExcelJS.Workbook();

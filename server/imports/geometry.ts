@@ -39,6 +39,7 @@ export function geometryProblem(g: Geometry | null | undefined): string | null {
     }
     return null;
   }
+  if (g.type === 'unreadable WKT') return 'is not readable WKT (e.g. LINESTRING (-98.5 38.8, -98.49 38.8))';
   return `geometry type ${String(g.type)} is not a road centreline (use LineString or MultiLineString)`;
 }
 

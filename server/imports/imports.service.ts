@@ -17,7 +17,8 @@ import { crsDefinition, geometryProblem, type LineGeometry, lengthMiles, looksLo
 import * as repo from './imports.repo';
 import { guessMapping, unitsFromHeaders } from './mapping';
 import { normalizeSegmentRow, normalizeSurveyRow, type SegmentInput, type SurveyInput, type Units } from './normalize';
-import { type RawTable, readTable } from './read-file';
+import wkx from 'wkx';
+import { type Geometry, type RawTable, readTable } from './read-file';
 
 export type ImportResult = { status: 200 | 422; report: ImportReport };
 
@@ -73,6 +74,24 @@ function baseReport(table: RawTable, opts: ImportOptions, mapping: Record<string
   };
 }
 
+/** A spreadsheet column of WKT (or GeoJSON geometry text) becomes each row's geometry. */
+function geometryFromColumn(table: RawTable, column: string) {
+  table.hasGeometry = true;
+  for (const r of table.rows) {
+    const text = r.values[column];
+    if (text === null || text === undefined || String(text).trim() === '') {
+      r.geometry = null;
+      continue;
+    }
+    const t = String(text).trim();
+    try {
+      r.geometry = t.startsWith('{') ? (JSON.parse(t) as Geometry) : (wkx.Geometry.parse(t).toGeoJSON() as Geometry);
+    } catch {
+      r.geometry = { type: 'unreadable WKT', coordinates: null };
+    }
+  }
+}
+
 const headerRow = (table: RawTable) => (table.format === 'geojson' || table.format === 'shapefile' ? 0 : 1);
 
 /** Reads, checks and (unless a dry run or refused) writes one upload in one transaction. */
@@ -87,6 +106,7 @@ export async function runImport(
   const saved = repo.savedMapping(deps.db, agencyId, opts.kind);
   if (opts.mapping) checkMapping(table, opts.kind, opts.mapping);
   const mapping = opts.mapping ?? guessMapping(table.columns, opts.kind, saved);
+  if (!table.hasGeometry && mapping.geometry) geometryFromColumn(table, mapping.geometry);
   const detected = unitsFromHeaders(mapping);
   const units: Units = { length: opts.lengthUnit ?? detected.length, width: opts.widthUnit ?? detected.width };
   let crs = opts.crs?.toUpperCase() ?? table.crsHint;
@@ -139,8 +159,12 @@ async function importSegments(deps: Deps, agencyId: string, userId: string, file
     let geometry: LineGeometry | null = null;
     if (table.hasGeometry) {
       const problem = geometryProblem(r.geometry);
-      if (!r.geometry) rowErrors.push({ row: r.row, column: 'geometry', value: '', message: 'the feature has no geometry' });
-      else if (problem) rowErrors.push({ row: r.row, column: 'geometry', value: String(r.geometry.type), message: problem });
+      const geoColumn = mapping.geometry ?? 'geometry';
+      const spreadsheet = table.format === 'csv' || table.format === 'xlsx';
+      if (!r.geometry) {
+        // A GIS feature must carry its line; a spreadsheet row may leave the WKT cell blank.
+        if (!spreadsheet) rowErrors.push({ row: r.row, column: geoColumn, value: '', message: 'the feature has no geometry' });
+      } else if (problem) rowErrors.push({ row: r.row, column: geoColumn, value: spreadsheet ? String(r.values[geoColumn] ?? '').slice(0, 60) : String(r.geometry.type), message: problem });
       else {
         geometry = to2d(r.geometry as LineGeometry);
         if (proj) geometry = reproject(geometry, proj);

@@ -24,6 +24,7 @@ const SYNONYMS: Record<Field, string[]> = {
   last_treatment_year: ['lasttreatmentyear', 'treatmentyear', 'yearlasttreated', 'lastworkyear', 'yearpaved'],
   district: ['district', 'zone', 'area', 'maintenancedistrict', 'ward'],
   notes: ['notes', 'comments', 'remarks', 'note'],
+  geometry: ['geometry', 'wkt', 'geom', 'thegeom', 'shape', 'geometrywkt'],
   survey_date: ['surveydate', 'date', 'pcidate', 'inspectiondate', 'ratingdate'],
   source: ['source', 'surveysource', 'method', 'rater', 'inspector'],
 };

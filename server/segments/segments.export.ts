@@ -2,6 +2,7 @@
 // headers, so an exported file re-imports as "unchanged".
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
+import wkx from 'wkx';
 import { SEGMENT_FIELDS } from '../../shared/schemas/imports';
 import type { SegmentRow } from './segments.repo';
 
@@ -24,6 +25,7 @@ function record(r: SegmentRow): Record<(typeof SEGMENT_FIELDS)[number], string |
     last_treatment_year: r.lastTreatmentYear,
     district: r.district,
     notes: r.notes,
+    geometry: r.geometry ? wkx.Geometry.parseGeoJSON(JSON.parse(r.geometry)).toWkt() : null,
   };
 }
 

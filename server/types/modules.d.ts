@@ -10,3 +10,11 @@ declare module 'epsg-index/all.json' {
 declare module 'shpjs' {
   export default function shp(input: ArrayBuffer | Buffer | string): Promise<unknown>;
 }
+declare module 'wkx' {
+  export class Geometry {
+    static parse(value: string | Buffer): Geometry;
+    static parseGeoJSON(value: object): Geometry;
+    toGeoJSON(): { type: string; coordinates: unknown };
+    toWkt(): string;
+  }
+}

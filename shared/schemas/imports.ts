@@ -20,6 +20,7 @@ export const SEGMENT_FIELDS = [
   'last_treatment_year',
   'district',
   'notes',
+  'geometry',
 ] as const;
 export type SegmentField = (typeof SEGMENT_FIELDS)[number];
 
@@ -46,6 +47,7 @@ export const FIELD_LABELS: Record<SegmentField | SurveyField, string> = {
   last_treatment_year: 'Last treatment year',
   district: 'District / zone',
   notes: 'Notes',
+  geometry: 'Geometry (WKT line, WGS84 or the chosen CRS)',
   survey_date: 'Survey date',
   source: 'Survey source',
 };

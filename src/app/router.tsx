@@ -3,6 +3,7 @@ import { AppShell } from './routes/app-shell';
 import { ErrorPage } from './routes/error-page';
 import { ForgotPasswordPage } from './routes/forgot-password';
 import { HomeRedirect } from './routes/home-redirect';
+import { ImportsPage } from './routes/imports';
 import { InvitePage } from './routes/invite';
 import { MembersPage } from './routes/members';
 import { NetworkPage } from './routes/network';
@@ -10,6 +11,7 @@ import { NotFoundPage } from './routes/not-found';
 import { PlaceholderPage } from './routes/placeholder';
 import { ResetPasswordPage } from './routes/reset-password';
 import { RoadsPage } from './routes/roads';
+import { SegmentPage } from './routes/segment';
 import { SentMailPage } from './routes/sent-mail';
 import { SettingsPage } from './routes/settings';
 import { SignInPage } from './routes/sign-in';
@@ -28,7 +30,8 @@ export const router = createBrowserRouter([
       { index: true, element: <Navigate to="network" replace /> },
       { path: 'network', element: <NetworkPage /> },
       { path: 'roads', element: <RoadsPage /> },
-      { path: 'imports', element: <PlaceholderPage area="imports" /> },
+      { path: 'roads/:segmentRef', element: <SegmentPage /> },
+      { path: 'imports', element: <ImportsPage /> },
       { path: 'catalog', element: <PlaceholderPage area="catalog" /> },
       { path: 'compare', element: <PlaceholderPage area="compare" /> },
       { path: 'forecast', element: <PlaceholderPage area="forecast" /> },

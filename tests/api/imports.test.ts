@@ -158,6 +158,23 @@ describe('GeoJSON', () => {
   });
 });
 
+describe('WKT geometry in a spreadsheet column', () => {
+  it('reads LINESTRING cells as geometry, leaves blank cells without, and names unreadable ones', async () => {
+    const head = 'segment_id,road_name,length_mi,width_ft,lanes,functional_class,surface,geometry\n';
+    const ok = await upload({ name: 'wkt.csv', content: `${head}W-1,Wkt Rd,,24,2,local,asphalt,"LINESTRING (-98.5 38.8, -98.5 38.81)"\nW-2,Wkt Rd,1,24,2,local,asphalt,\n` }, { dryRun: 'true' });
+    expect(ok.status).toBe(200);
+    expect(ok.body.rejected).toBe(0);
+    // 0.01° of latitude is about 0.69 mi (1° ≈ 69 mi, from memory); turf's value must be near it.
+    expect(ok.body.preview[0].lengthMi).toBeGreaterThan(0.68);
+    expect(ok.body.preview[0].lengthMi).toBeLessThan(0.70);
+    expect(ok.body.preview[0].hasGeometry).toBe(true);
+    expect(ok.body.preview[1].hasGeometry).toBe(false);
+    const bad = await upload({ name: 'wkt.csv', content: `${head}W-3,Wkt Rd,1,24,2,local,asphalt,LINESTRING (oops)\n` }, { dryRun: 'true' });
+    expect(bad.status).toBe(422);
+    expect(bad.body.errors[0]).toMatchObject({ row: 2, column: 'geometry', message: expect.stringMatching(/not readable WKT/) });
+  });
+});
+
 describe('the messy sample', () => {
   it('gives exactly the expected report', async () => {
     const res = await upload(sample('brannock-messy.csv'), { dryRun: 'true' });

@@ -101,7 +101,8 @@ describe('map GeoJSON and exports', () => {
     expect(csv.status).toBe(200);
     expect(csv.headers['content-disposition']).toMatch(/brannock-county-segments\.csv/);
     const lines = csv.text.trim().split(/\r?\n/);
-    expect(lines[0]).toBe('segment_id,road_name,from_desc,to_desc,length_mi,width_ft,lanes,functional_class,surface,adt,truck_pct,pci,pci_date,last_treatment,last_treatment_year,district,notes');
+    expect(lines[0]).toBe('segment_id,road_name,from_desc,to_desc,length_mi,width_ft,lanes,functional_class,surface,adt,truck_pct,pci,pci_date,last_treatment,last_treatment_year,district,notes,geometry');
+    expect(lines[1]).toMatch(/,"?LINESTRING ?\(-98\./);
     expect(lines).toHaveLength(1 + 20 + 20); // the parkway and the two Tallow Creek main streets
     const eng = await t.as('engineer@brannock.example');
     const re = await eng.post(`/api/agencies/${t.ids.brannock}/imports`).field('dryRun', 'true').attach('file', Buffer.from(csv.text), 'export.csv');

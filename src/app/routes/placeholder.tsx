@@ -1,7 +1,6 @@
 import { NotBuiltYet } from '@/components/not-built-yet';
 
 const AREAS: Record<string, { title: string; what: string }> = {
-  imports: { title: 'Imports', what: 'Importing segments and surveys from CSV, XLSX and GeoJSON, with column matching and an error report, comes with the inventory work.' },
   catalog: { title: 'Catalog', what: "The agency's mixes, treatments, unit prices and economics (discount rate, analysis period) come with the life-cycle cost work." },
   compare: { title: 'Compare', what: 'Life-cycle cost comparison of 2–6 alternatives (present value, EUAC, sensitivity, Monte Carlo) comes with the life-cycle cost work.' },
   forecast: { title: 'Forecast', what: "Deterioration curves fitted to the agency's own surveys come with the budget-plan work." },

@@ -1,86 +1,107 @@
-import { useState } from 'react';
-import { CONDITION_BANDS, conditionBand, NO_DATA_COLOR } from '@shared/condition';
-import { FUNCTIONAL_CLASSES } from '@shared/schemas/segments';
+import { useMemo, useState } from 'react';
+import { useNavigate, useSearchParams } from 'react-router-dom';
+import { CONDITION_BANDS } from '@shared/condition';
+import { FUNCTIONAL_CLASSES, SURFACES } from '@shared/schemas/segments';
 import { Button } from '@/components/ui/button';
 import { Select, TextInput } from '@/components/ui/field';
 import { EmptyState, PageHeader } from '@/components/ui/page';
+import { useSegmentsGeoJson } from '@/features/map/api/get-segments-geojson';
+import { LazyNetworkMap } from '@/features/map/components/lazy-network-map';
 import { useSegments } from '@/features/segments/api/get-segments';
-import { CLASS_LABELS, fmt1, fmt2, fmtInt, SURFACE_LABELS } from '@/lib/format';
+import { SegmentTable } from '@/features/segments/components/segment-table';
+import { CLASS_LABELS, fmt1, fmtInt, SURFACE_LABELS } from '@/lib/format';
 import { useAgency } from '../use-agency';
 
-const PAGE = 100;
+const FILTER_KEYS = ['q', 'class', 'surface', 'band', 'district'] as const;
 
 export function RoadsPage() {
-  const { agencyId } = useAgency();
-  const [q, setQ] = useState('');
-  const [cls, setCls] = useState('');
-  const [band, setBand] = useState('');
-  const [offset, setOffset] = useState(0);
-  const list = useSegments(agencyId, { q, class: cls, band, limit: PAGE, offset });
-  const data = list.data;
+  const { agencyId, membership } = useAgency();
+  const navigate = useNavigate();
+  const [params, setParams] = useSearchParams();
+  const filters = useMemo(() => Object.fromEntries(FILTER_KEYS.map((k) => [k, params.get(k) ?? undefined])) as Record<(typeof FILTER_KEYS)[number], string | undefined>, [params]);
+  const [sort, setSort] = useState({ id: 'segmentId', desc: false });
+  const [selected, setSelected] = useState<Set<number>>(new Set());
+  const summary = useSegments(agencyId, { ...filters, limit: 1 });
+  const geo = useSegmentsGeoJson(agencyId, filters);
+  const canEdit = membership?.role === 'admin' || membership?.role === 'engineer';
+  const t = summary.data?.totals;
+
+  const setFilter = (k: string, v: string) => {
+    const next = new URLSearchParams(params);
+    if (v) next.set(k, v);
+    else next.delete(k);
+    setParams(next, { replace: true });
+  };
+  const exportHref = (format: 'csv' | 'xlsx') => {
+    const q = new URLSearchParams({ format });
+    for (const [k, v] of Object.entries(filters)) if (v) q.set(k, v);
+    return `/api/agencies/${agencyId}/segments/export?${q}`;
+  };
+  const toggle = (id: number) => {
+    const next = new Set(selected);
+    if (next.has(id)) next.delete(id);
+    else next.add(id);
+    setSelected(next);
+  };
+
   return (
     <div>
       <PageHeader
         title="Roads"
-        caption={data ? `${fmtInt(data.totals.count)} segments · ${fmt1(data.totals.miles)} mi · ${fmt1(data.totals.laneMiles)} lane-mi · ${fmtInt(data.totals.areaSy)} SY · PCI ${fmt1(data.totals.weightedPci)} (length-weighted)` : undefined}
+        caption={
+          t
+            ? `${fmtInt(t.count)} segments · ${fmt1(t.miles)} mi · ${fmt1(t.laneMiles)} lane-mi · ${fmtInt(t.areaSy)} SY · PCI ${fmt1(t.weightedPci)} (length-weighted)`
+            : 'Loading…'
+        }
+        actions={
+          <>
+            <a className="rounded border border-asphalt-line bg-white px-3 py-1.5 text-sm font-semibold hover:border-asphalt-muted" href={exportHref('csv')}>Export CSV</a>
+            <a className="rounded border border-asphalt-line bg-white px-3 py-1.5 text-sm font-semibold hover:border-asphalt-muted" href={exportHref('xlsx')}>Export XLSX</a>
+          </>
+        }
       />
-      <div className="mb-3 flex flex-wrap gap-2">
-        <TextInput aria-label="Road name or segment id" placeholder="Road name or segment id" className="max-w-xs" value={q} onChange={(e) => { setQ(e.target.value); setOffset(0); }} />
-        <Select aria-label="Functional class" className="max-w-[12rem]" value={cls} onChange={(e) => { setCls(e.target.value); setOffset(0); }}>
+      <div className="mb-3 flex flex-wrap items-center gap-2" data-testid="filter-bar">
+        <TextInput aria-label="Road name or segment id" placeholder="Road name or segment id" className="max-w-[14rem]" value={filters.q ?? ''} onChange={(e) => setFilter('q', e.target.value)} />
+        <Select aria-label="Functional class" className="max-w-[11rem]" value={filters.class ?? ''} onChange={(e) => setFilter('class', e.target.value)}>
           <option value="">All classes</option>
           {FUNCTIONAL_CLASSES.map((c) => <option key={c} value={c}>{CLASS_LABELS[c]}</option>)}
         </Select>
-        <Select aria-label="Condition band" className="max-w-[12rem]" value={band} onChange={(e) => { setBand(e.target.value); setOffset(0); }}>
+        <Select aria-label="Surface" className="max-w-[9rem]" value={filters.surface ?? ''} onChange={(e) => setFilter('surface', e.target.value)}>
+          <option value="">All surfaces</option>
+          {SURFACES.map((c) => <option key={c} value={c}>{SURFACE_LABELS[c]}</option>)}
+        </Select>
+        <Select aria-label="Condition band" className="max-w-[11rem]" value={filters.band ?? ''} onChange={(e) => setFilter('band', e.target.value)}>
           <option value="">All conditions</option>
-          {CONDITION_BANDS.map((b) => <option key={b.id} value={b.id}>{b.label} ({b.min}–{b.max})</option>)}
+          {CONDITION_BANDS.map((b) => <option key={b.id} value={b.id}>{b.label} (PCI {b.min}–{b.max})</option>)}
           <option value="none">No PCI</option>
         </Select>
+        <TextInput aria-label="District" placeholder="District" className="max-w-[9rem]" value={filters.district ?? ''} onChange={(e) => setFilter('district', e.target.value)} />
+        {FILTER_KEYS.some((k) => filters[k]) && <Button variant="ghost" onClick={() => setParams(new URLSearchParams(), { replace: true })}>Clear filters</Button>}
+        <div className="ml-auto flex items-center gap-2 text-sm">
+          <span className="num text-asphalt-muted" data-testid="selection-count">{selected.size} selected</span>
+          {selected.size > 0 && <Button variant="ghost" onClick={() => setSelected(new Set())}>Clear</Button>}
+          {canEdit && (
+            <Button disabled={selected.size === 0} onClick={() => navigate(`../compare?segments=${[...selected].join(',')}`)}>
+              Compare alternatives for selection
+            </Button>
+          )}
+        </div>
       </div>
-      {data && data.total === 0 ? (
-        <EmptyState>No segments match. Clear the filters, or import a spreadsheet or GIS file.</EmptyState>
+      {t && t.count === 0 && !FILTER_KEYS.some((k) => filters[k]) ? (
+        <EmptyState>No segments yet — import a spreadsheet or GIS file under Imports.</EmptyState>
       ) : (
-        <div className="overflow-x-auto rounded border border-asphalt-line bg-white">
-          <table className="num w-full text-sm" data-testid="segment-table">
-            <thead className="bg-paper text-left text-xs uppercase tracking-wide text-asphalt-muted">
-              <tr>
-                <th className="px-3 py-2">Segment</th><th className="px-3 py-2">Road</th><th className="px-3 py-2">From – to</th>
-                <th className="px-3 py-2 text-right">Length (mi)</th><th className="px-3 py-2 text-right">Width (ft)</th><th className="px-3 py-2 text-right">Lanes</th>
-                <th className="px-3 py-2">Class</th><th className="px-3 py-2">Surface</th><th className="px-3 py-2 text-right">PCI</th>
-              </tr>
-            </thead>
-            <tbody>
-              {data?.items.map((s) => {
-                const b = conditionBand(s.pci);
-                return (
-                  <tr key={s.id} className="border-t border-asphalt-line/60">
-                    <td className="px-3 py-1.5 font-semibold">{s.segmentId}</td>
-                    <td className="px-3 py-1.5">{s.roadName}</td>
-                    <td className="px-3 py-1.5 text-asphalt-muted">{s.fromDesc} – {s.toDesc}</td>
-                    <td className="px-3 py-1.5 text-right">{fmt2(s.lengthMi)}</td>
-                    <td className="px-3 py-1.5 text-right">{fmtInt(s.widthFt)}</td>
-                    <td className="px-3 py-1.5 text-right">{s.lanes}</td>
-                    <td className="px-3 py-1.5">{CLASS_LABELS[s.functionalClass]}</td>
-                    <td className="px-3 py-1.5">{SURFACE_LABELS[s.surface]}</td>
-                    <td className="px-3 py-1.5 text-right">
-                      <span className="inline-flex items-center gap-1.5">
-                        <span className="inline-block h-2.5 w-2.5 rounded-full" style={{ background: b?.color ?? NO_DATA_COLOR }} />
-                        {s.pci === null ? '—' : fmtInt(s.pci)}
-                      </span>
-                    </td>
-                  </tr>
-                );
-              })}
-            </tbody>
-          </table>
+        <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+          <SegmentTable agencyId={agencyId} filters={filters} sort={sort} onSort={setSort} canEdit={canEdit} selected={selected} onToggle={toggle} onOpen={(id) => navigate(`${id}`)} />
+          <LazyNetworkMap
+            agencyId={agencyId}
+            features={geo.data}
+            selected={selected}
+            height={557}
+            onSelect={(ids, mode) => setSelected(mode === 'add' ? new Set([...selected, ...ids]) : new Set(ids))}
+          />
         </div>
       )}
-      {data && data.total > PAGE && (
-        <div className="mt-3 flex items-center gap-3 text-sm">
-          <Button variant="secondary" disabled={offset === 0} onClick={() => setOffset(Math.max(0, offset - PAGE))}>Previous</Button>
-          <span className="num text-asphalt-muted">{offset + 1}–{Math.min(offset + PAGE, data.total)} of {fmtInt(data.total)}</span>
-          <Button variant="secondary" disabled={offset + PAGE >= data.total} onClick={() => setOffset(offset + PAGE)}>Next</Button>
-        </div>
-      )}
+      {canEdit && <p className="mt-2 text-xs text-asphalt-muted">Double-click a cell to edit it. Click a road on the map for its details; shift-click or draw a box to select several.</p>}
     </div>
   );
 }
