@@ -1,5 +1,4 @@
 import Papa from 'papaparse';
-import { eq } from 'drizzle-orm';
 import {
   type ImportIssue,
   type ImportOptions,
@@ -11,7 +10,7 @@ import {
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
 import type { Deps } from '../deps';
-import { imports, segments } from '../db/schema';
+import { imports } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { crsDefinition, geometryProblem, type LineGeometry, lengthMiles, looksLonLat, reproject, to2d } from './geometry';
 import * as repo from './imports.repo';
@@ -233,21 +232,15 @@ async function importSegments(deps: Deps, agencyId: string, userId: string, file
   const importId = newId();
   const now = new Date().toISOString();
   deps.db.transaction((tx) => {
+    const write = repo.segmentWriter(deps.sqlite, agencyId);
     for (const p of plans) {
       const s = p.a.seg;
       let id = p.id;
-      if (p.kind === 'add') {
-        id = tx
-          .insert(segments)
-          .values({ agencyId, segmentId: s.segmentId, lengthMi: s.lengthMi ?? 0, ...(p.patch as object), roadName: s.roadName, widthFt: s.widthFt, lanes: s.lanes, functionalClass: s.functionalClass, surface: s.surface })
-          .returning({ id: segments.id })
-          .get().id;
-      } else if (p.kind === 'update') {
-        tx.update(segments).set({ ...p.patch, updatedAt: now }).where(eq(segments.id, id!)).run();
-      }
+      if (p.kind === 'add') id = write.insert(s.segmentId, { lengthMi: s.lengthMi ?? 0, ...p.patch });
+      else if (p.kind === 'update') write.update(id!, p.patch, now);
       if (s.pci !== null && p.kind !== 'same') {
-        if (s.pciDate) repo.upsertSurvey(tx, agencyId, id!, s.pciDate, s.pci, `import ${fileName}`.slice(0, 120));
-        else tx.update(segments).set({ pci: s.pci }).where(eq(segments.id, id!)).run();
+        if (s.pciDate) write.survey(id!, s.pciDate, s.pci, `import ${fileName}`.slice(0, 120));
+        else write.latestPci(id!, s.pci);
       }
     }
     tx.insert(imports)
