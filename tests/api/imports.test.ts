@@ -313,3 +313,27 @@ describe('permissions', () => {
     expect(m.body.mapping).toBeNull();
   });
 });
+
+describe('zipped shapefile', () => {
+  it('reads a State Plane shapefile through its .prj, guesses the 10-character dBase column names, and measures the reprojected line', async () => {
+    const { default: proj4 } = await import('proj4');
+    const epsg = (await import('epsg-index/all.json', { with: { type: 'json' } })).default as Record<string, { proj4: string; wkt: string }>;
+    // NAD83 / Kansas North (ftUS), EPSG:3419: definition and WKT from the epsg-index package.
+    const toSp = proj4('WGS84', epsg['3419'].proj4);
+    const lonlat = [
+      [-98.43, 38.83],
+      [-98.428513, 38.83],
+    ];
+    const zip = await (await import('../helpers/shapefile')).zippedShapefile(
+      [{ props: { segment_id: 'SHP-1', road_name: 'Shape Rd', width_ft: '24', lanes: '2', functional: 'local', surface: 'asphalt' }, lines: [lonlat.map((p) => toSp.forward(p))] }],
+      epsg['3419'].wkt,
+    );
+    const res = await upload({ name: 'roads.zip', content: zip }, { dryRun: 'true' });
+    expect(res.body.mapping.functional_class).toBe('functional');
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ format: 'shapefile', added: 1, rejected: 0 });
+    // Length from the reprojected geometry: the same 0.08 mi block as the lon/lat sample.
+    expect(res.body.preview[0].lengthMi).toBeGreaterThan(0.0796);
+    expect(res.body.preview[0].lengthMi).toBeLessThan(0.0804);
+  });
+});
