@@ -68,7 +68,7 @@ export function networkStyle(): StyleSpecification {
         id: 'highlight-line',
         type: 'line',
         source: 'highlight',
-        paint: { 'line-color': '#0f766e', 'line-width': 7, 'line-opacity': 0.45 },
+        paint: { 'line-color': '#1f2328', 'line-width': 10, 'line-opacity': 0.3 },
       },
       {
         id: 'segments-label',
