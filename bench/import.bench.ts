@@ -9,6 +9,7 @@ import request from 'supertest';
 import { createApp } from '../server/app';
 import { loadConfig } from '../server/config';
 import { openDb } from '../server/db/client';
+import { JobRunner } from '../server/jobs/job-runner';
 import { createMailer } from '../server/mail/mailer';
 import { seedDemo } from '../server/seed/seed';
 import { syntheticCsv } from './synthetic-network';
@@ -21,7 +22,7 @@ console.log(`generated ${N.toLocaleString('en-US')} rows, ${(csv.length / 1024 /
 const config = loadConfig({ NODE_ENV: 'test', DATABASE_PATH: path.join(dir, 'bench.db'), APP_URL: 'http://localhost:1' });
 const { db, sqlite } = openDb(config.databasePath);
 const ids = await seedDemo(db);
-const { app } = createApp({ db, sqlite, config, mailer: createMailer({ catcherPort: 1, from: config.mailFrom }) });
+const { app } = createApp({ db, sqlite, config, mailer: createMailer({ catcherPort: 1, from: config.mailFrom }), jobs: new JobRunner() });
 const agent = request.agent(app);
 await agent.post('/api/auth/sign-in/email').set('Origin', 'http://localhost:1').send({ email: 'engineer@marlow.example', password: 'wearcourse-demo' });
 

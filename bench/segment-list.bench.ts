@@ -6,6 +6,7 @@ import request from 'supertest';
 import { createApp } from '../server/app';
 import { loadConfig } from '../server/config';
 import { openDb } from '../server/db/client';
+import { JobRunner } from '../server/jobs/job-runner';
 import { createMailer } from '../server/mail/mailer';
 import { seedDemo } from '../server/seed/seed';
 
@@ -15,7 +16,7 @@ const { db, sqlite } = openDb(config.databasePath);
 let t = performance.now();
 const ids = await seedDemo(db);
 console.log(`seed demo agencies: ${(performance.now() - t).toFixed(0)} ms`);
-const { app } = createApp({ db, sqlite, config, mailer: createMailer({ catcherPort: 1, from: config.mailFrom }) });
+const { app } = createApp({ db, sqlite, config, mailer: createMailer({ catcherPort: 1, from: config.mailFrom }), jobs: new JobRunner() });
 const agent = request.agent(app);
 await agent.post('/api/auth/sign-in/email').set('Origin', 'http://localhost:1').send({ email: 'viewer@brannock.example', password: 'wearcourse-demo' });
 const N = 300;

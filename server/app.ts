@@ -11,7 +11,9 @@ import type { Deps } from './deps';
 import { createApiRoutes, mountApiRoutes } from './http/api';
 import { errorHandler } from './http/errors';
 import { originCheck, securityHeaders } from './http/security';
+import { catalogRoutes } from './catalog/catalog.routes';
 import { importRoutes } from './imports/imports.routes';
+import { lccaRoutes } from './lcca/lcca.routes';
 import { memberRoutes } from './members/members.routes';
 import { buildOpenApiDocument } from './openapi/openapi';
 import { segmentRoutes } from './segments/segments.routes';
@@ -55,6 +57,8 @@ export function createApp(deps: Deps) {
   segmentRoutes(routes, deps);
   memberRoutes(routes, deps);
   importRoutes(routes, deps);
+  catalogRoutes(routes, deps);
+  lccaRoutes(routes, deps);
   const router = express.Router();
   mountApiRoutes(router, routes, deps);
   app.use(router);

@@ -1,5 +1,6 @@
 import type { AppConfig } from './config';
 import type { Db, Sqlite } from './db/client';
+import type { JobRunner } from './jobs/job-runner';
 import type { Mailer } from './mail/mailer';
 
 // What services and routes are handed: no globals, so tests build their own.
@@ -8,4 +9,5 @@ export type Deps = {
   sqlite: Sqlite;
   config: AppConfig;
   mailer: Mailer;
+  jobs: JobRunner;
 };

@@ -5,6 +5,7 @@ import type { AppConfig } from './config';
 import { openDb } from './db/client';
 import type { Deps } from './deps';
 import { startMailCatcher, type MailCatcher } from './mail/catcher';
+import { JobRunner } from './jobs/job-runner';
 import { createMailer } from './mail/mailer';
 import { DEMO_ACCOUNTS, hasAnyAgency, seedDemo } from './seed/seed';
 
@@ -20,7 +21,7 @@ export async function startWearcourse(config: AppConfig, log = console.log): Pro
   }
   const catcher = config.smtpUrl ? null : await startMailCatcher(db, config.mailCatcherPort, config.env !== 'test');
   const mailer = createMailer({ smtpUrl: config.smtpUrl, catcherPort: catcher?.port, from: config.mailFrom });
-  const deps: Deps = { db, sqlite, config, mailer };
+  const deps: Deps = { db, sqlite, config, mailer, jobs: new JobRunner() };
   const { app } = createApp(deps);
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
@@ -39,6 +40,7 @@ export async function startWearcourse(config: AppConfig, log = console.log): Pro
   }
   const stop = async () => {
     await new Promise<void>((resolve) => server.close(() => resolve()));
+    await deps.jobs.close();
     await catcher?.close();
     mailer.close();
     sqlite.close();

@@ -21,6 +21,10 @@ export const agencies = sqliteTable('agencies', {
   discountRateSource: text(),
   analysisPeriodYears: integer().notNull().default(40),
   baseYear: integer().notNull(),
+  mobilizationPerJob: real().notNull().default(0),
+  trafficControlPerDay: real().notNull().default(0),
+  engineeringFraction: real().notNull().default(0),
+  contingencyFraction: real().notNull().default(0),
   createdAt: createdAt(),
 });
 
@@ -200,4 +204,93 @@ export const importMappings = sqliteTable(
     updatedAt: createdAt(),
   },
   (t) => [uniqueIndex('import_mappings_agency_kind').on(t.agencyId, t.kind)],
+);
+
+export const mixes = sqliteTable(
+  'mixes',
+  {
+    id: text().primaryKey(),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    name: text().notNull(),
+    binderGrade: text().notNull(),
+    modifier: text().notNull(),
+    pricePerTon: real().notNull(),
+    spreadRateLbPerSyIn: real().notNull(),
+    minLiftIn: real().notNull(),
+    maxLiftIn: real().notNull(),
+    refLiftIn: real().notNull(),
+    refLifeYears: real().notNull(),
+    coldWeatherNote: text(),
+    priceEffectiveDate: text().notNull(),
+    isDemo: integer({ mode: 'boolean' }).notNull().default(false),
+    createdAt: createdAt(),
+  },
+  (t) => [index('mixes_agency').on(t.agencyId)],
+);
+
+export const treatments = sqliteTable(
+  'treatments',
+  {
+    id: text().primaryKey(),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    name: text().notNull(),
+    category: text().notNull(),
+    kind: text().notNull(),
+    mixId: text().references(() => mixes.id, { onDelete: 'restrict' }),
+    defaultThicknessIn: real(),
+    millDepthIn: real().notNull().default(0),
+    lifeYears: real(),
+    productionSyPerDay: real().notNull(),
+    costItems: text().notNull(), // JSON CostItem[]
+    effect: text().notNull(), // JSON
+    applicability: text().notNull(), // JSON
+    priceEffectiveDate: text().notNull(),
+    isDemo: integer({ mode: 'boolean' }).notNull().default(false),
+    createdAt: createdAt(),
+  },
+  (t) => [index('treatments_agency').on(t.agencyId)],
+);
+
+// Every price change, with the date it takes effect: a saved analysis keeps a
+// snapshot of the prices it used, and this table says when they changed.
+export const priceHistory = sqliteTable(
+  'price_history',
+  {
+    id: integer().primaryKey({ autoIncrement: true }),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    entity: text().notNull(),
+    entityId: text().notNull(),
+    name: text().notNull(),
+    field: text().notNull(),
+    before: text(),
+    after: text(),
+    effectiveDate: text().notNull(),
+    userId: text(),
+    at: createdAt(),
+  },
+  (t) => [index('price_history_agency').on(t.agencyId, t.at)],
+);
+
+export const analyses = sqliteTable(
+  'analyses',
+  {
+    id: text().primaryKey(),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    name: text().notNull(),
+    createdBy: text().references(() => users.id, { onDelete: 'set null' }),
+    // The full input snapshot (catalog items, prices, economics, quantities): re-runs reproduce exactly.
+    input: text().notNull(),
+    result: text(),
+    createdAt: createdAt(),
+    updatedAt: createdAt(),
+  },
+  (t) => [index('analyses_agency').on(t.agencyId)],
 );

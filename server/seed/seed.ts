@@ -1,7 +1,8 @@
 import { hashPassword, DEMO_PASSWORD } from '../auth/passwords';
 import { newId } from '../auth/tokens';
 import type { Db, Sqlite } from '../db/client';
-import { agencies, memberships, segments, surveys, users } from '../db/schema';
+import { agencies, memberships, mixes, segments, surveys, treatments, users } from '../db/schema';
+import { DEMO_ECONOMICS, DEMO_MIXES, DEMO_TREATMENTS } from './demo-catalog';
 import { brannockCounty, cityOfMarlow, type DemoSegment } from './demo-network';
 
 export const DEMO_ACCOUNTS = [
@@ -50,6 +51,19 @@ function insertNetwork(db: Db, agencyId: string, network: DemoSegment[]) {
   }
 }
 
+function insertCatalog(db: Db, agencyId: string) {
+  const ids: Record<string, string> = {};
+  for (const { key, ...m } of DEMO_MIXES) {
+    ids[key] = newId();
+    db.insert(mixes).values({ ...m, id: ids[key], agencyId, isDemo: true }).run();
+  }
+  for (const { mixKey, ...t } of DEMO_TREATMENTS) {
+    db.insert(treatments)
+      .values({ ...t, id: newId(), agencyId, mixId: mixKey ? ids[mixKey] : null, costItems: JSON.stringify(t.costItems), effect: JSON.stringify(t.effect), applicability: JSON.stringify(t.applicability), isDemo: true })
+      .run();
+  }
+}
+
 /** Seeds the demo agencies, accounts and networks into an empty database. */
 export async function seedDemo(db: Db) {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -60,8 +74,8 @@ export async function seedDemo(db: Db) {
     const t = tx as unknown as Db;
     t.insert(agencies)
       .values([
-        { id: brannock, name: 'Brannock County', kind: 'county', state: 'demo', baseYear: 2027, discountRate: 0.02, discountRateSource: 'Demo value — cite your own (e.g. OMB Circular A-94 Appendix C real rate)', analysisPeriodYears: 40 },
-        { id: marlow, name: 'City of Marlow', kind: 'city', state: 'demo', baseYear: 2027, discountRate: 0.02, discountRateSource: 'Demo value — cite your own (e.g. OMB Circular A-94 Appendix C real rate)', analysisPeriodYears: 35 },
+        { id: brannock, name: 'Brannock County', kind: 'county', state: 'demo', baseYear: 2027, discountRate: 0.02, discountRateSource: 'Demo value — cite your own (e.g. OMB Circular A-94 Appendix C real rate)', analysisPeriodYears: 40, ...DEMO_ECONOMICS },
+        { id: marlow, name: 'City of Marlow', kind: 'city', state: 'demo', baseYear: 2027, discountRate: 0.02, discountRateSource: 'Demo value — cite your own (e.g. OMB Circular A-94 Appendix C real rate)', analysisPeriodYears: 35, ...DEMO_ECONOMICS },
       ])
       .run();
     t.insert(users)
@@ -80,6 +94,8 @@ export async function seedDemo(db: Db) {
       .run();
     insertNetwork(t, brannock, brannockCounty());
     insertNetwork(t, marlow, cityOfMarlow());
+    insertCatalog(t, brannock);
+    insertCatalog(t, marlow);
   });
   return { brannock, marlow };
 }

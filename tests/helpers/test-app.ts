@@ -12,6 +12,7 @@ import { openDb } from '../../server/db/client';
 import { agencies, caughtMail } from '../../server/db/schema';
 import type { Deps } from '../../server/deps';
 import { startMailCatcher } from '../../server/mail/catcher';
+import { JobRunner } from '../../server/jobs/job-runner';
 import { createMailer } from '../../server/mail/mailer';
 import { seedDemo } from '../../server/seed/seed';
 
@@ -29,7 +30,7 @@ export async function createTestApp(overrides: Partial<AppConfig> = {}, opts: { 
   const ids = opts.seed === false ? { brannock: '', marlow: '' } : await seedDemo(db);
   const catcher = await startMailCatcher(db, 0, false);
   const mailer = createMailer({ catcherPort: catcher.port, from: config.mailFrom });
-  const deps: Deps = { db, sqlite, config, mailer };
+  const deps: Deps = { db, sqlite, config, mailer, jobs: new JobRunner() };
   const { app, routes } = createApp(deps);
 
   /** A signed-in client that sends the Origin header like a browser would. */
@@ -62,6 +63,7 @@ export async function createTestApp(overrides: Partial<AppConfig> = {}, opts: { 
   }
 
   async function close() {
+    await deps.jobs.close();
     await catcher.close();
     mailer.close();
     sqlite.close();
