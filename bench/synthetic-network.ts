@@ -2,7 +2,7 @@
 // numbers are invented, like the demo scenario).
 export function syntheticCsv(n: number, withGeometry = true) {
   const cols = Math.ceil(Math.sqrt(n));
-  const lines = ['segment_id,road_name,from_desc,to_desc,length_mi,width_ft,lanes,functional_class,surface,adt,truck_pct,pci,pci_date,last_treatment,last_treatment_year,district' + (withGeometry ? ',geometry' : '')];
+  const lines = [`segment_id,road_name,from_desc,to_desc,length_mi,width_ft,lanes,functional_class,surface,adt,truck_pct,pci,pci_date,last_treatment,last_treatment_year,district${withGeometry ? ',geometry' : ''}`];
   for (let i = 0; i < n; i++) {
     const x = i % cols;
     const y = Math.floor(i / cols);

@@ -31,7 +31,7 @@ export async function studyXlsx(name: string, result: StudyResult) {
   const summary = wb.addWorksheet('Results');
   const rows = resultRows(result);
   summary.columns = Object.keys(rows[0]).map((k) => ({ header: k, key: k, width: Math.max(12, k.length + 2) }));
-  rows.forEach((r) => summary.addRow(r));
+  for (const r of rows) summary.addRow(r);
   summary.getRow(1).font = { bold: true };
   const flows = wb.addWorksheet('Cash flows');
   flows.columns = [{ header: 'alternative', key: 'a', width: 30 }, { header: 'year', key: 'y' }, { header: 'activity', key: 'l', width: 50 }, { header: 'cost', key: 'c', width: 14 }, { header: 'present_value', key: 'p', width: 14 }];

@@ -46,12 +46,12 @@ export const EvaluateBodySchema = z
     quantities: z.object({ areaSy: z.number().min(0).max(1e9), laneMiles: z.number().min(0).max(1e6) }).optional(),
   })
   .superRefine((b, ctx) => {
-    b.alternatives.forEach((a, i) =>
-      a.activities?.forEach((act, j) => {
+    for (const [i, a] of b.alternatives.entries()) {
+      for (const [j, act] of (a.activities ?? []).entries()) {
         if (act.year > b.analysisPeriodYears)
           ctx.addIssue({ code: 'custom', path: ['alternatives', i, 'activities', j, 'year'], message: `falls outside the ${b.analysisPeriodYears}-year analysis period` });
-      }),
-    );
+      }
+    }
     if (b.alternatives.some((a) => a.plan) && !b.quantities) ctx.addIssue({ code: 'custom', path: ['quantities'], message: 'is required when an alternative is given as a plan' });
   });
 export type EvaluateBody = z.infer<typeof EvaluateBodySchema>;
