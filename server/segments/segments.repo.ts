@@ -42,6 +42,7 @@ function filters(agencyId: string, q: SegmentFilter): SQL {
   if (q.class?.length) parts.push(inArray(segments.functionalClass, q.class));
   if (q.surface?.length) parts.push(inArray(segments.surface, q.surface));
   if (q.district) parts.push(eq(segments.district, q.district));
+  if (q.ids?.length) parts.push(inArray(segments.id, q.ids));
   if (q.band?.length) {
     const bandParts: SQL[] = [];
     for (const id of q.band) {

@@ -56,6 +56,7 @@ export const SegmentListQuerySchema = z.object({
   surface: csvList(SurfaceSchema).optional(),
   band: csvList(z.enum([...CONDITION_BAND_IDS, 'none'])).optional(),
   district: z.string().trim().max(100).optional(),
+  ids: z.preprocess((v) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v), z.array(z.coerce.number().int().positive()).max(5000)).optional(),
   sort: z.enum(['segmentId', 'roadName', 'lengthMi', 'pci', 'functionalClass', 'district']).default('segmentId'),
   dir: z.enum(['asc', 'desc']).default('asc'),
 });

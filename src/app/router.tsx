@@ -1,5 +1,7 @@
 import { createBrowserRouter, Navigate } from 'react-router-dom';
 import { AppShell } from './routes/app-shell';
+import { CatalogPage } from './routes/catalog';
+import { ComparePage } from './routes/compare';
 import { ErrorPage } from './routes/error-page';
 import { ForgotPasswordPage } from './routes/forgot-password';
 import { HomeRedirect } from './routes/home-redirect';
@@ -32,8 +34,8 @@ export const router = createBrowserRouter([
       { path: 'roads', element: <RoadsPage /> },
       { path: 'roads/:segmentRef', element: <SegmentPage /> },
       { path: 'imports', element: <ImportsPage /> },
-      { path: 'catalog', element: <PlaceholderPage area="catalog" /> },
-      { path: 'compare', element: <PlaceholderPage area="compare" /> },
+      { path: 'catalog', element: <CatalogPage /> },
+      { path: 'compare', element: <ComparePage /> },
       { path: 'forecast', element: <PlaceholderPage area="forecast" /> },
       { path: 'plans', element: <PlaceholderPage area="plans" /> },
       { path: 'members', element: <MembersPage /> },

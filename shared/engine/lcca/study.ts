@@ -167,7 +167,7 @@ export function runStudy(input: StudyInput, opts: { onProgress?: (fraction: numb
       : monteCarlo(inputs, model, { iterations: input.risk.iterations, seed: input.risk.seed, onProgress: (d) => opts.onProgress?.(d / input.risk.iterations) });
 
   // Cautions: thin lifts on weak, busy roads; cold-weather notes of the mixes used.
-  const cautions: { kind: 'structural' | 'cold-weather' | 'life-assumption'; alternative: string; message: string }[] = [];
+  const cautions: { kind: 'structural' | 'cold-weather' | 'life-assumption' | 'applicability'; alternative: string; message: string }[] = [];
   input.alternatives.forEach((a, i) => {
     const alt = alternatives[i];
     const t = look.treatment(a.initial.treatmentId)!;
@@ -181,6 +181,14 @@ export function runStudy(input: StudyInput, opts: { onProgress?: (fraction: numb
           message: `${flagged.length} of ${input.group.segments.length} segment(s) may be structurally short for a ${alt.initial.thicknessIn}-in lift (worst ${worst.s.segmentId}: estimated SN ${worst.c.snWithOverlay.toFixed(2)} against ${worst.c.requiredSn.toFixed(2)} asked by the AASHTO 1993 equation for ${Math.round(worst.c.designEsals).toLocaleString('en-US')} ESALs). A planning flag from assumed layer values, not a design: confirm with cores, deflection testing and a pavement design.`,
         });
       }
+    }
+    const outside = input.group.segments.filter((s) => !t.applicability.classes.includes(s.functionalClass as never) || (s.pci !== null && (s.pci < t.applicability.pciMin || s.pci > t.applicability.pciMax)));
+    if (outside.length) {
+      cautions.push({
+        kind: 'applicability',
+        alternative: a.name,
+        message: `${t.name} is outside the catalog's rules (PCI ${t.applicability.pciMin}–${t.applicability.pciMax}; ${t.applicability.classes.length} functional classes) for ${outside.length} of ${input.group.segments.length} segment(s), e.g. ${outside[0].segmentId}.`,
+      });
     }
     const mixes = [alt.initial, ...alt.rehabilitation].map((_, j) => (j === 0 ? a.initial : a.rehabilitation[j - 1])).map((s) => look.mix(s.mixId ?? look.treatment(s.treatmentId)?.mixId ?? ''));
     for (const m of new Set(mixes.filter((x): x is Mix => !!x))) {

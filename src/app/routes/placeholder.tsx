@@ -1,8 +1,6 @@
 import { NotBuiltYet } from '@/components/not-built-yet';
 
 const AREAS: Record<string, { title: string; what: string }> = {
-  catalog: { title: 'Catalog', what: "The agency's mixes, treatments, unit prices and economics (discount rate, analysis period) come with the life-cycle cost work." },
-  compare: { title: 'Compare', what: 'Life-cycle cost comparison of 2–6 alternatives (present value, EUAC, sensitivity, Monte Carlo) comes with the life-cycle cost work.' },
   forecast: { title: 'Forecast', what: "Deterioration curves fitted to the agency's own surveys come with the budget-plan work." },
   plans: { title: 'Plans', what: 'Multi-year budget scenarios, their results and the council brief come with the budget-plan work.' },
   activity: { title: 'Activity', what: 'Changes are already recorded in the audit trail; the screen to read and export it comes with the audit work.' },

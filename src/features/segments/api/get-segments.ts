@@ -8,6 +8,7 @@ export type SegmentFilters = {
   surface?: string;
   band?: string;
   district?: string;
+  ids?: string;
   sort?: string;
   dir?: 'asc' | 'desc';
   limit?: number;
