@@ -14,6 +14,8 @@ import { originCheck, securityHeaders } from './http/security';
 import { catalogRoutes } from './catalog/catalog.routes';
 import { importRoutes } from './imports/imports.routes';
 import { lccaRoutes } from './lcca/lcca.routes';
+import { forecastRoutes } from './forecast/forecast.routes';
+import { planRoutes } from './plans/plans.routes';
 import { memberRoutes } from './members/members.routes';
 import { buildOpenApiDocument } from './openapi/openapi';
 import { segmentRoutes } from './segments/segments.routes';
@@ -59,6 +61,8 @@ export function createApp(deps: Deps) {
   importRoutes(routes, deps);
   catalogRoutes(routes, deps);
   lccaRoutes(routes, deps);
+  forecastRoutes(routes, deps);
+  planRoutes(routes, deps);
   const router = express.Router();
   mountApiRoutes(router, routes, deps);
   app.use(router);

@@ -7,6 +7,7 @@ import type { Deps } from './deps';
 import { startMailCatcher, type MailCatcher } from './mail/catcher';
 import { JobRunner } from './jobs/job-runner';
 import { createMailer } from './mail/mailer';
+import { failInterruptedRuns } from './plans/plans.service';
 import { DEMO_ACCOUNTS, hasAnyAgency, seedDemo } from './seed/seed';
 
 export type Running = { server: Server; deps: Deps; url: string; catcher: MailCatcher | null; stop: () => Promise<void> };
@@ -22,6 +23,8 @@ export async function startWearcourse(config: AppConfig, log = console.log): Pro
   const catcher = config.smtpUrl ? null : await startMailCatcher(db, config.mailCatcherPort, config.env !== 'test');
   const mailer = createMailer({ smtpUrl: config.smtpUrl, catcherPort: catcher?.port, from: config.mailFrom });
   const deps: Deps = { db, sqlite, config, mailer, jobs: new JobRunner() };
+  const interrupted = failInterruptedRuns(deps);
+  if (interrupted) log(`${interrupted} plan run(s) left running by an earlier stop are marked failed.`);
   const { app } = createApp(deps);
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));

@@ -294,3 +294,56 @@ export const analyses = sqliteTable(
   },
   (t) => [index('analyses_agency').on(t.agencyId)],
 );
+
+export const curveOverrides = sqliteTable(
+  'curve_overrides',
+  {
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    familyKey: text().notNull(),
+    p0: real().notNull(),
+    a: real().notNull(),
+    b: real().notNull(),
+    updatedAt: createdAt(),
+  },
+  (t) => [uniqueIndex('curve_overrides_key').on(t.agencyId, t.familyKey)],
+);
+
+export const plans = sqliteTable(
+  'plans',
+  {
+    id: text().primaryKey(),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    name: text().notNull(),
+    status: text({ enum: ['draft', 'published'] })
+      .notNull()
+      .default('draft'),
+    settings: text().notNull(), // JSON PlanSettingsInput
+    createdBy: text().references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    updatedAt: createdAt(),
+    publishedAt: text(),
+  },
+  (t) => [index('plans_agency').on(t.agencyId)],
+);
+
+export const planRuns = sqliteTable(
+  'plan_runs',
+  {
+    id: text().primaryKey(),
+    planId: text()
+      .notNull()
+      .references(() => plans.id, { onDelete: 'cascade' }),
+    agencyId: text().notNull(),
+    status: text({ enum: ['running', 'done', 'failed', 'cancelled'] }).notNull(),
+    input: text().notNull(),
+    result: text(),
+    error: text(),
+    startedAt: createdAt(),
+    endedAt: text(),
+  },
+  (t) => [index('plan_runs_plan').on(t.planId, t.startedAt)],
+);

@@ -237,7 +237,8 @@ export function solveBruteForce(inst: Instance): Solution {
 
 // ---- Exact: mixed-integer programme solved by HiGHS -------------------------
 
-type Highs = { solve: (lp: string, options?: Record<string, unknown>) => { Status: string; ObjectiveValue: number; Columns: Record<string, { Primal: number }> } };
+/** The part of the `highs` package this module uses (passed in, so the engine does no loading itself). */
+export type Highs = { solve: (lp: string, options?: never) => { Status: string; ObjectiveValue: number; Columns: Record<string, object> } };
 
 /** Writes the model in CPLEX LP format, one binary per (segment, option). */
 export function toLp(inst: Instance) {
@@ -281,10 +282,10 @@ export function toLp(inst: Instance) {
 export function solveExact(inst: Instance, highs: Highs, opts: { timeLimitSeconds?: number; gap?: number } = {}): Solution {
   const { lp, list } = toLp(inst);
   if (list.every((l) => l.length === 0)) return solution(inst, 'exact', inst.segments.map(() => -1), 0, 'optimal (nothing affordable)');
-  const res = highs.solve(lp, { output_flag: false, time_limit: opts.timeLimitSeconds ?? 60, mip_rel_gap: opts.gap ?? 1e-6, presolve: 'on' });
+  const res = highs.solve(lp, { output_flag: false, time_limit: opts.timeLimitSeconds ?? 60, mip_rel_gap: opts.gap ?? 1e-6, presolve: 'on' } as never);
   if (res.Status !== 'Optimal' && res.Status !== 'Time limit reached') throw new Error(`HiGHS ended with status: ${res.Status}`);
   const pick: (number | -1)[] = list.map((l, i) => {
-    for (const { j } of l) if ((res.Columns[`x${i}_${j}`]?.Primal ?? 0) > 0.5) return j;
+    for (const { j } of l) if (((res.Columns[`x${i}_${j}`] as { Primal?: number } | undefined)?.Primal ?? 0) > 0.5) return j;
     return -1;
   });
   const optimal = res.Status === 'Optimal';

@@ -1,0 +1,86 @@
+import { and, eq } from 'drizzle-orm';
+import { type Curve, type FitPoint, fitCurve } from '../../shared/engine/forecast/curve';
+import { DEFAULT_CURVES, familyKey, MIN_POINTS_TO_FIT } from '../../shared/engine/forecast/families';
+import { recordAudit } from '../audit';
+import type { Deps } from '../deps';
+import { curveOverrides, segments, surveys } from '../db/schema';
+
+export type Family = {
+  key: string;
+  surface: string;
+  classGroup: string;
+  treatmentGroup: string;
+  segments: number;
+  n: number;
+  curve: Curve;
+  source: 'fitted' | 'default' | 'edited';
+  rmse: number | null;
+  fitted: { curve: Curve; rmse: number } | null;
+  points: FitPoint[];
+};
+
+/** Every family's curve: fitted where it has enough surveys, else the default or the agency's own edit. */
+export function families(deps: Deps, agencyId: string, withPoints = true): Family[] {
+  const rows = deps.db
+    .select({ ref: segments.id, surface: segments.surface, cls: segments.functionalClass, lastTreatment: segments.lastTreatment, lastYear: segments.lastTreatmentYear, date: surveys.surveyDate, pci: surveys.pci })
+    .from(segments)
+    .leftJoin(surveys, eq(surveys.segmentRef, segments.id))
+    .where(eq(segments.agencyId, agencyId))
+    .all();
+  const overrides = new Map(deps.db.select().from(curveOverrides).where(eq(curveOverrides.agencyId, agencyId)).all().map((o) => [o.familyKey, { p0: o.p0, a: o.a, b: o.b }]));
+  const fams = new Map<string, { segs: Set<number>; pts: FitPoint[]; surface: string }>();
+  for (const r of rows) {
+    if (r.surface === 'gravel') continue;
+    const key = familyKey(r.surface, r.cls, r.lastTreatment);
+    let f = fams.get(key);
+    if (!f) {
+      f = { segs: new Set(), pts: [], surface: r.surface };
+      fams.set(key, f);
+    }
+    f.segs.add(r.ref);
+    if (r.date && r.pci !== null && r.lastYear !== null) {
+      const year = Number(r.date.slice(0, 4)) + (Number(r.date.slice(5, 7)) - 1) / 12;
+      const age = year - (r.lastYear + 0.5);
+      // Only surveys since the last treatment describe this family's curve.
+      if (age >= 0) f.pts.push({ age: Math.round(age * 100) / 100, pci: r.pci });
+    }
+  }
+  return [...fams.entries()]
+    .map(([key, f]) => {
+      const [surface, classGroup, treatmentGroup] = key.split('|');
+      const fit = f.pts.length >= 3 ? fitCurve(f.pts) : null;
+      const override = overrides.get(key);
+      const fallback = DEFAULT_CURVES[surface] ?? DEFAULT_CURVES.other;
+      const useFit = !override && fit && f.pts.length >= MIN_POINTS_TO_FIT;
+      const curve = override ?? (useFit ? fit!.curve : fallback);
+      const source: Family['source'] = override ? 'edited' : useFit ? 'fitted' : 'default';
+      return {
+        key,
+        surface,
+        classGroup,
+        treatmentGroup,
+        segments: f.segs.size,
+        n: f.pts.length,
+        curve,
+        source,
+        rmse: useFit ? fit!.rmse : null,
+        fitted: fit ? { curve: fit.curve, rmse: fit.rmse } : null,
+        points: withPoints ? f.pts : [],
+      };
+    })
+    .sort((a, b) => b.segments - a.segments);
+}
+
+export function setOverride(deps: Deps, agencyId: string, userId: string, key: string, curve: Curve | null) {
+  deps.db.transaction((tx) => {
+    tx.delete(curveOverrides).where(and(eq(curveOverrides.agencyId, agencyId), eq(curveOverrides.familyKey, key))).run();
+    if (curve) tx.insert(curveOverrides).values({ agencyId, familyKey: key, ...curve }).run();
+    recordAudit(tx, { agencyId, userId, action: curve ? 'forecast.curve.edit' : 'forecast.curve.reset', entity: 'curve', entityId: key, detail: curve });
+  });
+}
+
+/** Lookup used by plans: the family's curve, or the surface default for a family not seen yet. */
+export function curveLookup(fams: Family[]) {
+  const m = new Map(fams.map((f) => [f.key, f.curve]));
+  return (key: string) => m.get(key) ?? DEFAULT_CURVES[key.split('|')[0]] ?? DEFAULT_CURVES.other;
+}
