@@ -19,7 +19,7 @@ const int = (v: number) => Math.round(v).toLocaleString('en-US');
 
 type Geometry = { type: string; coordinates: number[][] | number[][][] };
 
-export function briefSummary(plan: { name: string }, r: PlanResult, agencyName: string) {
+export function briefSummary(r: PlanResult, agencyName: string) {
   const first = r.years[0];
   const last = r.years[r.years.length - 1];
   const avg = r.summary.totalBudget / r.years.length;
@@ -54,7 +54,7 @@ export async function briefPdf(args: { plan: { name: string; status: string; set
   doc.font('body').fontSize(11).fillColor(MUTED).text(`Paving plan ${first.calendarYear}–${last.calendarYear} · ${plan.status === 'published' ? 'published' : 'draft'} · prepared ${new Date().toISOString().slice(0, 10)} by ${author} with Wearcourse`);
 
   heading('Summary');
-  doc.fontSize(11).text(briefSummary(plan, r, agencyName), { width: W, lineGap: 2 });
+  doc.fontSize(11).text(briefSummary(r, agencyName), { width: W, lineGap: 2 });
 
   // Network PCI by year: the plan, no work, and the worst-first baseline.
   heading('Network condition');

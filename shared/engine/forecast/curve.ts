@@ -10,7 +10,7 @@ export const B_MAX = 3;
 
 export function pciAt(c: Curve, age: number): number {
   const v = c.p0 - c.a * Math.max(0, age) ** c.b;
-  return v < 0 ? 0 : v > 100 ? 100 : v;
+  return Math.min(100, Math.max(0, v));
 }
 
 /** The age at which the curve reaches a PCI (its inverse); ages run on past 0 PCI to the curve's end. */
