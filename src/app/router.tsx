@@ -3,6 +3,9 @@ import { AppShell } from './routes/app-shell';
 import { CatalogPage } from './routes/catalog';
 import { ComparePage } from './routes/compare';
 import { ErrorPage } from './routes/error-page';
+import { ForecastPage } from './routes/forecast';
+import { PlanPage } from './routes/plan';
+import { PlansPage } from './routes/plans';
 import { ForgotPasswordPage } from './routes/forgot-password';
 import { HomeRedirect } from './routes/home-redirect';
 import { ImportsPage } from './routes/imports';
@@ -36,8 +39,9 @@ export const router = createBrowserRouter([
       { path: 'imports', element: <ImportsPage /> },
       { path: 'catalog', element: <CatalogPage /> },
       { path: 'compare', element: <ComparePage /> },
-      { path: 'forecast', element: <PlaceholderPage area="forecast" /> },
-      { path: 'plans', element: <PlaceholderPage area="plans" /> },
+      { path: 'forecast', element: <ForecastPage /> },
+      { path: 'plans', element: <PlansPage /> },
+      { path: 'plans/:planId', element: <PlanPage /> },
       { path: 'members', element: <MembersPage /> },
       { path: 'settings', element: <SettingsPage /> },
       { path: 'activity', element: <PlaceholderPage area="activity" /> },

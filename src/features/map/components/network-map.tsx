@@ -9,7 +9,7 @@ import { conditionBand } from '@shared/condition';
 import { CLASS_LABELS } from '@/lib/format';
 import type { SegmentFeatures } from '../api/get-segments-geojson';
 import { loadStates } from '../context-layers';
-import { EMPTY_FC, networkStyle } from '../map-style';
+import { EMPTY_FC, networkStyle, pciColor } from '../map-style';
 import { ConditionLegend } from './condition-legend';
 
 maplibregl.setWorkerUrl(workerUrl);
@@ -22,11 +22,16 @@ type Props = {
   highlight?: GeoJSON.Geometry | null;
   height?: number | string;
   compact?: boolean;
+  /** Colour segments by the plan year of their work (index 0 = first year) instead of by condition. */
+  plannedYear?: Map<number, number>;
+  yearLabels?: string[];
 };
+
+export const YEAR_COLORS = ['#0b3954', '#1d5c86', '#3f7fb0', '#6aa1cf', '#9cc3e6', '#5b4a8a', '#7d6bb0', '#a08fd0', '#c4b6ea', '#8a5a8f'];
 
 type PopupInfo = { lng: number; lat: number; id: number; s: string; r: string; p: number; c: string };
 
-export function NetworkMap({ agencyId, features, selected, onSelect, highlight, height = 520, compact = false }: Props) {
+export function NetworkMap({ agencyId, features, selected, onSelect, highlight, height = 520, compact = false, plannedYear, yearLabels }: Props) {
   const ref = useRef<MapRef>(null);
   const [loaded, setLoaded] = useState(false);
   const [popup, setPopup] = useState<PopupInfo | null>(null);
@@ -71,6 +76,21 @@ export function NetworkMap({ agencyId, features, selected, onSelect, highlight, 
     for (const id of selected ?? []) map.setFeatureState({ source: 'segments', id }, { selected: true });
     shown.current = new Set(selected ?? []);
   }, [selected, loaded, features]);
+
+  // Plan mode: planned year as feature state, and a paint that reads it.
+  useEffect(() => {
+    const map = ref.current?.getMap();
+    if (!map || !loaded || !features) return;
+    if (!plannedYear) {
+      map.setPaintProperty('segments-line', 'line-color', pciColor as never);
+      return;
+    }
+    for (const f of features.features) map.setFeatureState({ source: 'segments', id: f.properties.id }, { py: plannedYear.get(f.properties.id) ?? -1 });
+    const match: unknown[] = ['match', ['feature-state', 'py']];
+    YEAR_COLORS.forEach((c, i) => match.push(i, c));
+    match.push('#d3cdbf');
+    map.setPaintProperty('segments-line', 'line-color', match as never);
+  }, [plannedYear, loaded, features]);
 
   useEffect(() => {
     const map = ref.current?.getMap();
@@ -194,7 +214,19 @@ export function NetworkMap({ agencyId, features, selected, onSelect, highlight, 
           )}
         </div>
       )}
-      {!compact && <ConditionLegend />}
+      {!compact && !plannedYear && <ConditionLegend />}
+      {plannedYear && (
+        <div className="absolute bottom-2 left-2 rounded border border-asphalt-line bg-white/95 px-2 py-1.5 text-[11px] shadow-sm" data-testid="year-legend">
+          <div className="mb-0.5 font-bold">Planned work</div>
+          {(yearLabels ?? []).map((label, i) => (
+            <div key={label} className="flex items-center gap-1.5">
+              <span className="inline-block h-1.5 w-4 rounded" style={{ background: YEAR_COLORS[i % YEAR_COLORS.length] }} />
+              <span className="num">{label}</span>
+            </div>
+          ))}
+          <div className="flex items-center gap-1.5"><span className="inline-block h-1.5 w-4 rounded" style={{ background: '#d3cdbf' }} />no work planned</div>
+        </div>
+      )}
     </div>
   );
 }
