@@ -153,7 +153,8 @@ export function solveFast(inst: Instance, opts: { iterations?: number; onProgres
   for (let it = 0; it < iterations; it++) {
     const { value, pick } = lagrangian(inst, list, lambda);
     if (value < bestBound) bestBound = value;
-    if (it % 5 === 0 || it === iterations - 1) {
+    // The repair is the costly part: run it now and then, and stop once the gap is negligible.
+    if (it % 15 === 4 || it === iterations - 1) {
       const cand = repairAndFill(inst, list, pick, lambda);
       const v = spending(inst, cand).benefit;
       if (v > bestValue && feasible(inst, cand)) {
@@ -161,6 +162,7 @@ export function solveFast(inst: Instance, opts: { iterations?: number; onProgres
         bestPick = cand;
       }
     }
+    if (bestValue > 0 && (bestBound - bestValue) / bestBound < 1e-5) break;
     const { spent } = spending(inst, pick);
     const g = spent.map((s, y) => inst.budgets[y] - s);
     const norm = g.reduce((s, v) => s + v * v, 0);

@@ -16,7 +16,8 @@ export type PlanInput = {
   timeLimitSeconds?: number;
 };
 
-export const MAX_EXACT_OPTIONS = 60_000;
+// Measured here: HiGHS in WebAssembly aborted on a 59k-binary plan model (bench/plan.bench.ts); 20k solves.
+export const MAX_EXACT_OPTIONS = 20_000;
 
 function chosenMap(inst: Instance, meta: ReturnType<typeof buildCandidates>['meta'], s: Solution) {
   const byOption = new Map<string, { treatmentId: string; year: number }>();
