@@ -16,6 +16,8 @@ import { importRoutes } from './imports/imports.routes';
 import { lccaRoutes } from './lcca/lcca.routes';
 import { forecastRoutes } from './forecast/forecast.routes';
 import { planRoutes } from './plans/plans.routes';
+import { auditRoutes } from './audit-log/audit.routes';
+import { agencyRoutes } from './agencies/agencies.routes';
 import { memberRoutes } from './members/members.routes';
 import { buildOpenApiDocument } from './openapi/openapi';
 import { segmentRoutes } from './segments/segments.routes';
@@ -63,6 +65,8 @@ export function createApp(deps: Deps) {
   lccaRoutes(routes, deps);
   forecastRoutes(routes, deps);
   planRoutes(routes, deps);
+  auditRoutes(routes, deps);
+  agencyRoutes(routes, deps);
   const router = express.Router();
   mountApiRoutes(router, routes, deps);
   app.use(router);

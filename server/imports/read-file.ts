@@ -2,6 +2,7 @@
 // plain table: column names, and rows numbered the way the user sees them in
 // their own program (spreadsheet row, or feature number in GeoJSON).
 import ExcelJS from 'exceljs';
+import JSZip from 'jszip';
 import Papa from 'papaparse';
 import { HttpError } from '../http/errors';
 
@@ -19,6 +20,8 @@ export type RawTable = {
 };
 
 export const MAX_ROWS = 100_000;
+/** A workbook may expand to at most this much when unzipped (a zip bomb is refused before it is inflated). */
+export const MAX_WORKBOOK_EXPANDED_BYTES = 200 * 1024 * 1024;
 
 const fileError = (message: string) => new HttpError(400, 'bad_file', message);
 
@@ -96,6 +99,19 @@ function cellValue(v: ExcelJS.CellValue): Cell {
 
 export async function readXlsx(buf: Buffer): Promise<RawTable> {
   if (buf.subarray(0, 2).toString('latin1') !== 'PK') throw fileError('This file is not an Excel workbook (.xlsx).');
+  let zip: JSZip;
+  try {
+    zip = await JSZip.loadAsync(buf);
+  } catch {
+    throw fileError('This file is not a readable Excel workbook (.xlsx).');
+  }
+  // The sizes the zip declares for its parts, read from its directory without inflating anything.
+  let expanded = 0;
+  for (const f of Object.values(zip.files)) expanded += (f as unknown as { _data?: { uncompressedSize?: number } })._data?.uncompressedSize ?? 0;
+  if (expanded > MAX_WORKBOOK_EXPANDED_BYTES) {
+    throw fileError(`This workbook expands to ${Math.round(expanded / 1024 / 1024)} MB when unzipped, more than the ${MAX_WORKBOOK_EXPANDED_BYTES / 1024 / 1024} MB limit; save it as CSV or split it.`);
+  }
+  if (!zip.file('[Content_Types].xml')) throw fileError('This zip is not an Excel workbook (.xlsx).');
   const wb = new ExcelJS.Workbook();
   try {
     await wb.xlsx.load(buf as unknown as ArrayBuffer);

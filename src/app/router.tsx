@@ -1,4 +1,5 @@
 import { createBrowserRouter, Navigate } from 'react-router-dom';
+import { ActivityPage } from './routes/activity';
 import { AppShell } from './routes/app-shell';
 import { CatalogPage } from './routes/catalog';
 import { ComparePage } from './routes/compare';
@@ -13,7 +14,6 @@ import { InvitePage } from './routes/invite';
 import { MembersPage } from './routes/members';
 import { NetworkPage } from './routes/network';
 import { NotFoundPage } from './routes/not-found';
-import { PlaceholderPage } from './routes/placeholder';
 import { ResetPasswordPage } from './routes/reset-password';
 import { RoadsPage } from './routes/roads';
 import { SegmentPage } from './routes/segment';
@@ -44,7 +44,7 @@ export const router = createBrowserRouter([
       { path: 'plans/:planId', element: <PlanPage /> },
       { path: 'members', element: <MembersPage /> },
       { path: 'settings', element: <SettingsPage /> },
-      { path: 'activity', element: <PlaceholderPage area="activity" /> },
+      { path: 'activity', element: <ActivityPage /> },
       { path: 'sent-mail', element: <SentMailPage /> },
       { path: '*', element: <NotFoundPage /> },
     ],
