@@ -1,3 +1,4 @@
+import './lib/zod-config';
 import '@fontsource/lato/400.css';
 import '@fontsource/lato/700.css';
 import '@fontsource/lato/900.css';

@@ -48,8 +48,8 @@ describe('each demo role signs in and sees its navigation', () => {
       await switcher.selectOption({ label: 'City of Marlow' });
       await page.getByRole('heading', { name: 'City of Marlow network' }).waitFor();
       await page.getByRole('link', { name: 'Roads' }).click();
-      await page.getByTestId('segment-table').locator('tbody tr').first().waitFor();
-      const ids = await page.getByTestId('segment-table').locator('tbody tr td:first-child').allTextContents();
+      await page.locator('[data-testid=segment-table] [role=row][data-segment]').first().waitFor();
+      const ids = await page.locator('[data-testid=segment-table] [role=row][data-segment]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-segment') ?? ''));
       expect(ids.length).toBeGreaterThan(0);
       expect(ids.every((id) => id.startsWith('MW-'))).toBe(true);
     } finally {
