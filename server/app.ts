@@ -47,7 +47,7 @@ export function createApp(deps: Deps) {
       store: new SqliteStore({ client: deps.sqlite, expired: { clear: true, intervalMs: 15 * 60 * 1000 } }),
       resave: false,
       saveUninitialized: false,
-      rolling: true,
+      rolling: false,
       cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: 12 * 60 * 60 * 1000 },
     }),
     pp.initialize(),

@@ -1,0 +1,105 @@
+// Crash safety: the real server as a child process, killed with SIGKILL in the
+// middle of a large import and of a plan run, then started again on the same file.
+import { type ChildProcess, spawn } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import Database from 'better-sqlite3';
+import { afterAll, describe, expect, it } from 'vitest';
+import { syntheticCsv } from '../../bench/synthetic-network';
+
+const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wearcourse-crash-'));
+const dbPath = path.join(dir, 'crash.db');
+let child: ChildProcess | null = null;
+
+async function start(): Promise<string> {
+  child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    env: { ...process.env, NODE_ENV: 'development', PORT: '0', DATABASE_PATH: dbPath, MAIL_CATCHER_PORT: '0' },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  let out = '';
+  return new Promise((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error(`no start:\n${out}`)), 60_000);
+    const on = (b: Buffer) => {
+      out += b.toString();
+      const m = out.match(/running at (http:\/\/localhost:\d+)/);
+      if (m) {
+        clearTimeout(timer);
+        resolve(m[1]);
+      }
+    };
+    child!.stdout!.on('data', on);
+    child!.stderr!.on('data', on);
+  });
+}
+
+function kill9() {
+  return new Promise<void>((resolve) => {
+    child!.once('exit', () => resolve());
+    child!.kill('SIGKILL');
+  });
+}
+
+async function signIn(url: string) {
+  const res = await fetch(`${url}/api/auth/sign-in/email`, { method: 'POST', headers: { 'Content-Type': 'application/json', Origin: url }, body: JSON.stringify({ email: 'engineer@brannock.example', password: 'wearcourse-demo' }) });
+  const cookie = res.headers.get('set-cookie')!.split(';')[0];
+  const me = (await res.json()) as { memberships: { agencyId: string; agencyName: string }[] };
+  return { cookie, agencyId: me.memberships.find((m) => m.agencyName === 'Brannock County')!.agencyId };
+}
+
+const inspect = () => {
+  const db = new Database(dbPath, { readonly: true });
+  const r = {
+    integrity: db.pragma('integrity_check', { simple: true }),
+    synthetic: (db.prepare("SELECT count(*) AS n FROM segments WHERE segment_id LIKE 'SYN-%'").get() as { n: number }).n,
+    imports: (db.prepare('SELECT count(*) AS n FROM imports').get() as { n: number }).n,
+    runs: db.prepare('SELECT status, error FROM plan_runs').all() as { status: string; error: string | null }[],
+  };
+  db.close();
+  return r;
+};
+
+afterAll(async () => {
+  if (child && child.exitCode === null && child.signalCode === null) await kill9();
+  fs.rmSync(dir, { recursive: true, force: true });
+});
+
+describe('crash safety (SIGKILL)', () => {
+  it('an import killed half-way leaves no rows and a sound file', { timeout: 180_000 }, async () => {
+    const url = await start();
+    const { cookie, agencyId } = await signIn(url);
+    const form = new FormData();
+    form.set('file', new Blob([syntheticCsv(50_000)]), 'big.csv');
+    const pending = fetch(`${url}/api/agencies/${agencyId}/imports`, { method: 'POST', headers: { Cookie: cookie, Origin: url }, body: form }).catch(() => 'killed');
+    await new Promise((r) => setTimeout(r, 700));
+    await kill9();
+    expect(await pending).toBe('killed');
+    const after = inspect();
+    expect(after.integrity).toBe('ok');
+    expect(after.synthetic).toBe(0);
+    expect(after.imports).toBe(0);
+  });
+
+  it('a plan run killed half-way is marked failed at the next start, and the app serves again', { timeout: 180_000 }, async () => {
+    let url = await start();
+    const { cookie, agencyId } = await signIn(url);
+    const headers = { Cookie: cookie, Origin: url, 'Content-Type': 'application/json' };
+    const plan = (await (await fetch(`${url}/api/agencies/${agencyId}/plans`, { method: 'POST', headers, body: JSON.stringify({ name: 'crash', settings: { startYear: 2027, horizonYears: 20, budgetMode: 'flat', annualBudget: 3_000_000, method: 'fast' } }) })).json()) as { id: string };
+    const run = await fetch(`${url}/api/agencies/${agencyId}/plans/${plan.id}/run`, { method: 'POST', headers });
+    expect(run.status).toBe(202);
+    await new Promise((r) => setTimeout(r, 150));
+    expect(inspect().runs).toEqual([{ status: 'running', error: null }]);
+    await kill9();
+    url = await start();
+    const after = inspect();
+    expect(after.integrity).toBe('ok');
+    expect(after.runs).toEqual([{ status: 'failed', error: 'interrupted by a server restart' }]);
+    expect((await (await fetch(`${url}/api/health`)).json())).toEqual({ ok: true });
+    // And the plan can run again to the end.
+    const again = await signIn(url);
+    const r2 = await fetch(`${url}/api/agencies/${agencyId}/plans/${plan.id}/run`, { method: 'POST', headers: { ...headers, Cookie: again.cookie, Origin: url } });
+    expect(r2.status).toBe(202);
+    await kill9();
+  });
+});
+
