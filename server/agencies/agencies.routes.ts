@@ -5,7 +5,12 @@ import { recordAudit } from '../audit';
 import type { Deps } from '../deps';
 import { agencies } from '../db/schema';
 import type { ApiRoutes } from '../http/api';
+import multer from 'multer';
+import { HttpError } from '../http/errors';
 import { agencyById } from './agencies.repo';
+import { exportAgency, restoreAgency } from './agency-archive';
+
+const archiveUpload = multer({ storage: multer.memoryStorage(), limits: { fileSize: 200 * 1024 * 1024, files: 1 } }).single('file');
 
 const AgencySettingsSchema = z.object({ name: z.string().trim().min(2).max(120), units: z.enum(['us', 'metric']) });
 
@@ -30,6 +35,41 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
         recordAudit(tx, { agencyId: agency!.id, userId: user!.id, action: 'agency.settings', entity: 'agency', entityId: agency!.id, detail: { before, after: body } });
       });
       return view(agency!.id);
+    },
+  });
+  api.add({
+    method: 'get',
+    path: '/api/agencies/:agencyId/export',
+    tag: 'Agency',
+    summary: "The agency's whole data as one zip: segments (GeoJSON and CSV), surveys, catalog, plans, comparisons, curves, with a manifest of SHA-256 hashes",
+    access: { kind: 'agency', role: 'admin' },
+    params: AgencyParamsSchema,
+    responseDescription: 'application/zip',
+    handler: async ({ agency, user, res }) => {
+      const out = await exportAgency(deps, agency!.id);
+      deps.db.transaction((tx) => recordAudit(tx, { agencyId: agency!.id, userId: user!.id, action: 'agency.export', entity: 'agency', entityId: agency!.id, detail: out.manifest.counts }));
+      res.setHeader('Content-Type', 'application/zip');
+      res.setHeader('Content-Disposition', `attachment; filename="${out.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-export-${out.manifest.exportedAt.slice(0, 10)}.zip"`);
+      res.send(out.buffer);
+    },
+  });
+  api.add({
+    method: 'post',
+    path: '/api/agencies/restore',
+    tag: 'Agency',
+    summary: 'Restore an agency export into a new agency, with the caller as its admin (multipart: file, optional name)',
+    access: { kind: 'signed-in' },
+    body: z.object({ name: z.string().trim().min(2).max(120).optional() }),
+    status: 201,
+    before: [
+      (req, res, next) => {
+        if (!req.is('multipart/form-data')) return next(new HttpError(415, 'unsupported_media_type', 'Send the archive as multipart/form-data with the field "file"'));
+        archiveUpload(req, res, (err: unknown) => (err ? next(new HttpError(400, 'bad_upload', `Upload refused: ${(err as Error).message}`)) : next()));
+      },
+    ],
+    handler: async ({ user, body, req }) => {
+      if (!req.file) throw new HttpError(400, 'invalid_request', 'Invalid request: file — attach the archive in the field "file"', [{ path: 'file', message: 'is required' }]);
+      return restoreAgency(deps, user!.id, req.file.buffer, body.name);
     },
   });
 }

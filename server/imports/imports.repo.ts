@@ -119,6 +119,7 @@ export function segmentWriter(sqlite: Sqlite, agencyId: string) {
   );
   const liftLatest = sqlite.prepare('UPDATE segments SET pci = ?, pci_date = ? WHERE id = ? AND (pci_date IS NULL OR pci_date <= ?)');
   const setPci = sqlite.prepare('UPDATE segments SET pci = ? WHERE id = ?');
+  const audit = sqlite.prepare('INSERT INTO audit_log (agency_id, user_id, action, entity, entity_id, detail) VALUES (?, ?, ?, ?, ?, ?)');
   return {
     insert(segmentId: string, patch: Record<string, unknown>): number {
       const keys = Object.keys(patch).sort();
@@ -136,6 +137,10 @@ export function segmentWriter(sqlite: Sqlite, agencyId: string) {
     },
     latestPci(segmentRef: number, pci: number) {
       setPci.run(pci, segmentRef);
+    },
+    /** One audit row per changed segment, written in the import's own transaction. */
+    audit(userId: string, action: string, segmentId: string, detail: unknown) {
+      audit.run(agencyId, userId, action, 'segment', segmentId, JSON.stringify(detail));
     },
   };
 }

@@ -236,8 +236,15 @@ async function importSegments(deps: Deps, agencyId: string, userId: string, file
     for (const p of plans) {
       const s = p.a.seg;
       let id = p.id;
-      if (p.kind === 'add') id = write.insert(s.segmentId, { lengthMi: s.lengthMi ?? 0, ...p.patch });
-      else if (p.kind === 'update') write.update(id!, p.patch, now);
+      if (p.kind === 'add') {
+        id = write.insert(s.segmentId, { lengthMi: s.lengthMi ?? 0, ...p.patch });
+        write.audit(userId, 'segment.import.add', s.segmentId, { importId, after: { ...p.patch, geometry: p.patch.geometry ? '(geometry)' : undefined } });
+      } else if (p.kind === 'update') {
+        const old = existing.get(s.segmentId) as Record<string, unknown>;
+        const changed = Object.fromEntries(Object.entries(p.patch).filter(([k, v]) => old[k] !== v).map(([k, v]) => [k, k === 'geometry' ? { before: '(geometry)', after: '(geometry)' } : { before: old[k], after: v }]));
+        write.update(id!, p.patch, now);
+        write.audit(userId, 'segment.import.update', s.segmentId, { importId, changed, pci: s.pci !== null && s.pciDate ? { date: s.pciDate, pci: s.pci } : undefined });
+      }
       if (s.pci !== null && p.kind !== 'same') {
         if (s.pciDate) write.survey(id!, s.pciDate, s.pci, `import ${fileName}`.slice(0, 120));
         else write.latestPci(id!, s.pci);

@@ -337,3 +337,15 @@ describe('zipped shapefile', () => {
     expect(res.body.preview[0].lengthMi).toBeLessThan(0.0804);
   });
 });
+
+describe('audit of imports', () => {
+  it('records each added and changed segment with before and after, in the same transaction', async () => {
+    const text = fs.readFileSync(sample('brannock-prairie-view.csv'), 'utf8').replace('PV-S1-2,Bluestem Dr', 'PV-S1-2,Bluestem Boulevard');
+    const res = await upload({ name: 'audit.csv', content: text });
+    expect(res.status).toBe(200);
+    const row = t.sqlite.prepare("SELECT detail FROM audit_log WHERE action = 'segment.import.update' AND entity_id = 'PV-S1-2' ORDER BY id DESC LIMIT 1").get() as { detail: string };
+    expect(JSON.parse(row.detail).changed.roadName).toEqual({ before: 'Bluestem Dr', after: 'Bluestem Boulevard' });
+    const adds = (t.sqlite.prepare("SELECT count(*) AS n FROM audit_log WHERE action = 'segment.import.add'").get() as { n: number }).n;
+    expect(adds).toBeGreaterThanOrEqual(58);
+  });
+});

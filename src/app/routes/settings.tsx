@@ -45,7 +45,35 @@ export function SettingsPage() {
           </label>
           <Button onClick={() => save.mutate()} disabled={save.isPending}>Save</Button>
         </div>
-        <p className="mt-3 text-xs text-asphalt-muted">Inside Wearcourse every quantity is kept in US customary units; imports in kilometres or metres are converted as they come in. <Link to="../catalog" className="text-accent underline">Economics and prices →</Link></p>
+        <p className="mt-3 text-xs text-asphalt-muted" data-testid="units-note">Inside Wearcourse every quantity is kept in US customary units; imports in kilometres or metres are converted as they come in. <Link to="../catalog" className="text-accent underline">Economics and prices →</Link></p>
+      </Card>
+      <Card title="Backup of this agency">
+        <p className="text-sm">
+          One zip with every segment (GeoJSON and CSV), survey, catalog item, plan, saved comparison and curve, with SHA-256 hashes in its manifest.{' '}
+          <a className="font-semibold text-accent hover:underline" href={`/api/agencies/${agencyId}/export`}>Download the agency export</a>
+        </p>
+        <form
+          className="mt-3 flex flex-wrap items-end gap-2 text-sm"
+          onSubmit={async (e) => {
+            e.preventDefault();
+            const input = (e.currentTarget.elements.namedItem('archive') as HTMLInputElement).files?.[0];
+            if (!input) return;
+            const form = new FormData();
+            form.set('file', input);
+            const res = await fetch('/api/agencies/restore', { method: 'POST', body: form, credentials: 'same-origin' });
+            const body = await res.json();
+            if (res.ok) {
+              toast.success(`Restored into a new agency (${body.counts.segments} segments); find it in the agency switcher`);
+              qc.invalidateQueries({ queryKey: ['me'] });
+            } else toast.error(body.error?.message ?? 'Restore failed');
+          }}
+        >
+          <label>
+            <span className="block text-xs text-asphalt-muted">Restore an export into a new agency (you become its admin)</span>
+            <input name="archive" aria-label="Agency export" type="file" accept=".zip" />
+          </label>
+          <Button type="submit" variant="secondary">Restore</Button>
+        </form>
       </Card>
     </div>
   );
