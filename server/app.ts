@@ -8,6 +8,7 @@ import swaggerUi from 'swagger-ui-express';
 import { authRoutes } from './auth/auth.routes';
 import { createPassport } from './auth/passport';
 import type { Deps } from './deps';
+import { cachingClient } from './db/statements';
 import { createApiRoutes, mountApiRoutes } from './http/api';
 import { errorHandler } from './http/errors';
 import { originCheck, securityHeaders } from './http/security';
@@ -25,6 +26,22 @@ import { segmentRoutes } from './segments/segments.routes';
 const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
 
 export const SESSION_COOKIE = 'wearcourse.sid';
+
+// express-session touches the store on every request; once a minute per session is enough.
+function sessionStore(store: session.Store) {
+  const touched = new Map<string, number>();
+  const touch = store.touch?.bind(store);
+  if (touch) {
+    store.touch = (sid, sess, cb) => {
+      const now = Date.now();
+      if ((touched.get(sid) ?? 0) > now - 60_000) return cb?.();
+      touched.set(sid, now);
+      if (touched.size > 10_000) touched.clear();
+      touch(sid, sess, cb);
+    };
+  }
+  return store;
+}
 export const JSON_LIMIT = '1mb';
 
 export function createApp(deps: Deps) {
@@ -44,7 +61,7 @@ export function createApp(deps: Deps) {
     session({
       name: SESSION_COOKIE,
       secret: deps.config.sessionSecret,
-      store: new SqliteStore({ client: deps.sqlite, expired: { clear: true, intervalMs: 15 * 60 * 1000 } }),
+      store: sessionStore(new SqliteStore({ client: cachingClient(deps.sqlite), expired: { clear: true, intervalMs: 15 * 60 * 1000 } })),
       resave: false,
       saveUninitialized: false,
       rolling: false,

@@ -1,14 +1,12 @@
-import { and, eq } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import type { Role } from '../../shared/schemas/common';
 import type { Db } from '../db/client';
+import { statement } from '../db/statements';
 import { agencies, memberships } from '../db/schema';
 
 export function membershipFor(db: Db, userId: string, agencyId: string): Role | null {
-  const row = db
-    .select({ role: memberships.role })
-    .from(memberships)
-    .where(and(eq(memberships.userId, userId), eq(memberships.agencyId, agencyId)))
-    .get();
+  // Asked on every agency request: a cached prepared statement rather than the query builder.
+  const row = statement(db.$client, 'SELECT role FROM memberships WHERE user_id = ? AND agency_id = ?').get(userId, agencyId) as { role: Role } | undefined;
   return row?.role ?? null;
 }
 

@@ -4,6 +4,7 @@ import passport, { type PassportStatic } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { Deps } from '../deps';
 import { users } from '../db/schema';
+import { statement } from '../db/statements';
 import type { SessionUser } from '../http/api';
 import { HttpError } from '../http/errors';
 import { hashPassword, verifyPassword } from './passwords';
@@ -40,9 +41,9 @@ export function createPassport(deps: Deps): PassportStatic {
     done(null, { id: u.id, v: row?.v ?? 1 } satisfies SessionRecord);
   });
   pp.deserializeUser((record: SessionRecord, done) => {
-    const row = deps.db.select().from(users).where(eq(users.id, record.id)).get();
+    const row = statement(deps.sqlite, 'SELECT id, email, name, session_version AS v FROM users WHERE id = ?').get(record.id) as (SessionUser & { v: number }) | undefined;
     // A password change bumps the version: sessions from before it end here.
-    if (!row || row.sessionVersion !== record.v) return done(null, false);
+    if (!row || row.v !== record.v) return done(null, false);
     done(null, { id: row.id, email: row.email, name: row.name } satisfies SessionUser);
   });
   return pp;
