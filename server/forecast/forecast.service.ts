@@ -1,23 +1,12 @@
 import { and, eq } from 'drizzle-orm';
 import { type Curve, type FitPoint, fitCurve } from '../../shared/engine/forecast/curve';
 import { DEFAULT_CURVES, familyKey, MIN_POINTS_TO_FIT } from '../../shared/engine/forecast/families';
+import type { FamilyView } from '../../shared/schemas/plans';
 import { recordAudit } from '../audit';
 import type { Deps } from '../deps';
 import { curveOverrides, segments, surveys } from '../db/schema';
 
-export type Family = {
-  key: string;
-  surface: string;
-  classGroup: string;
-  treatmentGroup: string;
-  segments: number;
-  n: number;
-  curve: Curve;
-  source: 'fitted' | 'default' | 'edited';
-  rmse: number | null;
-  fitted: { curve: Curve; rmse: number } | null;
-  points: FitPoint[];
-};
+export type Family = FamilyView;
 
 /** Every family's curve: fitted where it has enough surveys, else the default or the agency's own edit. */
 export function families(deps: Deps, agencyId: string, withPoints = true): Family[] {

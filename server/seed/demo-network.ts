@@ -1,6 +1,7 @@
 // Builds the fictional demo networks (Brannock County with its seat Tallow
 // Creek, and the City of Marlow). Everything here is invented for the demo
 // scenario: geometry, traffic, treatment years and the survey curve.
+import { rng } from '../../shared/engine/random';
 import type { FunctionalClass, Surface } from '../../shared/schemas/segments';
 
 export type DemoSegment = {
@@ -22,17 +23,8 @@ export type DemoSegment = {
   surveys: { surveyDate: string; pci: number }[];
 };
 
-/** mulberry32: small seeded generator so the demo is the same on every machine. */
-export function seededRandom(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The seeded generator of the engine, so the demo is the same on every machine. */
+export const seededRandom = rng;
 
 type Rand = () => number;
 const pick = <T>(r: Rand, xs: readonly T[]) => xs[Math.floor(r() * xs.length)];

@@ -1,20 +1,9 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { FamilyView } from '@shared/schemas/plans';
 import { api } from '@/lib/api-client';
 
-export type Curve = { p0: number; a: number; b: number };
-export type Family = {
-  key: string;
-  surface: string;
-  classGroup: string;
-  treatmentGroup: string;
-  segments: number;
-  n: number;
-  curve: Curve;
-  source: 'fitted' | 'default' | 'edited';
-  rmse: number | null;
-  fitted: { curve: Curve; rmse: number } | null;
-  points: { age: number; pci: number }[];
-};
+export type Family = FamilyView;
+export type Curve = FamilyView['curve'];
 
 export const familiesQueryOptions = (agencyId: string) =>
   queryOptions({ queryKey: ['forecast', agencyId, 'families'], queryFn: () => api<{ families: Family[] }>(`/api/agencies/${agencyId}/forecast/families`) });
