@@ -132,7 +132,7 @@ export function planInput(deps: Deps, agencyId: string, planId: string): PlanInp
     agencyName: agency.name,
     method: settings.method,
     minNetworkPci: settings.minNetworkPci,
-    settings: { startYear: settings.startYear, budgets: budgetsOf(settings), weighting: settings.weighting, needsWorkBelow: settings.needsWorkBelow },
+    settings: { startYear: settings.startYear, budgets: budgetsOf(settings), weighting: settings.weighting, needsWorkBelow: settings.needsWorkBelow, minNetworkPci: settings.minNetworkPci },
     segments: planSegments,
     treatments,
     curves,

@@ -103,3 +103,23 @@ describe('fast method', () => {
     expect(rank.totalBenefit).toBeLessThanOrEqual(exact.totalBenefit + 1e-6);
   });
 });
+
+describe('minimum network PCI rows (exact method)', () => {
+  it('a floor can force the less beneficial choice, and an unreachable floor says so', () => {
+    // Budget 100 buys A (benefit 90, lifts year-1 condition by 10 length·PCI) or B (benefit 60, lifts it by 30).
+    // Without a floor the optimum is A (90). A floor asking 25 in year 1 leaves only B: optimum 60, worked by hand.
+    const base: Instance = {
+      budgets: [100, 100],
+      segments: [
+        { id: 'A', options: [{ id: 'A1', benefit: 90, costs: [{ year: 0, cost: 100 }], floorGains: [0, 10] }] },
+        { id: 'B', options: [{ id: 'B1', benefit: 60, costs: [{ year: 0, cost: 100 }], floorGains: [0, 30] }] },
+      ],
+    };
+    expect(solveExact(base, highs).chosen.map((c) => c.optionId)).toEqual(['A1']);
+    const floored = { ...base, floors: [{ year: 1, rhs: 25 }] };
+    const s = solveExact(floored, highs);
+    expect(s.chosen.map((c) => c.optionId)).toEqual(['B1']);
+    expect(s.totalBenefit).toBe(60);
+    expect(() => solveExact({ ...base, floors: [{ year: 1, rhs: 50 }] }, highs)).toThrow(/minimum network PCI/);
+  });
+});

@@ -42,6 +42,8 @@ export type PlanSettings = {
   weighting: 'lane-miles' | 'lane-miles-traffic';
   /** PCI below which an untreated road counts in the backlog. */
   needsWorkBelow: number;
+  /** Optional minimum length-weighted network PCI in every year (enforced by the exact method). */
+  minNetworkPci?: number | null;
 };
 
 /** Condition by plan year without any work: the curve continued from today's PCI. */
@@ -101,7 +103,9 @@ export function buildCandidates(segments: PlanSegment[], treatments: PlanTreatme
         const benefit = area * w;
         if (benefit <= 0) continue;
         const cost = treatmentCost(t, s);
-        options.push({ id: `${s.ref}:${t.id}:${y}`, benefit, costs: [{ year: y, cost }] });
+        // Length × PCI gained in each plan year: the option's share of a network-PCI floor.
+        const floorGains = Array.from({ length: H }, (_, k) => (k < withT.length ? Math.max(0, withT[k] - none[k]) * s.lengthMi : 0));
+        options.push({ id: `${s.ref}:${t.id}:${y}`, benefit, costs: [{ year: y, cost }], floorGains });
         m.push({ treatment: t, year: y, cost });
       }
     }
@@ -109,6 +113,13 @@ export function buildCandidates(segments: PlanSegment[], treatments: PlanTreatme
     meta.push({ segment: s, options: m });
   }
   const instance: Instance = { budgets: settings.budgets, segments: optSegments };
+  if (settings.minNetworkPci !== undefined && settings.minNetworkPci !== null) {
+    // Σ length × PCI with no work, per year; the floor asks the work to lift it to target × total length.
+    const length = segments.reduce((a, s) => a + s.lengthMi, 0);
+    const base = new Array(H).fill(0);
+    for (const s of segments) doNothing(curves(s.familyKey), s.pci, H).forEach((v, y) => (base[y] += v * s.lengthMi));
+    instance.floors = base.map((b, y) => ({ year: y, rhs: settings.minNetworkPci! * length - b })).filter((f) => f.rhs > 0);
+  }
   return { instance, meta };
 }
 

@@ -3,9 +3,17 @@
 // nothing; maximise total benefit so that no year's spending exceeds its
 // budget. A multiple-choice knapsack with one capacity per year.
 
-export type OptOption = { id: string; benefit: number; costs: { year: number; cost: number }[] };
+export type OptOption = {
+  id: string;
+  benefit: number;
+  costs: { year: number; cost: number }[];
+  /** Optional: what choosing it adds to the floor rows' left-hand side, by year (e.g. length × PCI gained). */
+  floorGains?: number[];
+};
+/** Optional rows Σ floorGains[year]·x ≥ rhs (a minimum network PCI); only the exact method enforces them. */
+export type Floor = { year: number; rhs: number };
 export type OptSegment = { id: string; options: OptOption[]; priority?: number };
-export type Instance = { budgets: number[]; segments: OptSegment[] };
+export type Instance = { budgets: number[]; segments: OptSegment[]; floors?: Floor[] };
 export type Method = 'exact' | 'fast' | 'ranking';
 
 export type Solution = {
@@ -275,6 +283,22 @@ export function toLp(inst: Instance) {
     lines.push(...wrap(budgetTerms[y]));
     lines.push(`  <= ${b}`);
   });
+  for (const f of inst.floors ?? []) {
+    const terms: string[] = [];
+    list.forEach((l, i) => {
+      for (const { o, j } of l) {
+        const g = o.floorGains?.[f.year] ?? 0;
+        if (g > 0) terms.push(`+ ${g} x${i}_${j}`);
+      }
+    });
+    if (terms.length === 0) {
+      if (f.rhs > 0) throw new Error(`the minimum network PCI cannot be reached in year ${f.year + 1}: no work can lift it`);
+      continue;
+    }
+    lines.push(` f${f.year}:`);
+    lines.push(...wrap(terms));
+    lines.push(`  >= ${f.rhs}`);
+  }
   lines.push('Binary');
   lines.push(...wrap(names.length ? names : ['x_empty']));
   lines.push('End');
@@ -285,6 +309,7 @@ export function solveExact(inst: Instance, highs: Highs, opts: { timeLimitSecond
   const { lp, list } = toLp(inst);
   if (list.every((l) => l.length === 0)) return solution(inst, 'exact', inst.segments.map(() => -1), 0, 'optimal (nothing affordable)');
   const res = highs.solve(lp, { output_flag: false, time_limit: opts.timeLimitSeconds ?? 60, mip_rel_gap: opts.gap ?? 1e-6, presolve: 'on' } as never);
+  if (res.Status === 'Infeasible') throw new Error('no choice of work meets every year’s budget and the minimum network PCI; raise the budgets or lower the minimum (Find the budget helps)');
   if (res.Status !== 'Optimal' && res.Status !== 'Time limit reached') throw new Error(`HiGHS ended with status: ${res.Status}`);
   const pick: (number | -1)[] = list.map((l, i) => {
     for (const { j } of l) if (((res.Columns[`x${i}_${j}`] as { Primal?: number } | undefined)?.Primal ?? 0) > 0.5) return j;

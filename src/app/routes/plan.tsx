@@ -49,7 +49,7 @@ function Inputs({ agencyId, planId, name0, s0 }: { agencyId: string; planId: str
             <option value="lane-miles">lane-miles</option><option value="lane-miles-traffic">lane-miles × log traffic</option>
           </Select>
         </label>
-        <label><span className="block text-xs text-asphalt-muted">Minimum network PCI (checked)</span><TextInput aria-label="Minimum network PCI" type="number" min={0} max={100} value={s.minNetworkPci ?? ''} onChange={(e) => set({ minNetworkPci: e.target.value === '' ? null : Number(e.target.value) })} /></label>
+        <label><span className="block text-xs text-asphalt-muted">Minimum network PCI (exact method enforces it)</span><TextInput aria-label="Minimum network PCI" type="number" min={0} max={100} value={s.minNetworkPci ?? ''} onChange={(e) => set({ minNetworkPci: e.target.value === '' ? null : Number(e.target.value) })} /></label>
       </div>
       <div className="mt-3 overflow-x-auto">
         <table className="num text-sm" data-testid="budget-row">

@@ -38,6 +38,7 @@ export function StudyResults({ r }: { r: StudyResult }) {
                 <th>First cost</th>
                 <th>Mix (tons)</th>
                 <th>Saves vs baseline per lane-mi</th>
+                <th>Mix saved per lane-mi (tons)</th>
                 {mc && <th>Cheapest in</th>}
               </tr>
             </thead>
@@ -60,11 +61,12 @@ export function StudyResults({ r }: { r: StudyResult }) {
                       <td>{fmtMoney(a.firstCost)}</td>
                       <td>{fmtInt(a.initialTons)}</td>
                       <td className={v.savingsPerLaneMile > 0 ? 'text-accent' : v.savingsPerLaneMile < 0 ? 'text-band-poor' : ''}>{i === r.baselineIndex ? '—' : fmtMoney(v.savingsPerLaneMile)}</td>
+                      <td>{i === r.baselineIndex ? '—' : fmtInt(v.tonsSavedPerLaneMile)}</td>
                       {mc && <td>{Math.round(mc.probabilityCheapest[i] * 100)} %</td>}
                     </tr>
                     {open === i && (
                       <tr>
-                        <td colSpan={mc ? 9 : 8} className="bg-paper/60 p-3 text-left">
+                        <td colSpan={mc ? 10 : 9} className="bg-paper/60 p-3 text-left">
                           <div className="text-xs font-bold uppercase text-asphalt-muted">First application: {a.initial.label} · life {fmt1(a.initial.serviceLifeYears)} yr ({a.initial.lifeSource === 'mix-and-lift' ? 'scaled from the mix’s reference lift — an assumption' : a.initial.lifeSource === 'entered' ? 'entered' : 'catalog'})</div>
                           <table className="mt-1 w-full text-xs">
                             <tbody>
