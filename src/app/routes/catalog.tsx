@@ -149,7 +149,7 @@ export function CatalogPage() {
         actions={d.demoValues ? <span className="rounded bg-caution-bg px-2 py-1 text-xs font-semibold text-caution">Items tagged “demo values” are invented for the demo county</span> : undefined}
       />
       <Card title="Mixes">
-        <table className="num w-full text-sm" data-testid="mix-table">
+        <table className="num w-full text-sm [&_td]:px-2 [&_th]:px-2 [&_td]:whitespace-nowrap" data-testid="mix-table">
           <thead className="text-left text-xs uppercase text-asphalt-muted">
             <tr><th className="py-1">Mix</th><th>Binder</th><th>Modifier</th><th className="text-right">$/ton</th><th className="text-right">lb/SY-in</th><th className="text-right">Lift (in)</th><th className="text-right">Life</th><th className="text-right">Effective</th><th /></tr>
           </thead>
@@ -157,7 +157,7 @@ export function CatalogPage() {
         </table>
       </Card>
       <Card title="Treatments">
-        <table className="num w-full text-sm" data-testid="treatment-table">
+        <table className="num w-full text-sm [&_td]:px-2 [&_th]:px-2" data-testid="treatment-table">
           <thead className="text-left text-xs uppercase text-asphalt-muted">
             <tr><th className="py-1">Treatment</th><th>Kind</th><th>Cost basis</th><th className="text-right">Life</th><th>Condition effect</th><th>Applies to</th><th className="text-right">Effective</th><th /></tr>
           </thead>
