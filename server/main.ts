@@ -6,6 +6,7 @@ import { openDb } from './db/client';
 import type { Deps } from './deps';
 import { startMailCatcher, type MailCatcher } from './mail/catcher';
 import { JobRunner } from './jobs/job-runner';
+import { ListCache } from './segments/list-cache';
 import { createMailer } from './mail/mailer';
 import { failInterruptedRuns } from './plans/plans.service';
 import { DEMO_ACCOUNTS, hasAnyAgency, seedDemo } from './seed/seed';
@@ -22,7 +23,7 @@ export async function startWearcourse(config: AppConfig, log = console.log): Pro
   }
   const catcher = config.smtpUrl ? null : await startMailCatcher(db, config.mailCatcherPort, config.env !== 'test');
   const mailer = createMailer({ smtpUrl: config.smtpUrl, catcherPort: catcher?.port, from: config.mailFrom });
-  const deps: Deps = { db, sqlite, config, mailer, jobs: new JobRunner() };
+  const deps: Deps = { db, sqlite, config, mailer, jobs: new JobRunner(), listCache: new ListCache() };
   const interrupted = failInterruptedRuns(deps);
   if (interrupted) log(`${interrupted} plan run(s) left running by an earlier stop are marked failed.`);
   const { app } = createApp(deps);

@@ -256,6 +256,7 @@ async function importSegments(deps: Deps, agencyId: string, userId: string, file
     if (opts.saveMapping) repo.saveMapping(tx, agencyId, 'segments', mapping);
     recordAudit(tx, { agencyId, userId, action: 'import.segments', entity: 'import', entityId: importId, detail: { fileName, added: report.added, updated: report.updated, unchanged: report.unchanged, rejected: report.rejected } });
   });
+  deps.listCache?.bump(agencyId);
   report.importId = importId;
   return { status: 200, report };
 }
@@ -308,6 +309,7 @@ async function importSurveys(deps: Deps, agencyId: string, userId: string, fileN
     if (opts.saveMapping) repo.saveMapping(tx, agencyId, 'surveys', mapping);
     recordAudit(tx, { agencyId, userId, action: 'import.surveys', entity: 'import', entityId: importId, detail: { fileName, added: report.added, updated: report.updated, rejected: report.rejected } });
   });
+  deps.listCache?.bump(agencyId);
   report.importId = importId;
   return { status: 200, report };
 }

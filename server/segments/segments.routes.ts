@@ -27,7 +27,17 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
     params: AgencyParamsSchema,
     query: SegmentListQuerySchema,
     response: SegmentListResponseSchema,
-    handler: ({ agency, query }) => service.segmentList(deps, agency!.id, query),
+    handler: ({ agency, query, res }) => {
+      const cache = deps.listCache;
+      if (!cache) return service.segmentList(deps, agency!.id, query);
+      const key = cache.key(agency!.id, query);
+      let json = cache.get(key);
+      if (!json) {
+        json = JSON.stringify(service.segmentList(deps, agency!.id, query));
+        cache.set(key, json);
+      }
+      res.type('application/json').send(json);
+    },
   });
   api.add({
     method: 'get',

@@ -77,5 +77,6 @@ export function updateSegment(deps: Deps, agencyId: string, userId: string, id: 
       .run();
     recordAudit(tx, { agencyId, userId, action: 'segment.update', entity: 'segment', entityId: before.segmentId, detail: changed });
   });
+  deps.listCache?.bump(agencyId);
   return segmentDetail(deps, agencyId, id);
 }

@@ -125,3 +125,22 @@ describe('map GeoJSON and exports', () => {
     expect(re.body).toMatchObject({ added: 0, updated: 0, unchanged: 220, rejected: 0 });
   });
 });
+
+describe('cached lists never go stale', () => {
+  it('an edit and an import show in the very next list', async () => {
+    const eng = await t.as('engineer@brannock.example');
+    const url = `/api/agencies/${t.ids.brannock}/segments?q=BC-E00-01`;
+    const first = await eng.get(url);
+    const again = await eng.get(url);
+    expect(again.body).toEqual(first.body);
+    const id = first.body.items[0].id;
+    await eng.patch(`/api/agencies/${t.ids.brannock}/segments/${id}`).send({ roadName: 'Renamed Road' });
+    expect((await eng.get(url)).body.items[0].roadName).toBe('Renamed Road');
+    const count = (await eng.get(`/api/agencies/${t.ids.brannock}/segments?limit=1`)).body.total;
+    await eng.post(`/api/agencies/${t.ids.brannock}/imports`).attach('file', Buffer.from('segment_id,road_name,length_mi,width_ft,lanes,functional_class,surface\nNEW-1,New Rd,1,24,2,local,asphalt\n'), 'n.csv');
+    expect((await eng.get(`/api/agencies/${t.ids.brannock}/segments?limit=1`)).body.total).toBe(count + 1);
+    // Another agency's cache is its own.
+    const marlow = await t.as('engineer@marlow.example');
+    expect((await marlow.get(`/api/agencies/${t.ids.marlow}/segments?limit=1`)).body.total).toBe(84);
+  });
+});

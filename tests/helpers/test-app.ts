@@ -13,6 +13,7 @@ import { agencies, caughtMail } from '../../server/db/schema';
 import type { Deps } from '../../server/deps';
 import { startMailCatcher } from '../../server/mail/catcher';
 import { JobRunner } from '../../server/jobs/job-runner';
+import { ListCache } from '../../server/segments/list-cache';
 import { createMailer } from '../../server/mail/mailer';
 import { seedDemo } from '../../server/seed/seed';
 
@@ -30,7 +31,7 @@ export async function createTestApp(overrides: Partial<AppConfig> = {}, opts: { 
   const ids = opts.seed === false ? { brannock: '', marlow: '' } : await seedDemo(db);
   const catcher = await startMailCatcher(db, 0, false);
   const mailer = createMailer({ catcherPort: catcher.port, from: config.mailFrom });
-  const deps: Deps = { db, sqlite, config, mailer, jobs: new JobRunner() };
+  const deps: Deps = { db, sqlite, config, mailer, jobs: new JobRunner(), listCache: new ListCache() };
   const { app, routes } = createApp(deps);
 
   /** A signed-in client that sends the Origin header like a browser would. */
