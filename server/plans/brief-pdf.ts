@@ -3,6 +3,7 @@
 import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
 import { CONDITION_BANDS } from '../../shared/condition';
+import { BRIEF_CAUTIONS, briefMethod, briefSummary } from '../../shared/engine/plan/brief-text';
 import type { PlanResult } from '../../shared/engine/plan/run-plan';
 
 const require = createRequire(import.meta.url);
@@ -18,19 +19,6 @@ const money = (v: number) => (Math.abs(v) >= 1e6 ? `$${(v / 1e6).toFixed(2)}M` :
 const int = (v: number) => Math.round(v).toLocaleString('en-US');
 
 type Geometry = { type: string; coordinates: number[][] | number[][][] };
-
-export function briefSummary(r: PlanResult, agencyName: string) {
-  const first = r.years[0];
-  const last = r.years[r.years.length - 1];
-  const avg = r.summary.totalBudget / r.years.length;
-  return (
-    `With ${money(avg)} a year for ${r.years.length} year${r.years.length === 1 ? '' : 's'} (${first.calendarYear}–${last.calendarYear}), ` +
-    `${agencyName}'s network PCI goes from ${r.summary.startPci.toFixed(0)} to ${r.summary.finalPci.toFixed(0)} by ${last.calendarYear}; ` +
-    `with no work it would fall to ${r.summary.finalPciDoNothing.toFixed(0)}. ` +
-    `The plan treats ${int(r.summary.segmentsTreated)} segments and spends ${money(r.summary.totalSpent)} of ${money(r.summary.totalBudget)}. ` +
-    `The backlog of needed but unfunded work goes from ${money(r.summary.backlogStart)} to ${money(r.summary.backlogEnd)}.`
-  );
-}
 
 export async function briefPdf(args: { plan: { name: string; status: string; settings: unknown }; result: PlanResult; geometries: Map<number, Geometry>; author: string; agencyName: string }) {
   const { plan, result: r, geometries, author, agencyName } = args;
@@ -192,18 +180,9 @@ export async function briefPdf(args: { plan: { name: string; status: string; set
   doc.font('bold').fontSize(8).fillColor(INK).text(`Spent: ${first.calendarYear} ${money(first.spent)} of ${money(first.budget)}${r.years[1] ? `; ${r.years[1].calendarYear} ${money(r.years[1].spent)} of ${money(r.years[1].budget)}` : ''}.`);
 
   heading('Method');
-  doc.fontSize(9).text(
-    `Condition is forecast with deterioration curves (PCI against age since the last treatment) fitted by least squares to the agency's own surveys, or editable defaults where a family has too few. ` +
-      `Each segment's candidate treatments in each year come from the catalog's rules; the benefit of a treatment is the area between the condition curves with and without it, weighted by lane-miles. ` +
-      `${r.method === 'exact' ? 'The work was chosen by mixed-integer programming (HiGHS)' : r.method === 'fast' ? 'The work was chosen by a Lagrangian relaxation method' : 'The work was chosen worst-first'} to give the most benefit within each year's budget (${r.solution.status}; within ${(r.solution.gap * 100).toFixed(2)} % of the best possible). ` +
-      `Costs are planning estimates in constant base-year dollars from the catalog's unit prices, traffic control and add-ons; mobilisation is priced per contract, not per segment.`,
-    { width: W, lineGap: 1.5 },
-  );
+  doc.fontSize(9).text(briefMethod(r), { width: W, lineGap: 1.5 });
   heading('Cautions');
-  doc.fontSize(9).text(
-    'This is a planning estimate, not a pavement design. Before work is let: confirm the structure of each road (a thin overlay on a weak base can fail early), follow the agency’s specifications for mixes and for paving in cold weather, and plan work-zone traffic control to the applicable manual. Local codes, agency specifications and the judgement of a licensed engineer govern.',
-    { width: W, lineGap: 1.5 },
-  );
+  doc.fontSize(9).text(BRIEF_CAUTIONS, { width: W, lineGap: 1.5 });
   doc.end();
   return done;
 }

@@ -1,6 +1,7 @@
 import { createBrowserRouter, Navigate } from 'react-router-dom';
 import { ActivityPage } from './routes/activity';
 import { AppShell } from './routes/app-shell';
+import { BriefPage } from './routes/brief';
 import { CatalogPage } from './routes/catalog';
 import { ComparePage } from './routes/compare';
 import { ErrorPage } from './routes/error-page';
@@ -42,6 +43,7 @@ export const router = createBrowserRouter([
       { path: 'forecast', element: <ForecastPage /> },
       { path: 'plans', element: <PlansPage /> },
       { path: 'plans/:planId', element: <PlanPage /> },
+      { path: 'plans/:planId/brief', element: <BriefPage /> },
       { path: 'members', element: <MembersPage /> },
       { path: 'settings', element: <SettingsPage /> },
       { path: 'activity', element: <ActivityPage /> },

@@ -39,6 +39,12 @@ describe('budget plan, end to end', () => {
       await page.getByRole('button', { name: 'Publish' }).click();
       await page.getByText(/Published; 1 viewer\(s\) e-mailed/).waitFor();
       planUrl = page.url();
+      // The print page: the same brief, drawn in the browser.
+      await page.getByRole('link', { name: 'Brief', exact: true }).click();
+      await page.getByTestId('brief').waitFor();
+      await page.getByTestId('brief-map').waitFor();
+      for (const heading of ['Summary', 'Network condition', 'Backlog', 'Work list, first two years', 'Cautions']) await page.getByRole('heading', { name: heading }).waitFor();
+      await page.goBack();
       const pdfHref = await page.getByRole('link', { name: 'Council brief (PDF)' }).getAttribute('href');
       const pdf = await page.request.get(`${h.url}${pdfHref}`);
       expect(pdf.status()).toBe(200);

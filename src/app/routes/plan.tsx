@@ -209,6 +209,7 @@ export function PlanPage() {
         actions={
           result ? (
             <>
+              <Link className="rounded border border-asphalt-line bg-white px-3 py-1.5 text-sm font-semibold" to="brief">Brief</Link>
               <a className="rounded border border-asphalt-line bg-white px-3 py-1.5 text-sm font-semibold" href={`/api/agencies/${agencyId}/plans/${planId}/brief.pdf`} target="_blank" rel="noreferrer">Council brief (PDF)</a>
               <a className="rounded border border-asphalt-line bg-white px-3 py-1.5 text-sm font-semibold" href={`/api/agencies/${agencyId}/plans/${planId}/work-list?format=csv`}>Work list CSV</a>
               <a className="rounded border border-asphalt-line bg-white px-3 py-1.5 text-sm font-semibold" href={`/api/agencies/${agencyId}/plans/${planId}/work-list?format=xlsx`}>XLSX</a>
