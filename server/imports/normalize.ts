@@ -79,13 +79,20 @@ function fail(ctx: Ctx, field: string, value: Cell, message: string) {
   ctx.errors.push({ row: ctx.row, column: ctx.mapping[field] ?? field, value: show(value), message });
 }
 
-function text(values: Record<string, Cell>, ctx: Ctx, field: string, max: number, required = false): string | null {
+/** The mapped cell of a field, or null when it is blank (noting "is required" if it must be there). */
+function cell(values: Record<string, Cell>, ctx: Ctx, field: string, required: boolean): Cell {
   const col = ctx.mapping[field];
   const v = col ? values[col] : null;
   if (v === null || v === undefined || String(v).trim() === '') {
     if (required) fail(ctx, field, null, 'is required');
     return null;
   }
+  return v;
+}
+
+function text(values: Record<string, Cell>, ctx: Ctx, field: string, max: number, required = false): string | null {
+  const v = cell(values, ctx, field, required);
+  if (v === null) return null;
   const s = String(v).trim();
   if (s.length > max) {
     fail(ctx, field, s.slice(0, 40), `is longer than ${max} characters`);
@@ -100,12 +107,8 @@ function num(
   field: string,
   opts: { min?: number; max?: number; minExclusive?: boolean; integer?: boolean; required?: boolean },
 ): number | null {
-  const col = ctx.mapping[field];
-  const raw = col ? values[col] : null;
-  if (raw === null || raw === undefined || String(raw).trim() === '') {
-    if (opts.required) fail(ctx, field, null, 'is required');
-    return null;
-  }
+  const raw = cell(values, ctx, field, !!opts.required);
+  if (raw === null) return null;
   const cleaned = typeof raw === 'number' ? raw : String(raw).trim().replace(/,(?=\d{3}(\D|$))/g, '').replace(/%$/, '');
   const n = typeof cleaned === 'number' ? cleaned : /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(cleaned) ? Number(cleaned) : Number.NaN;
   if (!Number.isFinite(n)) {
@@ -130,12 +133,8 @@ function num(
 const IsoDate = z.iso.date();
 
 function date(values: Record<string, Cell>, ctx: Ctx, field: string, required = false): string | null {
-  const col = ctx.mapping[field];
-  const v = col ? values[col] : null;
-  if (v === null || v === undefined || String(v).trim() === '') {
-    if (required) fail(ctx, field, null, 'is required');
-    return null;
-  }
+  const v = cell(values, ctx, field, required);
+  if (v === null) return null;
   const s = String(v).trim();
   if (!IsoDate.safeParse(s).success) {
     fail(ctx, field, s, 'is not a date in YYYY-MM-DD form');
@@ -149,12 +148,8 @@ function date(values: Record<string, Cell>, ctx: Ctx, field: string, required = 
 }
 
 function choice<T extends string>(values: Record<string, Cell>, ctx: Ctx, field: string, aliases: Record<string, T>, allowed: readonly string[]): T | null {
-  const col = ctx.mapping[field];
-  const v = col ? values[col] : null;
-  if (v === null || v === undefined || String(v).trim() === '') {
-    fail(ctx, field, null, 'is required');
-    return null;
-  }
+  const v = cell(values, ctx, field, true);
+  if (v === null) return null;
   const hit = aliases[key(String(v))];
   if (!hit) {
     fail(ctx, field, v, `is not one of ${allowed.join(', ')}`);
