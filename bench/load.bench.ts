@@ -1,26 +1,17 @@
 // Load on loopback with autocannon: a mix of sign-ins, paged lists, the map
 // GeoJSON and LCCA evaluations (with a plan run going) at 50 connections,
 // then paged lists alone for their p99. Goal: no errors, p99 ≤ 50 ms for paged lists.
-import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
+import { startServerProcess } from '../tests/helpers/server-process';
 
 const SECONDS = Number(process.env.LOAD_SECONDS ?? 60);
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wearcourse-load-'));
-const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-  env: { ...process.env, NODE_ENV: 'development', PORT: '0', DATABASE_PATH: path.join(dir, 'load.db'), MAIL_CATCHER_PORT: '0', SIGNIN_RATE_LIMIT: '1000000' },
-  stdio: ['ignore', 'pipe', 'inherit'],
-});
-const url = await new Promise<string>((resolve) => {
-  let out = '';
-  server.stdout.on('data', (b: Buffer) => {
-    out += b.toString();
-    const m = out.match(/running at (http:\/\/localhost:\d+)/);
-    if (m) resolve(m[1].replace('localhost', '127.0.0.1'));
-  });
-});
+const started = await startServerProcess({ DATABASE_PATH: path.join(dir, 'load.db'), SIGNIN_RATE_LIMIT: '1000000' });
+const server = started.child;
+const url = started.url.replace('localhost', '127.0.0.1');
 const origin = url.replace('127.0.0.1', 'localhost');
 const signIn = await fetch(`${url}/api/auth/sign-in/email`, { method: 'POST', headers: { 'Content-Type': 'application/json', Origin: origin }, body: JSON.stringify({ email: 'engineer@brannock.example', password: 'wearcourse-demo' }) });
 const cookie = signIn.headers.get('set-cookie')!.split(';')[0];

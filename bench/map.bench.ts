@@ -1,6 +1,5 @@
 // The Roads screen's map with 5,000 and with 50,000 segments: time from opening
 // the screen to the map idle with features drawn, in headless Debian chromium.
-import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -12,6 +11,7 @@ import { JobRunner } from '../server/jobs/job-runner';
 import { createMailer } from '../server/mail/mailer';
 import { DEMO_ACCOUNTS } from '../server/seed/seed';
 import { seedDemo } from '../server/seed/seed';
+import { startServerProcess } from '../tests/helpers/server-process';
 import { syntheticCsv } from './synthetic-network';
 
 const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
@@ -37,18 +37,7 @@ sqlite.exec(`DELETE FROM segments WHERE agency_id = '${ids.brannock}'`);
 await runImport(deps, ids.brannock, consultant.id, { name: 'syn50k.csv', buffer: Buffer.from(syntheticCsv(50_000)) }, opts);
 sqlite.close();
 
-const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-  env: { ...process.env, NODE_ENV: 'development', PORT: '0', DATABASE_PATH: dbPath, MAIL_CATCHER_PORT: '0' },
-  stdio: ['ignore', 'pipe', 'pipe'],
-});
-const url = await new Promise<string>((resolve) => {
-  let out = '';
-  server.stdout.on('data', (b: Buffer) => {
-    out += b.toString();
-    const m = out.match(/running at (http:\/\/localhost:\d+)/);
-    if (m) resolve(m[1]);
-  });
-});
+const { child: server, url } = await startServerProcess({ DATABASE_PATH: dbPath });
 const browser = await chromium.launch({
   executablePath: chromiumPath,
   args: ['--no-sandbox', '--enable-unsafe-swiftshader', '--disable-background-networking', '--host-resolver-rules=MAP * ~NOTFOUND, EXCLUDE 127.0.0.1, EXCLUDE localhost'],

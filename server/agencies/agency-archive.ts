@@ -11,6 +11,7 @@ import * as catalogRepo from '../catalog/catalog.repo';
 import type { Deps } from '../deps';
 import { agencies, analyses, curveOverrides, importMappings, memberships, mixes, plans, segments, surveys, treatments } from '../db/schema';
 import { HttpError } from '../http/errors';
+import { zipExpandedBytes } from '../imports/read-file';
 import { segmentsCsv } from '../segments/segments.export';
 
 export const ARCHIVE_FORMAT = 'wearcourse-agency-export';
@@ -68,9 +69,7 @@ export async function restoreAgency(deps: Deps, userId: string, buf: Buffer, nam
   } catch {
     throw bad('This file is not a Wearcourse agency export (not a zip).');
   }
-  let expanded = 0;
-  for (const f of Object.values(zip.files)) expanded += (f as unknown as { _data?: { uncompressedSize?: number } })._data?.uncompressedSize ?? 0;
-  if (expanded > 500 * 1024 * 1024) throw bad('The archive expands to more than 500 MB.');
+  if (zipExpandedBytes(zip) > 500 * 1024 * 1024) throw bad('The archive expands to more than 500 MB.');
   const read = async (n: string) => {
     const f = zip.file(n);
     if (!f) throw bad(`The archive has no ${n}.`);

@@ -48,6 +48,13 @@ function checkColumns(columns: string[]) {
   });
 }
 
+/** The sizes a zip declares for its parts, read from its directory without inflating anything. */
+export function zipExpandedBytes(zip: JSZip) {
+  let total = 0;
+  for (const f of Object.values(zip.files)) total += (f as unknown as { _data?: { uncompressedSize?: number } })._data?.uncompressedSize ?? 0;
+  return total;
+}
+
 export function readCsv(buf: Buffer): RawTable {
   let text = buf.toString('utf8');
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1); // BOM from spreadsheet exports
@@ -105,9 +112,7 @@ export async function readXlsx(buf: Buffer): Promise<RawTable> {
   } catch {
     throw fileError('This file is not a readable Excel workbook (.xlsx).');
   }
-  // The sizes the zip declares for its parts, read from its directory without inflating anything.
-  let expanded = 0;
-  for (const f of Object.values(zip.files)) expanded += (f as unknown as { _data?: { uncompressedSize?: number } })._data?.uncompressedSize ?? 0;
+  const expanded = zipExpandedBytes(zip);
   if (expanded > MAX_WORKBOOK_EXPANDED_BYTES) {
     throw fileError(`This workbook expands to ${Math.round(expanded / 1024 / 1024)} MB when unzipped, more than the ${MAX_WORKBOOK_EXPANDED_BYTES / 1024 / 1024} MB limit; save it as CSV or split it.`);
   }

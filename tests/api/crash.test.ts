@@ -1,36 +1,22 @@
 // Crash safety: the real server as a child process, killed with SIGKILL in the
 // middle of a large import and of a plan run, then started again on the same file.
-import { type ChildProcess, spawn } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import Database from 'better-sqlite3';
 import { afterAll, describe, expect, it } from 'vitest';
 import { syntheticCsv } from '../../bench/synthetic-network';
+import { startServerProcess } from '../helpers/server-process';
 
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wearcourse-crash-'));
 const dbPath = path.join(dir, 'crash.db');
 let child: ChildProcess | null = null;
 
 async function start(): Promise<string> {
-  child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, NODE_ENV: 'development', PORT: '0', DATABASE_PATH: dbPath, MAIL_CATCHER_PORT: '0' },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  let out = '';
-  return new Promise((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`no start:\n${out}`)), 60_000);
-    const on = (b: Buffer) => {
-      out += b.toString();
-      const m = out.match(/running at (http:\/\/localhost:\d+)/);
-      if (m) {
-        clearTimeout(timer);
-        resolve(m[1]);
-      }
-    };
-    child!.stdout!.on('data', on);
-    child!.stderr!.on('data', on);
-  });
+  const started = await startServerProcess({ DATABASE_PATH: dbPath }, 60_000);
+  child = started.child;
+  return started.url;
 }
 
 function kill9() {

@@ -1,11 +1,11 @@
 // Starts the real server (tsx server/index.ts) on a free port with a fresh
 // SQLite file, and Debian's chromium through playwright-core. No browser is
 // downloaded; no request may leave the machine.
-import { type ChildProcess, spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { type Browser, chromium, type Page } from 'playwright-core';
+import { startServerProcess } from '../helpers/server-process';
 
 export const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
@@ -14,25 +14,7 @@ export type Harness = { url: string; browser: Browser; dbPath: string; stop: () 
 export async function startHarness(): Promise<Harness> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wearcourse-e2e-'));
   const dbPath = path.join(dir, 'e2e.db');
-  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, NODE_ENV: 'development', PORT: '0', DATABASE_PATH: dbPath, MAIL_CATCHER_PORT: '0', SIGNIN_RATE_LIMIT: '100' },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  let output = '';
-  const url = await new Promise<string>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`server did not start:\n${output}`)), 120_000);
-    const onData = (buf: Buffer) => {
-      output += buf.toString();
-      const m = output.match(/running at (http:\/\/localhost:\d+)/);
-      if (m) {
-        clearTimeout(timer);
-        resolve(m[1]);
-      }
-    };
-    child.stdout?.on('data', onData);
-    child.stderr?.on('data', onData);
-    child.once('exit', (code) => reject(new Error(`server exited with ${code}:\n${output}`)));
-  });
+  const { child, url } = await startServerProcess({ DATABASE_PATH: dbPath, SIGNIN_RATE_LIMIT: '100' });
   const browser = await chromium.launch({
     executablePath: CHROMIUM,
     headless: true,
