@@ -19,29 +19,53 @@ const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wearcourse-bench-'));
 const csv = syntheticCsv(N);
 console.log(`generated ${N.toLocaleString('en-US')} rows, ${(csv.length / 1024 / 1024).toFixed(1)} MB`);
 
-const config = loadConfig({ NODE_ENV: 'test', DATABASE_PATH: path.join(dir, 'bench.db'), APP_URL: 'http://localhost:1' });
+const config = loadConfig({
+  NODE_ENV: 'test',
+  DATABASE_PATH: path.join(dir, 'bench.db'),
+  APP_URL: 'http://localhost:1',
+});
 const { db, sqlite } = openDb(config.databasePath);
 const ids = await seedDemo(db);
-const { app } = createApp({ db, sqlite, config, mailer: createMailer({ catcherPort: 1, from: config.mailFrom }), jobs: new JobRunner() });
+const { app } = createApp({
+  db,
+  sqlite,
+  config,
+  mailer: createMailer({ catcherPort: 1, from: config.mailFrom }),
+  jobs: new JobRunner(),
+});
 const agent = request.agent(app);
-await agent.post('/api/auth/sign-in/email').set('Origin', 'http://localhost:1').send({ email: 'engineer@marlow.example', password: 'wearcourse-demo' });
+await agent
+  .post('/api/auth/sign-in/email')
+  .set('Origin', 'http://localhost:1')
+  .send({ email: 'engineer@marlow.example', password: 'wearcourse-demo' });
 
 global.gc?.();
 const heap0 = process.memoryUsage().rss;
 let t = performance.now();
-const res = await agent.post(`/api/agencies/${ids.marlow}/imports`).set('Origin', 'http://localhost:1').attach('file', Buffer.from(csv), 'synthetic.csv');
+const res = await agent
+  .post(`/api/agencies/${ids.marlow}/imports`)
+  .set('Origin', 'http://localhost:1')
+  .attach('file', Buffer.from(csv), 'synthetic.csv');
 const importMs = performance.now() - t;
 if (res.status !== 200) throw new Error(`import failed: ${res.status} ${JSON.stringify(res.body).slice(0, 300)}`);
-console.log(`Wearcourse import, end to end: ${importMs.toFixed(0)} ms (${(N / (importMs / 1000)).toFixed(0)} rows/s), added ${res.body.added}; RSS grew ${((process.memoryUsage().rss - heap0) / 1024 / 1024).toFixed(0)} MB`);
+console.log(
+  `Wearcourse import, end to end: ${importMs.toFixed(0)} ms (${(N / (importMs / 1000)).toFixed(0)} rows/s), added ${res.body.added}; RSS grew ${((process.memoryUsage().rss - heap0) / 1024 / 1024).toFixed(0)} MB`,
+);
 
 t = performance.now();
-const again = await agent.post(`/api/agencies/${ids.marlow}/imports`).set('Origin', 'http://localhost:1').field('dryRun', 'true').attach('file', Buffer.from(csv), 'synthetic.csv');
+const again = await agent
+  .post(`/api/agencies/${ids.marlow}/imports`)
+  .set('Origin', 'http://localhost:1')
+  .field('dryRun', 'true')
+  .attach('file', Buffer.from(csv), 'synthetic.csv');
 console.log(`re-import dry run (all unchanged: ${again.body.unchanged}): ${(performance.now() - t).toFixed(0)} ms`);
 
 // Baseline: parse with papaparse and insert the same rows with one prepared statement, no checks.
 const bare = new Database(path.join(dir, 'bare.db'));
 bare.pragma('journal_mode = WAL');
-bare.exec('CREATE TABLE s (segment_id TEXT UNIQUE, road_name TEXT, from_desc TEXT, to_desc TEXT, length_mi REAL, width_ft REAL, lanes INT, functional_class TEXT, surface TEXT, adt INT, truck_pct REAL, pci REAL, pci_date TEXT, last_treatment TEXT, last_treatment_year INT, district TEXT, geometry TEXT)');
+bare.exec(
+  'CREATE TABLE s (segment_id TEXT UNIQUE, road_name TEXT, from_desc TEXT, to_desc TEXT, length_mi REAL, width_ft REAL, lanes INT, functional_class TEXT, surface TEXT, adt INT, truck_pct REAL, pci REAL, pci_date TEXT, last_treatment TEXT, last_treatment_year INT, district TEXT, geometry TEXT)',
+);
 t = performance.now();
 const parsed = Papa.parse<string[]>(csv, { skipEmptyLines: true }).data.slice(1);
 const ins = bare.prepare('INSERT INTO s VALUES (?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?,?)');
@@ -49,8 +73,12 @@ bare.transaction(() => {
   for (const r of parsed) ins.run(...r);
 })();
 const bareMs = performance.now() - t;
-console.log(`bare parse + better-sqlite3 insert loop: ${bareMs.toFixed(0)} ms (${(N / (bareMs / 1000)).toFixed(0)} rows/s)`);
-console.log(`ratio: Wearcourse import takes ${(importMs / bareMs).toFixed(1)}× the bare loop (it validates, reprojects, measures, diffs, writes history and surveys)`);
+console.log(
+  `bare parse + better-sqlite3 insert loop: ${bareMs.toFixed(0)} ms (${(N / (bareMs / 1000)).toFixed(0)} rows/s)`,
+);
+console.log(
+  `ratio: Wearcourse import takes ${(importMs / bareMs).toFixed(1)}× the bare loop (it validates, reprojects, measures, diffs, writes history and surveys)`,
+);
 bare.close();
 sqlite.close();
 fs.rmSync(dir, { recursive: true, force: true });

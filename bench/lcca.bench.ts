@@ -16,12 +16,42 @@ const r = (perSy: number, perJob = 3500) => ({ perSy, perLaneMile: 0, perJob, ad
 const seal = { template: { label: 'crack seal', serviceLifeYears: 3, rates: r(0.4, 0) }, everyYears: 4 };
 // Six alternatives of the kind an engineer compares (rates are the demo scenario's, invented).
 const plans: SchedulePlan[] = [
-  { initial: { label: 'mill and overlay 2 in', serviceLifeYears: 12, rates: r(15.9) }, rehabilitation: [], maintenance: [seal], repeatAtEndOfLife: true },
-  { initial: { label: 'polymer 2 in', serviceLifeYears: 15, rates: r(17.1) }, rehabilitation: [], maintenance: [seal], repeatAtEndOfLife: true },
-  { initial: { label: 'rubber-modified 1.5 in', serviceLifeYears: 14, rates: r(9.2) }, rehabilitation: [], maintenance: [seal], repeatAtEndOfLife: true },
-  { initial: { label: 'thin overlay 1 in', serviceLifeYears: 8, rates: r(4.6) }, rehabilitation: [], maintenance: [], repeatAtEndOfLife: true },
-  { initial: { label: 'chip seal', serviceLifeYears: 6, rates: r(3.1) }, rehabilitation: [], maintenance: [], repeatAtEndOfLife: true },
-  { initial: { label: 'reconstruction', serviceLifeYears: 25, rates: r(46) }, rehabilitation: [{ label: 'overlay', serviceLifeYears: 12, rates: r(15.9) }], maintenance: [seal], repeatAtEndOfLife: true },
+  {
+    initial: { label: 'mill and overlay 2 in', serviceLifeYears: 12, rates: r(15.9) },
+    rehabilitation: [],
+    maintenance: [seal],
+    repeatAtEndOfLife: true,
+  },
+  {
+    initial: { label: 'polymer 2 in', serviceLifeYears: 15, rates: r(17.1) },
+    rehabilitation: [],
+    maintenance: [seal],
+    repeatAtEndOfLife: true,
+  },
+  {
+    initial: { label: 'rubber-modified 1.5 in', serviceLifeYears: 14, rates: r(9.2) },
+    rehabilitation: [],
+    maintenance: [seal],
+    repeatAtEndOfLife: true,
+  },
+  {
+    initial: { label: 'thin overlay 1 in', serviceLifeYears: 8, rates: r(4.6) },
+    rehabilitation: [],
+    maintenance: [],
+    repeatAtEndOfLife: true,
+  },
+  {
+    initial: { label: 'chip seal', serviceLifeYears: 6, rates: r(3.1) },
+    rehabilitation: [],
+    maintenance: [],
+    repeatAtEndOfLife: true,
+  },
+  {
+    initial: { label: 'reconstruction', serviceLifeYears: 25, rates: r(46) },
+    rehabilitation: [{ label: 'overlay', serviceLifeYears: 12, rates: r(15.9) }],
+    maintenance: [seal],
+    repeatAtEndOfLife: true,
+  },
 ];
 const areaSy = new Float64Array(N_SEG);
 const laneMiles = new Float64Array(N_SEG);
@@ -34,7 +64,9 @@ for (let i = 0; i < N_SEG; i++) {
 const t0 = performance.now();
 const res = evaluateNetwork(plans, { areaSy, laneMiles }, RATE, YEARS);
 const vecMs = performance.now() - t0;
-console.log(`Wearcourse evaluateNetwork, ${N_SEG.toLocaleString('en-US')} segments × ${plans.length} alternatives × ${YEARS} years, one call: ${vecMs.toFixed(1)} ms`);
+console.log(
+  `Wearcourse evaluateNetwork, ${N_SEG.toLocaleString('en-US')} segments × ${plans.length} alternatives × ${YEARS} years, one call: ${vecMs.toFixed(1)} ms`,
+);
 
 // The same costs as yearly cash flows per segment, through financial.npv (no remaining-life credit here,
 // so compare against the cost PV: evaluate with salvage off for the check).
@@ -59,11 +91,26 @@ for (const y of yearly) {
   }
 }
 const loopMs = performance.now() - t1;
-console.log(`loop of financial.npv per segment (${(N_SEG * plans.length).toLocaleString('en-US')} calls): ${loopMs.toFixed(0)} ms — ${(loopMs / vecMs).toFixed(0)}× the vectorised call`);
-const noSalvage = evaluateNetwork(plans.map((p) => ({ ...p, initial: { ...p.initial, salvage: false }, rehabilitation: p.rehabilitation.map((x) => ({ ...x, salvage: false })) })), { areaSy, laneMiles }, RATE, YEARS);
+console.log(
+  `loop of financial.npv per segment (${(N_SEG * plans.length).toLocaleString('en-US')} calls): ${loopMs.toFixed(0)} ms — ${(loopMs / vecMs).toFixed(0)}× the vectorised call`,
+);
+const noSalvage = evaluateNetwork(
+  plans.map((p) => ({
+    ...p,
+    initial: { ...p.initial, salvage: false },
+    rehabilitation: p.rehabilitation.map((x) => ({ ...x, salvage: false })),
+  })),
+  { areaSy, laneMiles },
+  RATE,
+  YEARS,
+);
 const vecTotal = noSalvage.reduce((s, x) => s + x.totalNpv, 0);
-console.log(`check: cost PV summed over all segments and alternatives — vectorised ${vecTotal.toFixed(0)}, financial loop ${loopTotal.toFixed(0)} (relative difference ${(Math.abs(vecTotal - loopTotal) / loopTotal).toExponential(1)})`);
-console.log(`with remaining-life credit the six network totals are: ${res.map((x) => `$${(x.totalNpv / 1e6).toFixed(1)}M`).join(', ')}`);
+console.log(
+  `check: cost PV summed over all segments and alternatives — vectorised ${vecTotal.toFixed(0)}, financial loop ${loopTotal.toFixed(0)} (relative difference ${(Math.abs(vecTotal - loopTotal) / loopTotal).toExponential(1)})`,
+);
+console.log(
+  `with remaining-life credit the six network totals are: ${res.map((x) => `$${(x.totalNpv / 1e6).toFixed(1)}M`).join(', ')}`,
+);
 
 const py = spawnSync('python3', ['-c', 'import numpy; print(numpy.__version__)'], { encoding: 'utf8' });
 if (py.status !== 0) {
@@ -71,7 +118,10 @@ if (py.status !== 0) {
 } else {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wc-np-'));
   fs.writeFileSync(path.join(dir, 'area.bin'), Buffer.from(areaSy.buffer));
-  fs.writeFileSync(path.join(dir, 'coef.bin'), Buffer.from(Float64Array.from(yearly.flatMap((y) => [...y.perSy, ...y.perJob])).buffer));
+  fs.writeFileSync(
+    path.join(dir, 'coef.bin'),
+    Buffer.from(Float64Array.from(yearly.flatMap((y) => [...y.perSy, ...y.perJob])).buffer),
+  );
   const script = `
 import numpy as np, time, sys
 d = sys.argv[1]

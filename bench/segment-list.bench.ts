@@ -11,14 +11,27 @@ import { createMailer } from '../server/mail/mailer';
 import { seedDemo } from '../server/seed/seed';
 
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wearcourse-bench-'));
-const config = loadConfig({ NODE_ENV: 'test', DATABASE_PATH: path.join(dir, 'bench.db'), APP_URL: 'http://localhost:1' });
+const config = loadConfig({
+  NODE_ENV: 'test',
+  DATABASE_PATH: path.join(dir, 'bench.db'),
+  APP_URL: 'http://localhost:1',
+});
 const { db, sqlite } = openDb(config.databasePath);
 let t = performance.now();
 const ids = await seedDemo(db);
 console.log(`seed demo agencies: ${(performance.now() - t).toFixed(0)} ms`);
-const { app } = createApp({ db, sqlite, config, mailer: createMailer({ catcherPort: 1, from: config.mailFrom }), jobs: new JobRunner() });
+const { app } = createApp({
+  db,
+  sqlite,
+  config,
+  mailer: createMailer({ catcherPort: 1, from: config.mailFrom }),
+  jobs: new JobRunner(),
+});
 const agent = request.agent(app);
-await agent.post('/api/auth/sign-in/email').set('Origin', 'http://localhost:1').send({ email: 'viewer@brannock.example', password: 'wearcourse-demo' });
+await agent
+  .post('/api/auth/sign-in/email')
+  .set('Origin', 'http://localhost:1')
+  .send({ email: 'viewer@brannock.example', password: 'wearcourse-demo' });
 const N = 300;
 const times: number[] = [];
 for (let i = 0; i < N; i++) {

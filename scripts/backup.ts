@@ -11,7 +11,9 @@ if (!fs.existsSync(config.databasePath)) {
   process.exit(1);
 }
 const stamp = new Date().toISOString().replace(/[-:]/g, '').replace('T', '-').slice(0, 15);
-const dest = path.resolve(process.argv[2] ?? path.join(path.dirname(config.databasePath), 'backups', `wearcourse-${stamp}.db`));
+const dest = path.resolve(
+  process.argv[2] ?? path.join(path.dirname(config.databasePath), 'backups', `wearcourse-${stamp}.db`),
+);
 fs.mkdirSync(path.dirname(dest), { recursive: true });
 const db = new Database(config.databasePath, { readonly: true, fileMustExist: true });
 db.pragma('busy_timeout = 5000');
@@ -20,5 +22,7 @@ db.close();
 const check = new Database(dest, { readonly: true });
 const ok = check.pragma('integrity_check', { simple: true });
 check.close();
-console.log(`Backed up ${config.databasePath} to ${dest} (${(fs.statSync(dest).size / 1024 / 1024).toFixed(1)} MB, integrity ${ok}).`);
+console.log(
+  `Backed up ${config.databasePath} to ${dest} (${(fs.statSync(dest).size / 1024 / 1024).toFixed(1)} MB, integrity ${ok}).`,
+);
 if (ok !== 'ok') process.exit(1);

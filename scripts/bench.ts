@@ -11,7 +11,9 @@ const files = fs
 let failed = 0;
 for (const f of files) {
   console.log(`\n=== ${f}`);
-  const r = spawnSync(process.execPath, ['--import', 'tsx', '--expose-gc', path.join('bench', f)], { stdio: 'inherit' });
+  const r = spawnSync(process.execPath, ['--import', 'tsx', '--expose-gc', path.join('bench', f)], {
+    stdio: 'inherit',
+  });
   if (r.status !== 0) failed++;
 }
 process.exit(failed ? 1 : 0);

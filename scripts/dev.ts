@@ -2,7 +2,10 @@
 import { spawn } from 'node:child_process';
 
 const procs = [
-  spawn('npx', ['tsx', 'watch', 'server/index.ts'], { stdio: 'inherit', env: { ...process.env, APP_URL: process.env.APP_URL ?? 'http://localhost:5173' } }),
+  spawn('npx', ['tsx', 'watch', 'server/index.ts'], {
+    stdio: 'inherit',
+    env: { ...process.env, APP_URL: process.env.APP_URL ?? 'http://localhost:5173' },
+  }),
   spawn('npx', ['vite'], { stdio: 'inherit' }),
 ];
 const stop = () => {

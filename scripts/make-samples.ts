@@ -16,7 +16,15 @@ const r = seededRandom(7);
 const origin: [number, number] = [-98.43, 38.83];
 const blockMi = 0.08;
 const streets = ['Bluestem Dr', 'Switchgrass Ln', 'Sideoats Ct', 'Indiangrass Way', 'Buffalo Grass Rd'];
-const aves = ['Meadowlark Ave', 'Kestrel Ave', 'Plover Ave', 'Bobwhite Ave', 'Killdeer Ave', 'Dickcissel Ave', 'Bunting Ave'];
+const aves = [
+  'Meadowlark Ave',
+  'Kestrel Ave',
+  'Plover Ave',
+  'Bobwhite Ave',
+  'Killdeer Ave',
+  'Dickcissel Ave',
+  'Bunting Ave',
+];
 const toLonLat = (x: number, y: number): [number, number] => {
   const lat = origin[1] + y / 69.05;
   const lon = origin[0] + x / (69.05 * Math.cos((origin[1] * Math.PI) / 180));
@@ -62,16 +70,53 @@ const fields = Object.keys(rows[0]);
 // The CSV carries each centreline as WKT in a geometry column, as GIS exports to CSV do.
 const wkt = (c: [number, number][]) => `LINESTRING (${c.map((p) => p.join(' ')).join(', ')})`;
 const csvRows = rows.map((row, i) => ({ ...row, geometry: wkt(geoms[i]) }));
-fs.writeFileSync(path.join(out, 'brannock-prairie-view.csv'), `${Papa.unparse(csvRows, { columns: [...fields, 'geometry'] })}\n`);
+fs.writeFileSync(
+  path.join(out, 'brannock-prairie-view.csv'),
+  `${Papa.unparse(csvRows, { columns: [...fields, 'geometry'] })}\n`,
+);
 
 // The same rows as a workbook with the headers a county spreadsheet might use.
 const wb = new ExcelJS.Workbook();
 const ws = wb.addWorksheet('Segments');
-const xlsxHeaders = ['Segment ID', 'Road Name', 'From', 'To', 'Length (mi)', 'Width (ft)', 'Lanes', 'Functional Class', 'Surface Type', 'AADT', 'Truck %', 'PCI', 'Survey Date', 'Last Treatment', 'Last Treatment Year', 'District'];
+const xlsxHeaders = [
+  'Segment ID',
+  'Road Name',
+  'From',
+  'To',
+  'Length (mi)',
+  'Width (ft)',
+  'Lanes',
+  'Functional Class',
+  'Surface Type',
+  'AADT',
+  'Truck %',
+  'PCI',
+  'Survey Date',
+  'Last Treatment',
+  'Last Treatment Year',
+  'District',
+];
 ws.addRow(xlsxHeaders);
 const classLabel: Record<string, string> = { local: 'Local', minor_collector: 'Minor Collector' };
 for (const row of rows) {
-  ws.addRow([row.segment_id, row.road_name, row.from_desc, row.to_desc, row.length_mi, row.width_ft, row.lanes, classLabel[String(row.functional_class)], 'Asphalt', row.adt, row.truck_pct, row.pci, row.pci_date, row.last_treatment, row.last_treatment_year, row.district]);
+  ws.addRow([
+    row.segment_id,
+    row.road_name,
+    row.from_desc,
+    row.to_desc,
+    row.length_mi,
+    row.width_ft,
+    row.lanes,
+    classLabel[String(row.functional_class)],
+    'Asphalt',
+    row.adt,
+    row.truck_pct,
+    row.pci,
+    row.pci_date,
+    row.last_treatment,
+    row.last_treatment_year,
+    row.district,
+  ]);
 }
 await wb.xlsx.writeFile(path.join(out, 'brannock-prairie-view.xlsx'));
 
@@ -83,19 +128,30 @@ const featureCollection = (coords: (c: [number, number][]) => number[][], extra:
     return { type: 'Feature', properties: props, geometry: { type: 'LineString', coordinates: coords(geoms[i]) } };
   }),
 });
-fs.writeFileSync(path.join(out, 'brannock-prairie-view.geojson'), `${JSON.stringify(featureCollection((c) => c), null, 1)}\n`);
+fs.writeFileSync(
+  path.join(out, 'brannock-prairie-view.geojson'),
+  `${JSON.stringify(
+    featureCollection((c) => c),
+    null,
+    1,
+  )}\n`,
+);
 
 // State Plane twin: NAD83 / Kansas North (ftUS), EPSG:3419, definition from epsg-index.
 const def = (epsg as Record<string, { proj4: string }>)['3419'].proj4;
 const toSp = proj4('WGS84', def);
-const sp = featureCollection(
-  (c) => c.map((p) => toSp.forward(p).map((v: number) => Math.round(v * 1000) / 1000)),
-  { crs: { type: 'name', properties: { name: 'urn:ogc:def:crs:EPSG::3419' } } },
-);
+const sp = featureCollection((c) => c.map((p) => toSp.forward(p).map((v: number) => Math.round(v * 1000) / 1000)), {
+  crs: { type: 'name', properties: { name: 'urn:ogc:def:crs:EPSG::3419' } },
+});
 fs.writeFileSync(path.join(out, 'brannock-prairie-view-stateplane.geojson'), `${JSON.stringify(sp, null, 1)}\n`);
 
 // Surveys for the new subdivision, a year apart.
-const surveys = rows.map((row) => ({ segment_id: row.segment_id, survey_date: '2025-07-15', pci: Math.min(100, Number(row.pci) + 3), source: 'windshield survey' }));
+const surveys = rows.map((row) => ({
+  segment_id: row.segment_id,
+  survey_date: '2025-07-15',
+  pci: Math.min(100, Number(row.pci) + 3),
+  source: 'windshield survey',
+}));
 fs.writeFileSync(path.join(out, 'brannock-prairie-view-surveys.csv'), `${Papa.unparse(surveys)}\n`);
 
 // A deliberately messy sheet: every row after the header shows one kind of mistake.

@@ -4,7 +4,10 @@ import { chromium } from 'playwright-core';
 
 const [email, ...paths] = process.argv.slice(2);
 const base = process.env.BASE_URL ?? 'http://localhost:3000';
-const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: ['--no-sandbox', '--enable-unsafe-swiftshader', '--disable-background-networking'] });
+const browser = await chromium.launch({
+  executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+  args: ['--no-sandbox', '--enable-unsafe-swiftshader', '--disable-background-networking'],
+});
 const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
 page.on('console', (m) => m.type() === 'error' && console.log('console:', m.text()));
 await page.goto(`${base}/sign-in`);

@@ -61,7 +61,9 @@ export function createApp(deps: Deps) {
     session({
       name: SESSION_COOKIE,
       secret: deps.config.sessionSecret,
-      store: sessionStore(new SqliteStore({ client: cachingClient(deps.sqlite), expired: { clear: true, intervalMs: 15 * 60 * 1000 } })),
+      store: sessionStore(
+        new SqliteStore({ client: cachingClient(deps.sqlite), expired: { clear: true, intervalMs: 15 * 60 * 1000 } }),
+      ),
       resave: false,
       saveUninitialized: false,
       rolling: false,

@@ -4,7 +4,14 @@ import { auditLog } from './db/schema';
 // Written inside the caller's transaction so a change and its record land together.
 export function recordAudit(
   db: Pick<Db, 'insert'>,
-  entry: { agencyId: string | null; userId: string | null; action: string; entity: string; entityId?: string; detail?: unknown },
+  entry: {
+    agencyId: string | null;
+    userId: string | null;
+    action: string;
+    entity: string;
+    entityId?: string;
+    detail?: unknown;
+  },
 ) {
   db.insert(auditLog)
     .values({

@@ -11,7 +11,13 @@ import { createMailer } from './mail/mailer';
 import { failInterruptedRuns } from './plans/plans.service';
 import { DEMO_ACCOUNTS, hasAnyAgency, seedDemo } from './seed/seed';
 
-export type Running = { server: Server; deps: Deps; url: string; catcher: MailCatcher | null; stop: () => Promise<void> };
+export type Running = {
+  server: Server;
+  deps: Deps;
+  url: string;
+  catcher: MailCatcher | null;
+  stop: () => Promise<void>;
+};
 
 /** Opens the database, seeds the demo on a fresh file, starts the catcher and listens. */
 export async function startWearcourse(config: AppConfig, log = console.log): Promise<Running> {
@@ -37,7 +43,11 @@ export async function startWearcourse(config: AppConfig, log = console.log): Pro
   // With PORT=0 the real port is known only now; links in mail must use it.
   if (config.appUrlFromPort) config.appUrl = url;
   log(`Wearcourse is running at ${url}  (database ${config.databasePath}${seeded ? ', demo seeded' : ''})`);
-  log(catcher ? `Mail goes to the local catcher on 127.0.0.1:${catcher.port}; admins read it under "Sent mail".` : 'Mail goes to SMTP_URL.');
+  log(
+    catcher
+      ? `Mail goes to the local catcher on 127.0.0.1:${catcher.port}; admins read it under "Sent mail".`
+      : 'Mail goes to SMTP_URL.',
+  );
   if (config.env !== 'production' && config.seedDemo) {
     log(`Demo accounts (password ${DEMO_PASSWORD}):`);
     for (const a of DEMO_ACCOUNTS) log(`  ${a.email.padEnd(28)} ${a.note}`);

@@ -6,7 +6,10 @@ import { agencies, memberships } from '../db/schema';
 
 export function membershipFor(db: Db, userId: string, agencyId: string): Role | null {
   // Asked on every agency request: a cached prepared statement rather than the query builder.
-  const row = statement(db.$client, 'SELECT role FROM memberships WHERE user_id = ? AND agency_id = ?').get(userId, agencyId) as { role: Role } | undefined;
+  const row = statement(db.$client, 'SELECT role FROM memberships WHERE user_id = ? AND agency_id = ?').get(
+    userId,
+    agencyId,
+  ) as { role: Role } | undefined;
   return row?.role ?? null;
 }
 

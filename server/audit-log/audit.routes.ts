@@ -24,7 +24,16 @@ function query(deps: Deps, agencyId: string, q: AuditQuery, all = false) {
   if (q.to) parts.push(lte(auditLog.at, `${q.to}T23:59:59.999Z`));
   const where = and(...parts);
   const base = deps.db
-    .select({ id: auditLog.id, at: auditLog.at, action: auditLog.action, entity: auditLog.entity, entityId: auditLog.entityId, detail: auditLog.detail, userName: users.name, userEmail: users.email })
+    .select({
+      id: auditLog.id,
+      at: auditLog.at,
+      action: auditLog.action,
+      entity: auditLog.entity,
+      entityId: auditLog.entityId,
+      detail: auditLog.detail,
+      userName: users.name,
+      userEmail: users.email,
+    })
     .from(auditLog)
     .leftJoin(users, eq(users.id, auditLog.userId))
     .where(where)
@@ -36,7 +45,16 @@ function query(deps: Deps, agencyId: string, q: AuditQuery, all = false) {
 
 export function auditRoutes(api: ApiRoutes, deps: Deps) {
   const admin = { kind: 'agency', role: 'admin' } as const;
-  api.add({ method: 'get', path: '/api/agencies/:agencyId/audit', tag: 'Activity', summary: 'The audit trail: who changed what and when (before/after of the changed fields)', access: admin, params: AgencyParamsSchema, query: AuditQuerySchema, handler: ({ agency, query: q }) => query(deps, agency!.id, q) });
+  api.add({
+    method: 'get',
+    path: '/api/agencies/:agencyId/audit',
+    tag: 'Activity',
+    summary: 'The audit trail: who changed what and when (before/after of the changed fields)',
+    access: admin,
+    params: AgencyParamsSchema,
+    query: AuditQuerySchema,
+    handler: ({ agency, query: q }) => query(deps, agency!.id, q),
+  });
   api.add({
     method: 'get',
     path: '/api/agencies/:agencyId/audit.csv',
@@ -50,7 +68,9 @@ export function auditRoutes(api: ApiRoutes, deps: Deps) {
       const { items } = query(deps, agency!.id, q, true);
       res.setHeader('Content-Type', 'text/csv; charset=utf-8');
       res.setHeader('Content-Disposition', 'attachment; filename="activity.csv"');
-      res.send(`${Papa.unparse({ fields: ['at', 'user', 'action', 'entity', 'entity_id', 'detail'], data: items.map((i) => [i.at, i.userEmail ?? '', i.action, i.entity, i.entityId ?? '', i.detail ? JSON.stringify(i.detail) : '']) })}\n`);
+      res.send(
+        `${Papa.unparse({ fields: ['at', 'user', 'action', 'entity', 'entity_id', 'detail'], data: items.map((i) => [i.at, i.userEmail ?? '', i.action, i.entity, i.entityId ?? '', i.detail ? JSON.stringify(i.detail) : '']) })}\n`,
+      );
     },
   });
 }

@@ -25,7 +25,9 @@ export function authRoutes(api: ApiRoutes, deps: Deps, pp: PassportStatic) {
       // Keyed by address and account, so one office behind one address is not locked out together.
       keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${keyOf((req.body ?? {}) as Record<string, unknown>)}`,
       handler: (_req, res) =>
-        res.status(429).json({ error: { code: 'rate_limited', message: 'Too many attempts. Wait 15 minutes and try again.' } }),
+        res
+          .status(429)
+          .json({ error: { code: 'rate_limited', message: 'Too many attempts. Wait 15 minutes and try again.' } }),
     });
   const byEmail = (b: Record<string, unknown>) => String(b.email ?? '').toLowerCase();
   const signInLimit = limiter(deps.config.signInRateLimit, byEmail);

@@ -39,10 +39,15 @@ export async function resetPassword(deps: Deps, token: string, password: string)
     .select()
     .from(passwordResets)
     .where(
-      and(eq(passwordResets.tokenHash, hashToken(token)), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, now)),
+      and(
+        eq(passwordResets.tokenHash, hashToken(token)),
+        isNull(passwordResets.usedAt),
+        gt(passwordResets.expiresAt, now),
+      ),
     )
     .get();
-  if (!row) throw new HttpError(400, 'invalid_token', 'This reset link is invalid, used or expired. Ask for a new one.');
+  if (!row)
+    throw new HttpError(400, 'invalid_token', 'This reset link is invalid, used or expired. Ask for a new one.');
   const passwordHash = await hashPassword(password);
   deps.db.transaction((tx) => {
     // Mark used first and check the count: two racing requests cannot both win.
@@ -103,7 +108,11 @@ export async function acceptInvitation(
   let newUser: { id: string; email: string; name: string; passwordHash: string } | null = null;
   if (existing) {
     if (!(await verifyPassword(input.password, existing.passwordHash))) {
-      throw new HttpError(401, 'invalid_credentials', 'That is not the password of the existing account for this e-mail');
+      throw new HttpError(
+        401,
+        'invalid_credentials',
+        'That is not the password of the existing account for this e-mail',
+      );
     }
     userId = existing.id;
   } else {

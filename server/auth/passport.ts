@@ -41,7 +41,9 @@ export function createPassport(deps: Deps): PassportStatic {
     done(null, { id: u.id, v: row?.v ?? 1 } satisfies SessionRecord);
   });
   pp.deserializeUser((record: SessionRecord, done) => {
-    const row = statement(deps.sqlite, 'SELECT id, email, name, session_version AS v FROM users WHERE id = ?').get(record.id) as (SessionUser & { v: number }) | undefined;
+    const row = statement(deps.sqlite, 'SELECT id, email, name, session_version AS v FROM users WHERE id = ?').get(
+      record.id,
+    ) as (SessionUser & { v: number }) | undefined;
     // A password change bumps the version: sessions from before it end here.
     if (!row || row.v !== record.v) return done(null, false);
     done(null, { id: row.id, email: row.email, name: row.name } satisfies SessionUser);

@@ -44,15 +44,29 @@ export function listMixes(db: Db, agencyId: string) {
 }
 
 export function listTreatments(db: Db, agencyId: string) {
-  return db.select().from(treatments).where(eq(treatments.agencyId, agencyId)).orderBy(treatments.createdAt).all().map(toTreatment);
+  return db
+    .select()
+    .from(treatments)
+    .where(eq(treatments.agencyId, agencyId))
+    .orderBy(treatments.createdAt)
+    .all()
+    .map(toTreatment);
 }
 
 export function mixRow(db: Db, agencyId: string, id: string) {
-  return db.select().from(mixes).where(and(eq(mixes.agencyId, agencyId), eq(mixes.id, id))).get();
+  return db
+    .select()
+    .from(mixes)
+    .where(and(eq(mixes.agencyId, agencyId), eq(mixes.id, id)))
+    .get();
 }
 
 export function treatmentRow(db: Db, agencyId: string, id: string) {
-  return db.select().from(treatments).where(and(eq(treatments.agencyId, agencyId), eq(treatments.id, id))).get();
+  return db
+    .select()
+    .from(treatments)
+    .where(and(eq(treatments.agencyId, agencyId), eq(treatments.id, id)))
+    .get();
 }
 
 export function economicsOf(db: Db, agencyId: string): Economics {
@@ -78,5 +92,15 @@ export function history(db: Db, agencyId: string) {
     .orderBy(desc(priceHistory.id))
     .limit(500)
     .all()
-    .map(({ h, userName }) => ({ entity: h.entity, entityId: h.entityId, name: h.name, field: h.field, before: h.before ? JSON.parse(h.before) : null, after: h.after ? JSON.parse(h.after) : null, effectiveDate: h.effectiveDate, at: h.at, userName }));
+    .map(({ h, userName }) => ({
+      entity: h.entity,
+      entityId: h.entityId,
+      name: h.name,
+      field: h.field,
+      before: h.before ? JSON.parse(h.before) : null,
+      after: h.after ? JSON.parse(h.after) : null,
+      effectiveDate: h.effectiveDate,
+      at: h.at,
+      userName,
+    }));
 }

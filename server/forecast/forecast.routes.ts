@@ -10,7 +10,8 @@ export function forecastRoutes(api: ApiRoutes, deps: Deps) {
     method: 'get',
     path: '/api/agencies/:agencyId/forecast/families',
     tag: 'Forecast',
-    summary: 'Pavement families with their deterioration curve (fitted by least squares where there are enough surveys), n, RMSE and the survey points',
+    summary:
+      'Pavement families with their deterioration curve (fitted by least squares where there are enough surveys), n, RMSE and the survey points',
     access: { kind: 'agency', role: 'engineer' },
     params: AgencyParamsSchema,
     query: z.object({ points: z.enum(['true', 'false']).default('true') }),

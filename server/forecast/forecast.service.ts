@@ -11,12 +11,27 @@ export type Family = FamilyView;
 /** Every family's curve: fitted where it has enough surveys, else the default or the agency's own edit. */
 export function families(deps: Deps, agencyId: string, withPoints = true): Family[] {
   const rows = deps.db
-    .select({ ref: segments.id, surface: segments.surface, cls: segments.functionalClass, lastTreatment: segments.lastTreatment, lastYear: segments.lastTreatmentYear, date: surveys.surveyDate, pci: surveys.pci })
+    .select({
+      ref: segments.id,
+      surface: segments.surface,
+      cls: segments.functionalClass,
+      lastTreatment: segments.lastTreatment,
+      lastYear: segments.lastTreatmentYear,
+      date: surveys.surveyDate,
+      pci: surveys.pci,
+    })
     .from(segments)
     .leftJoin(surveys, eq(surveys.segmentRef, segments.id))
     .where(eq(segments.agencyId, agencyId))
     .all();
-  const overrides = new Map(deps.db.select().from(curveOverrides).where(eq(curveOverrides.agencyId, agencyId)).all().map((o) => [o.familyKey, { p0: o.p0, a: o.a, b: o.b }]));
+  const overrides = new Map(
+    deps.db
+      .select()
+      .from(curveOverrides)
+      .where(eq(curveOverrides.agencyId, agencyId))
+      .all()
+      .map((o) => [o.familyKey, { p0: o.p0, a: o.a, b: o.b }]),
+  );
   const fams = new Map<string, { segs: Set<number>; pts: FitPoint[]; surface: string }>();
   for (const r of rows) {
     if (r.surface === 'gravel') continue;
@@ -62,9 +77,21 @@ export function families(deps: Deps, agencyId: string, withPoints = true): Famil
 
 export function setOverride(deps: Deps, agencyId: string, userId: string, key: string, curve: Curve | null) {
   deps.db.transaction((tx) => {
-    tx.delete(curveOverrides).where(and(eq(curveOverrides.agencyId, agencyId), eq(curveOverrides.familyKey, key))).run();
-    if (curve) tx.insert(curveOverrides).values({ agencyId, familyKey: key, ...curve }).run();
-    recordAudit(tx, { agencyId, userId, action: curve ? 'forecast.curve.edit' : 'forecast.curve.reset', entity: 'curve', entityId: key, detail: curve });
+    tx.delete(curveOverrides)
+      .where(and(eq(curveOverrides.agencyId, agencyId), eq(curveOverrides.familyKey, key)))
+      .run();
+    if (curve)
+      tx.insert(curveOverrides)
+        .values({ agencyId, familyKey: key, ...curve })
+        .run();
+    recordAudit(tx, {
+      agencyId,
+      userId,
+      action: curve ? 'forecast.curve.edit' : 'forecast.curve.reset',
+      entity: 'curve',
+      entityId: key,
+      detail: curve,
+    });
   });
 }
 

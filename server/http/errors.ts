@@ -37,7 +37,11 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
     status = 400;
     const issues = zodIssues(err);
     body = {
-      error: { code: 'invalid_request', message: `Invalid request: ${issues.map((i) => `${i.path || '(body)'} — ${i.message}`).join('; ')}`, issues },
+      error: {
+        code: 'invalid_request',
+        message: `Invalid request: ${issues.map((i) => `${i.path || '(body)'} — ${i.message}`).join('; ')}`,
+        issues,
+      },
     };
   } else if (err && typeof err === 'object' && 'type' in err && typeof err.status === 'number' && err.status < 500) {
     // body-parser errors: malformed JSON, too large, wrong charset…

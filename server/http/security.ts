@@ -45,7 +45,10 @@ export function originCheck(appUrl: () => string): RequestHandler {
     }
     if (host && (host === allowed || host === req.get('host'))) return next();
     res.status(403).json({
-      error: { code: 'bad_origin', message: 'Cross-site or origin-less request refused; send an Origin header for this server' },
+      error: {
+        code: 'bad_origin',
+        message: 'Cross-site or origin-less request refused; send an Origin header for this server',
+      },
     });
   };
 }

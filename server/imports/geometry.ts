@@ -5,7 +5,9 @@ import proj4 from 'proj4';
 import type { Geometry } from './read-file';
 
 type Position = number[];
-export type LineGeometry = { type: 'LineString'; coordinates: Position[] } | { type: 'MultiLineString'; coordinates: Position[][] };
+export type LineGeometry =
+  | { type: 'LineString'; coordinates: Position[] }
+  | { type: 'MultiLineString'; coordinates: Position[][] };
 
 let epsgIndex: Record<string, { proj4?: string; name?: string }> | null = null;
 
@@ -28,14 +30,16 @@ export function geometryProblem(g: Geometry | null | undefined): string | null {
   if (!g) return null;
   if (g.type === 'LineString') {
     const c = g.coordinates;
-    if (!Array.isArray(c) || c.length < 2 || !c.every(isPosition)) return 'a LineString needs at least two [x, y] positions of finite numbers';
+    if (!Array.isArray(c) || c.length < 2 || !c.every(isPosition))
+      return 'a LineString needs at least two [x, y] positions of finite numbers';
     return null;
   }
   if (g.type === 'MultiLineString') {
     const c = g.coordinates;
     if (!Array.isArray(c) || c.length === 0) return 'the MultiLineString has no lines';
     for (const line of c) {
-      if (!Array.isArray(line) || line.length < 2 || !line.every(isPosition)) return 'each line of a MultiLineString needs at least two positions of finite numbers';
+      if (!Array.isArray(line) || line.length < 2 || !line.every(isPosition))
+        return 'each line of a MultiLineString needs at least two positions of finite numbers';
     }
     return null;
   }

@@ -70,7 +70,14 @@ export function rejectedCsv(db: Db, agencyId: string, importId: string) {
 }
 
 /** Upserts a survey row and lifts the segment's latest PCI when the survey is newer. */
-export function upsertSurvey(tx: Tx, agencyId: string, segmentRef: number, surveyDate: string, pci: number, source: string | null) {
+export function upsertSurvey(
+  tx: Tx,
+  agencyId: string,
+  segmentRef: number,
+  surveyDate: string,
+  pci: number,
+  source: string | null,
+) {
   tx.insert(surveys)
     .values({ agencyId, segmentRef, surveyDate, pci, source })
     .onConflictDoUpdate({ target: [surveys.segmentRef, surveys.surveyDate], set: { pci, source } })
@@ -117,18 +124,30 @@ export function segmentWriter(sqlite: Sqlite, agencyId: string) {
   const surveyUpsert = sqlite.prepare(
     'INSERT INTO surveys (agency_id, segment_ref, survey_date, pci, source) VALUES (?, ?, ?, ?, ?) ON CONFLICT (segment_ref, survey_date) DO UPDATE SET pci = excluded.pci, source = excluded.source',
   );
-  const liftLatest = sqlite.prepare('UPDATE segments SET pci = ?, pci_date = ? WHERE id = ? AND (pci_date IS NULL OR pci_date <= ?)');
+  const liftLatest = sqlite.prepare(
+    'UPDATE segments SET pci = ?, pci_date = ? WHERE id = ? AND (pci_date IS NULL OR pci_date <= ?)',
+  );
   const setPci = sqlite.prepare('UPDATE segments SET pci = ? WHERE id = ?');
-  const audit = sqlite.prepare('INSERT INTO audit_log (agency_id, user_id, action, entity, entity_id, detail) VALUES (?, ?, ?, ?, ?, ?)');
+  const audit = sqlite.prepare(
+    'INSERT INTO audit_log (agency_id, user_id, action, entity, entity_id, detail) VALUES (?, ?, ?, ?, ?, ?)',
+  );
   return {
     insert(segmentId: string, patch: Record<string, unknown>): number {
       const keys = Object.keys(patch).sort();
-      const s = stmt(`i:${keys.join(',')}`, () => `INSERT INTO segments (agency_id, segment_id, ${keys.map((k) => COLUMN[k]).join(', ')}) VALUES (?, ?, ${keys.map(() => '?').join(', ')})`);
+      const s = stmt(
+        `i:${keys.join(',')}`,
+        () =>
+          `INSERT INTO segments (agency_id, segment_id, ${keys.map((k) => COLUMN[k]).join(', ')}) VALUES (?, ?, ${keys.map(() => '?').join(', ')})`,
+      );
       return Number(s.run(agencyId, segmentId, ...keys.map((k) => patch[k] ?? null)).lastInsertRowid);
     },
     update(id: number, patch: Record<string, unknown>, at: string) {
       const keys = Object.keys(patch).sort();
-      const s = stmt(`u:${keys.join(',')}`, () => `UPDATE segments SET ${keys.map((k) => `${COLUMN[k]} = ?`).join(', ')}, updated_at = ? WHERE id = ? AND agency_id = ?`);
+      const s = stmt(
+        `u:${keys.join(',')}`,
+        () =>
+          `UPDATE segments SET ${keys.map((k) => `${COLUMN[k]} = ?`).join(', ')}, updated_at = ? WHERE id = ? AND agency_id = ?`,
+      );
       s.run(...keys.map((k) => patch[k] ?? null), at, id, agencyId);
     },
     survey(segmentRef: number, surveyDate: string, pci: number, source: string | null) {

@@ -2,7 +2,13 @@ import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import { AgencyParamsSchema } from '../../shared/schemas/common';
-import { ImportHistorySchema, ImportOptionsSchema, ImportParamsSchema, ImportReportSchema, SavedMappingSchema } from '../../shared/schemas/imports';
+import {
+  ImportHistorySchema,
+  ImportOptionsSchema,
+  ImportParamsSchema,
+  ImportReportSchema,
+  SavedMappingSchema,
+} from '../../shared/schemas/imports';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
 import { HttpError } from '../http/errors';
@@ -24,8 +30,17 @@ const uploadOne: RequestHandler = (req, res, next) => {
   upload(req, res, (err: unknown) => {
     if (!err) return next();
     if (err instanceof multer.MulterError) {
-      if (err.code === 'LIMIT_FILE_SIZE') return next(new HttpError(413, 'file_too_large', `The file is larger than the ${MAX_UPLOAD_BYTES / 1024 / 1024} MB limit`));
-      return next(new HttpError(400, 'bad_upload', `Upload refused: ${err.message}${err.field ? ` (${err.field})` : ''}`));
+      if (err.code === 'LIMIT_FILE_SIZE')
+        return next(
+          new HttpError(
+            413,
+            'file_too_large',
+            `The file is larger than the ${MAX_UPLOAD_BYTES / 1024 / 1024} MB limit`,
+          ),
+        );
+      return next(
+        new HttpError(400, 'bad_upload', `Upload refused: ${err.message}${err.field ? ` (${err.field})` : ''}`),
+      );
     }
     next(new HttpError(400, 'bad_upload', 'The upload could not be read as multipart/form-data'));
   });
@@ -45,10 +60,27 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
     response: ImportReportSchema,
     before: [uploadOne],
     handler: async ({ agency, user, body, req, res }) => {
-      if (!req.file) throw new HttpError(400, 'invalid_request', 'Invalid request: file — attach the file in the multipart field "file"', [{ path: 'file', message: 'is required' }]);
+      if (!req.file)
+        throw new HttpError(
+          400,
+          'invalid_request',
+          'Invalid request: file — attach the file in the multipart field "file"',
+          [{ path: 'file', message: 'is required' }],
+        );
       // Path tricks in a client's file name are cut to the bare name; it is only ever a label.
-      const name = req.file.originalname.split(/[\\/]/).pop()!.replace(/[^\w.\- ()]/g, '_').slice(0, 200) || 'upload';
-      const { status, report } = await service.runImport(deps, agency!.id, user!.id, { name, buffer: req.file.buffer }, body);
+      const name =
+        req.file.originalname
+          .split(/[\\/]/)
+          .pop()!
+          .replace(/[^\w.\- ()]/g, '_')
+          .slice(0, 200) || 'upload';
+      const { status, report } = await service.runImport(
+        deps,
+        agency!.id,
+        user!.id,
+        { name, buffer: req.file.buffer },
+        body,
+      );
       res.status(status).json(report);
     },
   });

@@ -7,21 +7,52 @@ type Field = SegmentField | SurveyField;
 const norm = (s: string) => s.toLowerCase().replace(/[^a-z0-9]/g, '');
 
 const SYNONYMS: Record<Field, string[]> = {
-  segment_id: ['segmentid', 'segid', 'id', 'sectionid', 'section', 'segment', 'segno', 'segmentno', 'assetid', 'roadsegid'],
+  segment_id: [
+    'segmentid',
+    'segid',
+    'id',
+    'sectionid',
+    'section',
+    'segment',
+    'segno',
+    'segmentno',
+    'assetid',
+    'roadsegid',
+  ],
   road_name: ['roadname', 'road', 'street', 'streetname', 'name', 'route', 'fullname'],
   from_desc: ['fromdesc', 'from', 'fromstreet', 'begin', 'beginsat', 'start', 'fromloc', 'fromlocation'],
   to_desc: ['todesc', 'to', 'tostreet', 'end', 'endsat', 'toloc', 'tolocation'],
   length_mi: ['lengthmi', 'length', 'len', 'lengthmiles', 'miles', 'lengthkm', 'lengthft', 'lengthm', 'km'],
   width_ft: ['widthft', 'width', 'pavementwidth', 'pavewidth', 'widthm'],
   lanes: ['lanes', 'numlanes', 'lanecount', 'nlanes', 'nolanes', 'numberoflanes'],
-  functional_class: ['functionalclass', 'funcclass', 'fclass', 'class', 'fc', 'functionalclassification', 'roadclass', 'functional', 'functiona', 'funcclas'],
+  functional_class: [
+    'functionalclass',
+    'funcclass',
+    'fclass',
+    'class',
+    'fc',
+    'functionalclassification',
+    'roadclass',
+    'functional',
+    'functiona',
+    'funcclas',
+  ],
   surface: ['surface', 'surfacetype', 'pavementtype', 'surftype', 'pavetype', 'pavement'],
   adt: ['adt', 'aadt', 'traffic', 'dailytraffic', 'trafficvolume'],
   truck_pct: ['truckpct', 'truckpercent', 'trucks', 'pcttrucks', 'truck', 'trucksharepct', 'heavyvehiclepct'],
   pci: ['pci', 'condition', 'pavementconditionindex', 'pciscore'],
   pci_date: ['pcidate', 'surveydate', 'inspectiondate', 'conditiondate', 'ratingdate', 'date'],
   last_treatment: ['lasttreatment', 'treatment', 'lastwork', 'lastmaintenance'],
-  last_treatment_year: ['lasttreatmentyear', 'treatmentyear', 'yearlasttreated', 'lastworkyear', 'yearpaved', 'lasttreatm', 'lasttrea1', 'treatyear'],
+  last_treatment_year: [
+    'lasttreatmentyear',
+    'treatmentyear',
+    'yearlasttreated',
+    'lastworkyear',
+    'yearpaved',
+    'lasttreatm',
+    'lasttrea1',
+    'treatyear',
+  ],
   district: ['district', 'zone', 'area', 'maintenancedistrict', 'ward'],
   notes: ['notes', 'comments', 'remarks', 'note'],
   geometry: ['geometry', 'wkt', 'geom', 'thegeom', 'shape', 'geometrywkt'],
@@ -65,7 +96,13 @@ export function unitsFromHeaders(mapping: Record<string, string>) {
   const len = norm(mapping.length_mi ?? '');
   const wid = norm(mapping.width_ft ?? '');
   const metres = /met(re|er)s?$/;
-  const length = /(km|kilometres|kilometers)$/.test(len) ? 'km' : /(ft|feet)$/.test(len) ? 'ft' : len === 'lengthm' || metres.test(len) ? 'm' : 'mi';
+  const length = /(km|kilometres|kilometers)$/.test(len)
+    ? 'km'
+    : /(ft|feet)$/.test(len)
+      ? 'ft'
+      : len === 'lengthm' || metres.test(len)
+        ? 'm'
+        : 'mi';
   const width = wid === 'widthm' || metres.test(wid) ? 'm' : 'ft';
   return { length: length as 'mi' | 'km' | 'ft' | 'm', width: width as 'ft' | 'm' };
 }

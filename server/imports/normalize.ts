@@ -109,8 +109,19 @@ function num(
 ): number | null {
   const raw = cell(values, ctx, field, !!opts.required);
   if (raw === null) return null;
-  const cleaned = typeof raw === 'number' ? raw : String(raw).trim().replace(/,(?=\d{3}(\D|$))/g, '').replace(/%$/, '');
-  const n = typeof cleaned === 'number' ? cleaned : /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(cleaned) ? Number(cleaned) : Number.NaN;
+  const cleaned =
+    typeof raw === 'number'
+      ? raw
+      : String(raw)
+          .trim()
+          .replace(/,(?=\d{3}(\D|$))/g, '')
+          .replace(/%$/, '');
+  const n =
+    typeof cleaned === 'number'
+      ? cleaned
+      : /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(cleaned)
+        ? Number(cleaned)
+        : Number.NaN;
   if (!Number.isFinite(n)) {
     fail(ctx, field, raw, 'is not a number');
     return null;
@@ -147,7 +158,13 @@ function date(values: Record<string, Cell>, ctx: Ctx, field: string, required = 
   return s;
 }
 
-function choice<T extends string>(values: Record<string, Cell>, ctx: Ctx, field: string, aliases: Record<string, T>, allowed: readonly string[]): T | null {
+function choice<T extends string>(
+  values: Record<string, Cell>,
+  ctx: Ctx,
+  field: string,
+  aliases: Record<string, T>,
+  allowed: readonly string[],
+): T | null {
   const v = cell(values, ctx, field, true);
   if (v === null) return null;
   const hit = aliases[key(String(v))];
@@ -160,15 +177,31 @@ function choice<T extends string>(values: Record<string, Cell>, ctx: Ctx, field:
 
 export type Units = { length: 'mi' | 'km' | 'ft' | 'm'; width: 'ft' | 'm' };
 
-const toMiles = (v: number, u: Units['length']) => (u === 'mi' ? v : u === 'km' ? v / KM_PER_MILE : u === 'ft' ? v / FT_PER_MILE : v / M_PER_FT / FT_PER_MILE);
+const toMiles = (v: number, u: Units['length']) =>
+  u === 'mi' ? v : u === 'km' ? v / KM_PER_MILE : u === 'ft' ? v / FT_PER_MILE : v / M_PER_FT / FT_PER_MILE;
 const toFeet = (v: number, u: Units['width']) => (u === 'ft' ? v : v / M_PER_FT);
 
 export function normalizeSegmentRow(r: RawRow, mapping: Record<string, string>, units: Units) {
   const ctx: Ctx = { row: r.row, errors: [], warnings: [], mapping };
   const v = r.values;
-  if (typeof v.__extra === 'string') ctx.errors.push({ row: r.row, column: '(row)', value: '', message: `has ${v.__extra}; check the separators and quotes` });
-  const lengthRaw = num(v, ctx, 'length_mi', { min: 0, minExclusive: true, max: units.length === 'ft' ? 528_000 : units.length === 'm' ? 160_000 : units.length === 'km' ? 160 : 100 });
-  const widthRaw = num(v, ctx, 'width_ft', { min: 0, minExclusive: true, max: units.width === 'm' ? 60 : 200, required: true });
+  if (typeof v.__extra === 'string')
+    ctx.errors.push({
+      row: r.row,
+      column: '(row)',
+      value: '',
+      message: `has ${v.__extra}; check the separators and quotes`,
+    });
+  const lengthRaw = num(v, ctx, 'length_mi', {
+    min: 0,
+    minExclusive: true,
+    max: units.length === 'ft' ? 528_000 : units.length === 'm' ? 160_000 : units.length === 'km' ? 160 : 100,
+  });
+  const widthRaw = num(v, ctx, 'width_ft', {
+    min: 0,
+    minExclusive: true,
+    max: units.width === 'm' ? 60 : 200,
+    required: true,
+  });
   const seg: SegmentInput = {
     segmentId: text(v, ctx, 'segment_id', 60, true) ?? '',
     roadName: text(v, ctx, 'road_name', 120, true) ?? '',
@@ -188,11 +221,25 @@ export function normalizeSegmentRow(r: RawRow, mapping: Record<string, string>, 
     district: text(v, ctx, 'district', 60),
     notes: text(v, ctx, 'notes', 2000),
   };
-  if (seg.pci !== null && seg.pciDate === null && !ctx.errors.some((e) => e.column === (mapping.pci_date ?? 'pci_date'))) {
-    ctx.warnings.push({ row: r.row, column: mapping.pci ?? 'pci', value: String(seg.pci), message: 'has no survey date; it updates the latest PCI but is not added to the survey history' });
+  if (
+    seg.pci !== null &&
+    seg.pciDate === null &&
+    !ctx.errors.some((e) => e.column === (mapping.pci_date ?? 'pci_date'))
+  ) {
+    ctx.warnings.push({
+      row: r.row,
+      column: mapping.pci ?? 'pci',
+      value: String(seg.pci),
+      message: 'has no survey date; it updates the latest PCI but is not added to the survey history',
+    });
   }
   if (seg.surface === 'gravel' && seg.pci !== null) {
-    ctx.warnings.push({ row: r.row, column: mapping.pci ?? 'pci', value: String(seg.pci), message: 'PCI on a gravel road is unusual (PCI rates paved surfaces)' });
+    ctx.warnings.push({
+      row: r.row,
+      column: mapping.pci ?? 'pci',
+      value: String(seg.pci),
+      message: 'PCI on a gravel road is unusual (PCI rates paved surfaces)',
+    });
   }
   return { seg, errors: ctx.errors, warnings: ctx.warnings };
 }

@@ -51,7 +51,8 @@ function checkColumns(columns: string[]) {
 /** The sizes a zip declares for its parts, read from its directory without inflating anything. */
 export function zipExpandedBytes(zip: JSZip) {
   let total = 0;
-  for (const f of Object.values(zip.files)) total += (f as unknown as { _data?: { uncompressedSize?: number } })._data?.uncompressedSize ?? 0;
+  for (const f of Object.values(zip.files))
+    total += (f as unknown as { _data?: { uncompressedSize?: number } })._data?.uncompressedSize ?? 0;
   return total;
 }
 
@@ -74,7 +75,8 @@ export function readCsv(buf: Buffer): RawTable {
   for (let i = 1; i < data.length; i++) {
     const line = data[i];
     if (line.every((v) => String(v).trim() === '')) continue;
-    if (rows.length >= MAX_ROWS) throw fileError(`The file has more than ${MAX_ROWS.toLocaleString('en-US')} rows; split it.`);
+    if (rows.length >= MAX_ROWS)
+      throw fileError(`The file has more than ${MAX_ROWS.toLocaleString('en-US')} rows; split it.`);
     const values: Record<string, Cell> = {};
     header.forEach((h, j) => {
       const v = line[j];
@@ -97,7 +99,13 @@ function cellValue(v: ExcelJS.CellValue): Cell {
   if (v instanceof Date) return v.toISOString().slice(0, 10);
   if (typeof v === 'object') {
     if ('result' in v) return cellValue(v.result as ExcelJS.CellValue);
-    if ('richText' in v) return v.richText.map((r) => r.text).join('').trim() || null;
+    if ('richText' in v)
+      return (
+        v.richText
+          .map((r) => r.text)
+          .join('')
+          .trim() || null
+      );
     if ('text' in v) return String(v.text).trim() || null;
     if ('error' in v) return null;
   }
@@ -114,7 +122,9 @@ export async function readXlsx(buf: Buffer): Promise<RawTable> {
   }
   const expanded = zipExpandedBytes(zip);
   if (expanded > MAX_WORKBOOK_EXPANDED_BYTES) {
-    throw fileError(`This workbook expands to ${Math.round(expanded / 1024 / 1024)} MB when unzipped, more than the ${MAX_WORKBOOK_EXPANDED_BYTES / 1024 / 1024} MB limit; save it as CSV or split it.`);
+    throw fileError(
+      `This workbook expands to ${Math.round(expanded / 1024 / 1024)} MB when unzipped, more than the ${MAX_WORKBOOK_EXPANDED_BYTES / 1024 / 1024} MB limit; save it as CSV or split it.`,
+    );
   }
   if (!zip.file('[Content_Types].xml')) throw fileError('This zip is not an Excel workbook (.xlsx).');
   const wb = new ExcelJS.Workbook();
@@ -125,7 +135,8 @@ export async function readXlsx(buf: Buffer): Promise<RawTable> {
   }
   const sheet = wb.worksheets.find((s) => s.actualRowCount > 0);
   if (!sheet) throw fileError('The workbook is empty.');
-  if (sheet.actualRowCount > MAX_ROWS + 1) throw fileError(`The sheet has more than ${MAX_ROWS.toLocaleString('en-US')} rows; split it.`);
+  if (sheet.actualRowCount > MAX_ROWS + 1)
+    throw fileError(`The sheet has more than ${MAX_ROWS.toLocaleString('en-US')} rows; split it.`);
   let headerRow = 0;
   let header: string[] = [];
   const rows: RawRow[] = [];
@@ -163,7 +174,8 @@ function crsFromGeoJson(doc: { crs?: { properties?: { name?: string } } }): stri
 
 export function tableFromFeatures(features: GeoFeature[], format: FileFormat, crsHint: string | null): RawTable {
   if (features.length === 0) throw fileError('The file has no features.');
-  if (features.length > MAX_ROWS) throw fileError(`The file has more than ${MAX_ROWS.toLocaleString('en-US')} features; split it.`);
+  if (features.length > MAX_ROWS)
+    throw fileError(`The file has more than ${MAX_ROWS.toLocaleString('en-US')} features; split it.`);
   const columns: string[] = [];
   const seen = new Set<string>();
   const rows: RawRow[] = features.map((f, i) => {
@@ -209,7 +221,11 @@ export async function readShapefileZip(buf: Buffer): Promise<RawTable> {
     throw fileError(`This zip does not hold a readable shapefile (.shp, .dbf, .prj): ${(err as Error).message}`);
   }
   const collections = (Array.isArray(result) ? result : [result]) as { features: GeoFeature[] }[];
-  return tableFromFeatures(collections.flatMap((c) => c.features ?? []), 'shapefile', null);
+  return tableFromFeatures(
+    collections.flatMap((c) => c.features ?? []),
+    'shapefile',
+    null,
+  );
 }
 
 export async function readTable(fileName: string, buf: Buffer): Promise<RawTable> {

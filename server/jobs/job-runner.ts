@@ -26,10 +26,24 @@ export class JobRunner {
 
   start(agencyId: string, kind: string, taskUrl: URL, payload: unknown, onEnd?: (r: RunState) => void): RunState {
     const active = [...this.runs.values()].filter((r) => r.agencyId === agencyId && r.status === 'running').length;
-    if (active >= this.maxPerAgency) throw new HttpError(429, 'too_many_runs', `This agency already has ${active} heavy runs going; wait for one to finish or cancel it`);
+    if (active >= this.maxPerAgency)
+      throw new HttpError(
+        429,
+        'too_many_runs',
+        `This agency already has ${active} heavy runs going; wait for one to finish or cancel it`,
+      );
     const id = randomUUID();
     const worker = new Worker(bootstrap, { workerData: { entry: taskUrl.href, payload } });
-    const run: RunState & { worker?: Worker; onEnd?: (r: RunState) => void } = { id, agencyId, kind, status: 'running', progress: 0, startedAt: new Date().toISOString(), worker, onEnd };
+    const run: RunState & { worker?: Worker; onEnd?: (r: RunState) => void } = {
+      id,
+      agencyId,
+      kind,
+      status: 'running',
+      progress: 0,
+      startedAt: new Date().toISOString(),
+      worker,
+      onEnd,
+    };
     this.runs.set(id, run);
     const end = (patch: Partial<RunState>) => {
       if (run.status !== 'running') return;
@@ -39,11 +53,14 @@ export class JobRunner {
       run.onEnd?.(this.view(run));
       setTimeout(() => this.runs.delete(id), KEEP_MS).unref();
     };
-    worker.on('message', (m: { type: string; progress?: number; result?: unknown; error?: { message: string; path?: string } }) => {
-      if (m.type === 'progress') run.progress = m.progress ?? run.progress;
-      else if (m.type === 'done') end({ status: 'done', progress: 1, result: m.result });
-      else if (m.type === 'error') end({ status: 'failed', error: m.error });
-    });
+    worker.on(
+      'message',
+      (m: { type: string; progress?: number; result?: unknown; error?: { message: string; path?: string } }) => {
+        if (m.type === 'progress') run.progress = m.progress ?? run.progress;
+        else if (m.type === 'done') end({ status: 'done', progress: 1, result: m.result });
+        else if (m.type === 'error') end({ status: 'failed', error: m.error });
+      },
+    );
     worker.on('error', (err) => end({ status: 'failed', error: { message: err.message } }));
     worker.on('exit', (code) => {
       if (run.status === 'running') end({ status: 'failed', error: { message: `the worker stopped (exit ${code})` } });

@@ -16,5 +16,8 @@ try {
   });
   parentPort!.postMessage({ type: 'done', result });
 } catch (err) {
-  parentPort!.postMessage({ type: 'error', error: { message: (err as Error).message, path: err instanceof StudyInputError ? err.path : undefined } });
+  parentPort!.postMessage({
+    type: 'error',
+    error: { message: (err as Error).message, path: err instanceof StudyInputError ? err.path : undefined },
+  });
 }

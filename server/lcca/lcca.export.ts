@@ -34,14 +34,35 @@ export async function studyXlsx(name: string, result: StudyResult) {
   for (const r of rows) summary.addRow(r);
   summary.getRow(1).font = { bold: true };
   const flows = wb.addWorksheet('Cash flows');
-  flows.columns = [{ header: 'alternative', key: 'a', width: 30 }, { header: 'year', key: 'y' }, { header: 'activity', key: 'l', width: 50 }, { header: 'cost', key: 'c', width: 14 }, { header: 'present_value', key: 'p', width: 14 }];
-  for (const a of result.alternatives) for (const c of a.cashFlows) flows.addRow({ a: a.name, y: c.year, l: c.label, c: Math.round(c.cost), p: Math.round(c.presentValue) });
+  flows.columns = [
+    { header: 'alternative', key: 'a', width: 30 },
+    { header: 'year', key: 'y' },
+    { header: 'activity', key: 'l', width: 50 },
+    { header: 'cost', key: 'c', width: 14 },
+    { header: 'present_value', key: 'p', width: 14 },
+  ];
+  for (const a of result.alternatives)
+    for (const c of a.cashFlows)
+      flows.addRow({ a: a.name, y: c.year, l: c.label, c: Math.round(c.cost), p: Math.round(c.presentValue) });
   const lines = wb.addWorksheet('First cost lines');
-  lines.columns = [{ header: 'alternative', key: 'a', width: 30 }, { header: 'item', key: 'l', width: 60 }, { header: 'quantity', key: 'q', width: 14 }, { header: 'unit', key: 'u' }, { header: 'unit_cost', key: 'uc', width: 12 }, { header: 'amount', key: 'm', width: 14 }];
-  for (const a of result.alternatives) for (const l of a.initial.costLines.lines) lines.addRow({ a: a.name, l: l.label, q: l.quantity, u: l.unit, uc: l.unitCost, m: Math.round(l.amount) });
+  lines.columns = [
+    { header: 'alternative', key: 'a', width: 30 },
+    { header: 'item', key: 'l', width: 60 },
+    { header: 'quantity', key: 'q', width: 14 },
+    { header: 'unit', key: 'u' },
+    { header: 'unit_cost', key: 'uc', width: 12 },
+    { header: 'amount', key: 'm', width: 14 },
+  ];
+  for (const a of result.alternatives)
+    for (const l of a.initial.costLines.lines)
+      lines.addRow({ a: a.name, l: l.label, q: l.quantity, u: l.unit, uc: l.unitCost, m: Math.round(l.amount) });
   const about = wb.addWorksheet('About');
   about.addRow([`${name} — life-cycle cost comparison from Wearcourse`]);
-  about.addRow([`Discount rate ${(result.discountRate * 100).toFixed(2)} % (real), analysis period ${result.analysisPeriodYears} years; constant dollars.`]);
-  about.addRow(['Planning estimate, not a pavement design; agency specifications and licensed engineering judgement govern.']);
+  about.addRow([
+    `Discount rate ${(result.discountRate * 100).toFixed(2)} % (real), analysis period ${result.analysisPeriodYears} years; constant dollars.`,
+  ]);
+  about.addRow([
+    'Planning estimate, not a pavement design; agency specifications and licensed engineering judgement govern.',
+  ]);
   return Buffer.from(await wb.xlsx.writeBuffer());
 }

@@ -1,7 +1,17 @@
 import { z } from 'zod';
 import type { StudyResult } from '../../shared/engine/lcca/study';
 import { AgencyParamsSchema, OkSchema } from '../../shared/schemas/common';
-import { AnalysisListSchema, AnalysisParamsSchema, EvaluateBodySchema, EvaluateResultSchema, RunParamsSchema, RunStateSchema, SaveAnalysisBodySchema, type StudyInput, StudyRequestSchema } from '../../shared/schemas/lcca';
+import {
+  AnalysisListSchema,
+  AnalysisParamsSchema,
+  EvaluateBodySchema,
+  EvaluateResultSchema,
+  RunParamsSchema,
+  RunStateSchema,
+  SaveAnalysisBodySchema,
+  type StudyInput,
+  StudyRequestSchema,
+} from '../../shared/schemas/lcca';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
 import { HttpError } from '../http/errors';
@@ -28,7 +38,8 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     method: 'post',
     path: '/api/agencies/:agencyId/analyses/runs',
     tag: 'Life-cycle cost',
-    summary: 'Start a comparison of 2–6 catalog-based alternatives on a group of segments (or a typed-in section); runs off the request thread with Monte Carlo. Answers 202 with the run to poll.',
+    summary:
+      'Start a comparison of 2–6 catalog-based alternatives on a group of segments (or a typed-in section); runs off the request thread with Monte Carlo. Answers 202 with the run to poll.',
     access: engineer,
     params: AgencyParamsSchema,
     body: StudyRequestSchema,
@@ -42,13 +53,32 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
       return run;
     },
   });
-  api.add({ method: 'get', path: '/api/agencies/:agencyId/analyses/runs/:runId', tag: 'Life-cycle cost', summary: 'Progress and, when done, the result of a comparison run', access: engineer, params: RunParamsSchema, response: RunStateSchema, handler: ({ agency, params }) => deps.jobs.get(agency!.id, params.runId) });
-  api.add({ method: 'delete', path: '/api/agencies/:agencyId/analyses/runs/:runId', tag: 'Life-cycle cost', summary: 'Cancel a running comparison', access: engineer, params: RunParamsSchema, response: RunStateSchema, handler: ({ agency, params }) => deps.jobs.cancel(agency!.id, params.runId) });
+  api.add({
+    method: 'get',
+    path: '/api/agencies/:agencyId/analyses/runs/:runId',
+    tag: 'Life-cycle cost',
+    summary: 'Progress and, when done, the result of a comparison run',
+    access: engineer,
+    params: RunParamsSchema,
+    response: RunStateSchema,
+    handler: ({ agency, params }) => deps.jobs.get(agency!.id, params.runId),
+  });
+  api.add({
+    method: 'delete',
+    path: '/api/agencies/:agencyId/analyses/runs/:runId',
+    tag: 'Life-cycle cost',
+    summary: 'Cancel a running comparison',
+    access: engineer,
+    params: RunParamsSchema,
+    response: RunStateSchema,
+    handler: ({ agency, params }) => deps.jobs.cancel(agency!.id, params.runId),
+  });
   api.add({
     method: 'post',
     path: '/api/agencies/:agencyId/analyses',
     tag: 'Life-cycle cost',
-    summary: 'Save a finished run with the snapshot of every input (catalog prices, economics, quantities), so that it reproduces exactly',
+    summary:
+      'Save a finished run with the snapshot of every input (catalog prices, economics, quantities), so that it reproduces exactly',
     access: engineer,
     params: AgencyParamsSchema,
     body: SaveAnalysisBodySchema,
@@ -61,13 +91,31 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
       return service.saveAnalysis(deps, agency!.id, user!.id, body.name, input, run.result);
     },
   });
-  api.add({ method: 'get', path: '/api/agencies/:agencyId/analyses', tag: 'Life-cycle cost', summary: 'Saved comparisons', access: engineer, params: AgencyParamsSchema, response: AnalysisListSchema, handler: ({ agency }) => service.listAnalyses(deps, agency!.id) });
-  api.add({ method: 'get', path: '/api/agencies/:agencyId/analyses/:analysisId', tag: 'Life-cycle cost', summary: 'A saved comparison: its input snapshot and its result', access: engineer, params: AnalysisParamsSchema, handler: ({ agency, params }) => service.getAnalysis(deps, agency!.id, params.analysisId) });
+  api.add({
+    method: 'get',
+    path: '/api/agencies/:agencyId/analyses',
+    tag: 'Life-cycle cost',
+    summary: 'Saved comparisons',
+    access: engineer,
+    params: AgencyParamsSchema,
+    response: AnalysisListSchema,
+    handler: ({ agency }) => service.listAnalyses(deps, agency!.id),
+  });
+  api.add({
+    method: 'get',
+    path: '/api/agencies/:agencyId/analyses/:analysisId',
+    tag: 'Life-cycle cost',
+    summary: 'A saved comparison: its input snapshot and its result',
+    access: engineer,
+    params: AnalysisParamsSchema,
+    handler: ({ agency, params }) => service.getAnalysis(deps, agency!.id, params.analysisId),
+  });
   api.add({
     method: 'post',
     path: '/api/agencies/:agencyId/analyses/:analysisId/rerun',
     tag: 'Life-cycle cost',
-    summary: 'Run a saved comparison again from its own snapshot (its own prices); the saved result is replaced when it finishes',
+    summary:
+      'Run a saved comparison again from its own snapshot (its own prices); the saved result is replaced when it finishes',
     access: engineer,
     params: AnalysisParamsSchema,
     response: RunStateSchema,
@@ -79,7 +127,19 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
       return run;
     },
   });
-  api.add({ method: 'delete', path: '/api/agencies/:agencyId/analyses/:analysisId', tag: 'Life-cycle cost', summary: 'Delete a saved comparison', access: engineer, params: AnalysisParamsSchema, response: OkSchema, handler: ({ agency, user, params }) => { service.deleteAnalysis(deps, agency!.id, user!.id, params.analysisId); return { ok: true }; } });
+  api.add({
+    method: 'delete',
+    path: '/api/agencies/:agencyId/analyses/:analysisId',
+    tag: 'Life-cycle cost',
+    summary: 'Delete a saved comparison',
+    access: engineer,
+    params: AnalysisParamsSchema,
+    response: OkSchema,
+    handler: ({ agency, user, params }) => {
+      service.deleteAnalysis(deps, agency!.id, user!.id, params.analysisId);
+      return { ok: true };
+    },
+  });
   api.add({
     method: 'get',
     path: '/api/agencies/:agencyId/analyses/:analysisId/export',
@@ -92,7 +152,11 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     handler: async ({ agency, params, query, res }) => {
       const a = service.getAnalysis(deps, agency!.id, params.analysisId);
       if (!a.result) throw new HttpError(409, 'no_result', 'This comparison has no result yet; run it first');
-      const base = a.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').slice(0, 60) || 'comparison';
+      const base =
+        a.name
+          .toLowerCase()
+          .replace(/[^a-z0-9]+/g, '-')
+          .slice(0, 60) || 'comparison';
       if (query.format === 'xlsx') {
         res.setHeader('Content-Type', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
         res.setHeader('Content-Disposition', `attachment; filename="${base}.xlsx"`);

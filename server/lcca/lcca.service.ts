@@ -43,12 +43,23 @@ function resolveGroup(deps: Deps, agencyId: string, g: Group): Group {
   const ids = [...new Set(g.segmentIds)];
   const rows = [] as (typeof segments.$inferSelect)[];
   for (let i = 0; i < ids.length; i += 900) {
-    rows.push(...deps.db.select().from(segments).where(and(eq(segments.agencyId, agencyId), inArray(segments.id, ids.slice(i, i + 900)))).all());
+    rows.push(
+      ...deps.db
+        .select()
+        .from(segments)
+        .where(and(eq(segments.agencyId, agencyId), inArray(segments.id, ids.slice(i, i + 900))))
+        .all(),
+    );
   }
   if (rows.length !== ids.length) {
     const found = new Set(rows.map((r) => r.id));
     const missing = ids.filter((id) => !found.has(id)).slice(0, 5);
-    throw new HttpError(400, 'invalid_request', `Invalid request: group.segmentIds — no segment ${missing.join(', ')} in this agency`, [{ path: 'group.segmentIds', message: `no segment ${missing.join(', ')} in this agency` }]);
+    throw new HttpError(
+      400,
+      'invalid_request',
+      `Invalid request: group.segmentIds — no segment ${missing.join(', ')} in this agency`,
+      [{ path: 'group.segmentIds', message: `no segment ${missing.join(', ')} in this agency` }],
+    );
   }
   return {
     label: g.label,
@@ -56,7 +67,13 @@ function resolveGroup(deps: Deps, agencyId: string, g: Group): Group {
     areaSy: rows.reduce((s, r) => s + areaSy(r.lengthMi, r.widthFt), 0),
     laneMiles: rows.reduce((s, r) => s + laneMiles(r.lengthMi, r.lanes), 0),
     centrelineMiles: rows.reduce((s, r) => s + r.lengthMi, 0),
-    segments: rows.map((r) => ({ segmentId: r.segmentId, adt: r.adt, truckPct: r.truckPct, functionalClass: r.functionalClass as FunctionalClass, pci: r.pci })),
+    segments: rows.map((r) => ({
+      segmentId: r.segmentId,
+      adt: r.adt,
+      truckPct: r.truckPct,
+      functionalClass: r.functionalClass as FunctionalClass,
+      pci: r.pci,
+    })),
   };
 }
 
@@ -69,9 +86,13 @@ export function studyInput(deps: Deps, agencyId: string, req: StudyRequest): Stu
     alternatives: req.alternatives,
     baselineIndex: req.baselineIndex,
     risk: req.risk,
-    catalog: { mixes: catalogRepo.listMixes(deps.db, agencyId), treatments: catalogRepo.listTreatments(deps.db, agencyId) },
+    catalog: {
+      mixes: catalogRepo.listMixes(deps.db, agencyId),
+      treatments: catalogRepo.listTreatments(deps.db, agencyId),
+    },
   };
-  if (input.risk.iterations > MAX_MC_ITERATIONS) throw new HttpError(400, 'invalid_request', `Invalid request: risk.iterations — at most ${MAX_MC_ITERATIONS}`);
+  if (input.risk.iterations > MAX_MC_ITERATIONS)
+    throw new HttpError(400, 'invalid_request', `Invalid request: risk.iterations — at most ${MAX_MC_ITERATIONS}`);
   checkStudy(input);
   return input;
 }
@@ -81,7 +102,10 @@ function checkStudy(input: StudyInput) {
   try {
     runStudy({ ...input, risk: { ...input.risk, iterations: 100 } }, { monteCarlo: false });
   } catch (err) {
-    if (err instanceof StudyInputError) throw new HttpError(400, 'invalid_request', `Invalid request: ${err.path} — ${err.message}`, [{ path: err.path, message: err.message }]);
+    if (err instanceof StudyInputError)
+      throw new HttpError(400, 'invalid_request', `Invalid request: ${err.path} — ${err.message}`, [
+        { path: err.path, message: err.message },
+      ]);
     throw err;
   }
 }
@@ -90,14 +114,35 @@ const STUDY_TASK = new URL('../jobs/study-task.ts', import.meta.url);
 
 export function startRun(deps: Deps, agencyId: string, input: StudyInput, analysisId: string | null) {
   return deps.jobs.start(agencyId, 'study', STUDY_TASK, input, (r: RunState) => {
-    if (analysisId && r.status === 'done') deps.db.update(analyses).set({ result: JSON.stringify(r.result), updatedAt: new Date().toISOString() }).where(eq(analyses.id, analysisId)).run();
+    if (analysisId && r.status === 'done')
+      deps.db
+        .update(analyses)
+        .set({ result: JSON.stringify(r.result), updatedAt: new Date().toISOString() })
+        .where(eq(analyses.id, analysisId))
+        .run();
   });
 }
 
-export function saveAnalysis(deps: Deps, agencyId: string, userId: string, name: string, input: StudyInput, result: unknown | null) {
+export function saveAnalysis(
+  deps: Deps,
+  agencyId: string,
+  userId: string,
+  name: string,
+  input: StudyInput,
+  result: unknown | null,
+) {
   const id = newId();
   deps.db.transaction((tx) => {
-    tx.insert(analyses).values({ id, agencyId, name, createdBy: userId, input: JSON.stringify(input), result: result ? JSON.stringify(result) : null }).run();
+    tx.insert(analyses)
+      .values({
+        id,
+        agencyId,
+        name,
+        createdBy: userId,
+        input: JSON.stringify(input),
+        result: result ? JSON.stringify(result) : null,
+      })
+      .run();
     recordAudit(tx, { agencyId, userId, action: 'analysis.save', entity: 'analysis', entityId: id, detail: { name } });
   });
   return { id };
@@ -106,7 +151,14 @@ export function saveAnalysis(deps: Deps, agencyId: string, userId: string, name:
 export function listAnalyses(deps: Deps, agencyId: string) {
   return {
     items: deps.db
-      .select({ id: analyses.id, name: analyses.name, createdAt: analyses.createdAt, updatedAt: analyses.updatedAt, createdBy: users.name, input: analyses.input })
+      .select({
+        id: analyses.id,
+        name: analyses.name,
+        createdAt: analyses.createdAt,
+        updatedAt: analyses.updatedAt,
+        createdBy: users.name,
+        input: analyses.input,
+      })
       .from(analyses)
       .leftJoin(users, eq(users.id, analyses.createdBy))
       .where(eq(analyses.agencyId, agencyId))
@@ -120,14 +172,28 @@ export function listAnalyses(deps: Deps, agencyId: string) {
 }
 
 export function getAnalysis(deps: Deps, agencyId: string, id: string) {
-  const row = deps.db.select().from(analyses).where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, id))).get();
+  const row = deps.db
+    .select()
+    .from(analyses)
+    .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, id)))
+    .get();
   if (!row) throw notFound('No such analysis');
-  return { id: row.id, name: row.name, createdAt: row.createdAt, updatedAt: row.updatedAt, input: JSON.parse(row.input) as StudyInput, result: row.result ? JSON.parse(row.result) : null };
+  return {
+    id: row.id,
+    name: row.name,
+    createdAt: row.createdAt,
+    updatedAt: row.updatedAt,
+    input: JSON.parse(row.input) as StudyInput,
+    result: row.result ? JSON.parse(row.result) : null,
+  };
 }
 
 export function deleteAnalysis(deps: Deps, agencyId: string, userId: string, id: string) {
   deps.db.transaction((tx) => {
-    const res = tx.delete(analyses).where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, id))).run();
+    const res = tx
+      .delete(analyses)
+      .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, id)))
+      .run();
     if (res.changes !== 1) throw notFound('No such analysis');
     recordAudit(tx, { agencyId, userId, action: 'analysis.delete', entity: 'analysis', entityId: id });
   });

@@ -78,7 +78,7 @@ export function memberRoutes(api: ApiRoutes, deps: Deps) {
     method: 'get',
     path: '/api/agencies/:agencyId/sent-mail',
     tag: 'Members',
-    summary: "Messages the local mail catcher received for this agency (empty when real SMTP is used)",
+    summary: 'Messages the local mail catcher received for this agency (empty when real SMTP is used)',
     access: admin,
     params: AgencyParamsSchema,
     response: CaughtMailListSchema,

@@ -11,7 +11,13 @@ import { HttpError, notFound } from '../http/errors';
 
 export function listMembers(deps: Deps, agencyId: string) {
   const members = deps.db
-    .select({ userId: users.id, email: users.email, name: users.name, role: memberships.role, since: memberships.createdAt })
+    .select({
+      userId: users.id,
+      email: users.email,
+      name: users.name,
+      role: memberships.role,
+      since: memberships.createdAt,
+    })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(eq(memberships.agencyId, agencyId))
@@ -52,9 +58,24 @@ export async function invite(deps: Deps, agencyId: string, byUserId: string, inp
   const id = newId();
   deps.db.transaction((tx) => {
     tx.insert(invitations)
-      .values({ id, agencyId, email: input.email, role: input.role, tokenHash: hash, invitedBy: byUserId, expiresAt: isoIn(INVITATION_TTL_MS) })
+      .values({
+        id,
+        agencyId,
+        email: input.email,
+        role: input.role,
+        tokenHash: hash,
+        invitedBy: byUserId,
+        expiresAt: isoIn(INVITATION_TTL_MS),
+      })
       .run();
-    recordAudit(tx, { agencyId, userId: byUserId, action: 'invitation.create', entity: 'invitation', entityId: id, detail: { email: input.email, role: input.role } });
+    recordAudit(tx, {
+      agencyId,
+      userId: byUserId,
+      action: 'invitation.create',
+      entity: 'invitation',
+      entityId: id,
+      detail: { email: input.email, role: input.role },
+    });
   });
   const link = `${deps.config.appUrl}/invite/${token}`;
   await deps.mailer.send({
@@ -74,7 +95,13 @@ export function revokeInvitation(deps: Deps, agencyId: string, byUserId: string,
       .where(and(eq(invitations.id, invitationId), eq(invitations.agencyId, agencyId), isNull(invitations.acceptedAt)))
       .run();
     if (res.changes !== 1) throw notFound('No such pending invitation');
-    recordAudit(tx, { agencyId, userId: byUserId, action: 'invitation.revoke', entity: 'invitation', entityId: invitationId });
+    recordAudit(tx, {
+      agencyId,
+      userId: byUserId,
+      action: 'invitation.revoke',
+      entity: 'invitation',
+      entityId: invitationId,
+    });
   });
 }
 
@@ -98,7 +125,14 @@ export function changeRole(deps: Deps, agencyId: string, byUserId: string, userI
       throw new HttpError(409, 'last_admin', 'An agency keeps at least one admin');
     }
     tx.update(memberships).set({ role }).where(eq(memberships.id, current.id)).run();
-    recordAudit(tx, { agencyId, userId: byUserId, action: 'membership.role', entity: 'membership', entityId: userId, detail: { before: current.role, after: role } });
+    recordAudit(tx, {
+      agencyId,
+      userId: byUserId,
+      action: 'membership.role',
+      entity: 'membership',
+      entityId: userId,
+      detail: { before: current.role, after: role },
+    });
   });
 }
 
@@ -114,7 +148,14 @@ export function removeMember(deps: Deps, agencyId: string, byUserId: string, use
       throw new HttpError(409, 'last_admin', 'An agency keeps at least one admin');
     }
     tx.delete(memberships).where(eq(memberships.id, current.id)).run();
-    recordAudit(tx, { agencyId, userId: byUserId, action: 'membership.remove', entity: 'membership', entityId: userId, detail: { role: current.role } });
+    recordAudit(tx, {
+      agencyId,
+      userId: byUserId,
+      action: 'membership.remove',
+      entity: 'membership',
+      entityId: userId,
+      detail: { role: current.role },
+    });
   });
 }
 

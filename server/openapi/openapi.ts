@@ -41,7 +41,10 @@ export function buildOpenApiDocument(routes: RouteDef[]) {
         400: { description: 'Invalid request; issues name each field', ...error },
         ...(r.access.kind === 'public' ? {} : { 401: { description: 'Not signed in', ...error } }),
         ...(r.access.kind === 'agency'
-          ? { 403: { description: 'Role too low', ...error }, 404: { description: 'No such agency (or not a member)', ...error } }
+          ? {
+              403: { description: 'Role too low', ...error },
+              404: { description: 'No such agency (or not a member)', ...error },
+            }
           : {}),
       },
     });

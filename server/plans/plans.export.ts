@@ -20,7 +20,20 @@ const rows = (r: PlanResult) =>
   }));
 
 export function workListCsv(r: PlanResult) {
-  const fields = ['year', 'segment_id', 'road_name', 'treatment', 'mix', 'thickness_in', 'tons', 'area_sy', 'lane_miles', 'cost', 'pci_before', 'pci_after'];
+  const fields = [
+    'year',
+    'segment_id',
+    'road_name',
+    'treatment',
+    'mix',
+    'thickness_in',
+    'tons',
+    'area_sy',
+    'lane_miles',
+    'cost',
+    'pci_before',
+    'pci_after',
+  ];
   return `${Papa.unparse({ fields, data: rows(r).map((d) => fields.map((f) => (d as Record<string, unknown>)[f])) })}\n`;
 }
 
@@ -35,10 +48,25 @@ export async function workListXlsx(r: PlanResult, title: string) {
   ws.getRow(1).font = { bold: true };
   ws.views = [{ state: 'frozen', ySplit: 1 }];
   const years = wb.addWorksheet('By year');
-  years.columns = [{ header: 'year', key: 'y' }, { header: 'budget', key: 'b', width: 14 }, { header: 'spent', key: 's', width: 14 }, { header: 'network_pci', key: 'p', width: 12 }, { header: 'backlog', key: 'k', width: 14 }];
-  for (const y of r.years) years.addRow({ y: y.calendarYear, b: Math.round(y.budget), s: Math.round(y.spent), p: Math.round(y.networkPci * 10) / 10, k: Math.round(y.backlog) });
+  years.columns = [
+    { header: 'year', key: 'y' },
+    { header: 'budget', key: 'b', width: 14 },
+    { header: 'spent', key: 's', width: 14 },
+    { header: 'network_pci', key: 'p', width: 12 },
+    { header: 'backlog', key: 'k', width: 14 },
+  ];
+  for (const y of r.years)
+    years.addRow({
+      y: y.calendarYear,
+      b: Math.round(y.budget),
+      s: Math.round(y.spent),
+      p: Math.round(y.networkPci * 10) / 10,
+      k: Math.round(y.backlog),
+    });
   const about = wb.addWorksheet('About');
   about.addRow([`${title} — work list from Wearcourse`]);
-  about.addRow(['Constant base-year dollars. Planning estimate, not a design; agency specifications and licensed engineering judgement govern.']);
+  about.addRow([
+    'Constant base-year dollars. Planning estimate, not a design; agency specifications and licensed engineering judgement govern.',
+  ]);
   return Buffer.from(await wb.xlsx.writeBuffer());
 }

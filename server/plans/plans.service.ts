@@ -21,7 +21,13 @@ const PLAN_TASK = new URL('../jobs/plan-task.ts', import.meta.url);
 type PlanRow = typeof plans.$inferSelect;
 
 function view(deps: Deps, row: PlanRow) {
-  const last = deps.db.select().from(planRuns).where(eq(planRuns.planId, row.id)).orderBy(desc(planRuns.startedAt)).limit(1).get();
+  const last = deps.db
+    .select()
+    .from(planRuns)
+    .where(eq(planRuns.planId, row.id))
+    .orderBy(desc(planRuns.startedAt))
+    .limit(1)
+    .get();
   return {
     id: row.id,
     name: row.name,
@@ -36,7 +42,11 @@ function view(deps: Deps, row: PlanRow) {
 
 /** Viewers see published plans only; anything else answers as if it did not exist. */
 function planRow(deps: Deps, agencyId: string, planId: string, role: string) {
-  const row = deps.db.select().from(plans).where(and(eq(plans.agencyId, agencyId), eq(plans.id, planId))).get();
+  const row = deps.db
+    .select()
+    .from(plans)
+    .where(and(eq(plans.agencyId, agencyId), eq(plans.id, planId)))
+    .get();
   if (!row || (role === 'viewer' && row.status !== 'published')) throw notFound('No such plan');
   return row;
 }
@@ -53,17 +63,43 @@ export function getPlan(deps: Deps, agencyId: string, planId: string, role: stri
 export function createPlan(deps: Deps, agencyId: string, userId: string, name: string, settings: PlanSettingsInput) {
   const id = newId();
   deps.db.transaction((tx) => {
-    tx.insert(plans).values({ id, agencyId, name, settings: JSON.stringify(settings), createdBy: userId }).run();
-    recordAudit(tx, { agencyId, userId, action: 'plan.create', entity: 'plan', entityId: id, detail: { name, settings } });
+    tx.insert(plans)
+      .values({ id, agencyId, name, settings: JSON.stringify(settings), createdBy: userId })
+      .run();
+    recordAudit(tx, {
+      agencyId,
+      userId,
+      action: 'plan.create',
+      entity: 'plan',
+      entityId: id,
+      detail: { name, settings },
+    });
   });
   return getPlan(deps, agencyId, id, 'engineer');
 }
 
-export function updatePlan(deps: Deps, agencyId: string, userId: string, planId: string, name: string, settings: PlanSettingsInput) {
+export function updatePlan(
+  deps: Deps,
+  agencyId: string,
+  userId: string,
+  planId: string,
+  name: string,
+  settings: PlanSettingsInput,
+) {
   deps.db.transaction((tx) => {
     const before = planRow(deps, agencyId, planId, 'engineer');
-    tx.update(plans).set({ name, settings: JSON.stringify(settings), updatedAt: new Date().toISOString() }).where(eq(plans.id, planId)).run();
-    recordAudit(tx, { agencyId, userId, action: 'plan.update', entity: 'plan', entityId: planId, detail: { before: { name: before.name, settings: JSON.parse(before.settings) }, after: { name, settings } } });
+    tx.update(plans)
+      .set({ name, settings: JSON.stringify(settings), updatedAt: new Date().toISOString() })
+      .where(eq(plans.id, planId))
+      .run();
+    recordAudit(tx, {
+      agencyId,
+      userId,
+      action: 'plan.update',
+      entity: 'plan',
+      entityId: planId,
+      detail: { before: { name: before.name, settings: JSON.parse(before.settings) }, after: { name, settings } },
+    });
   });
   return getPlan(deps, agencyId, planId, 'engineer');
 }
@@ -81,11 +117,26 @@ export function planInput(deps: Deps, agencyId: string, planId: string): PlanInp
   const row = planRow(deps, agencyId, planId, 'engineer');
   const settings = JSON.parse(row.settings) as PlanSettingsInput;
   const agency = agencyById(deps.db, agencyId)!;
-  const segRows = deps.db.select().from(segments).where(and(eq(segments.agencyId, agencyId), isNotNull(segments.pci))).all();
+  const segRows = deps.db
+    .select()
+    .from(segments)
+    .where(and(eq(segments.agencyId, agencyId), isNotNull(segments.pci)))
+    .all();
   const total = deps.db.select({ id: segments.id }).from(segments).where(eq(segments.agencyId, agencyId)).all().length;
-  if (total === 0) throw new HttpError(409, 'empty_inventory', 'The inventory is empty: import segments before running a plan');
-  if (segRows.length === 0) throw new HttpError(409, 'no_condition', 'No segment has a PCI yet: import condition surveys before running a plan');
-  if (segRows.length > MAX_PLAN_SEGMENTS) throw new HttpError(413, 'plan_too_large', `A plan takes at most ${MAX_PLAN_SEGMENTS.toLocaleString('en-US')} segments`);
+  if (total === 0)
+    throw new HttpError(409, 'empty_inventory', 'The inventory is empty: import segments before running a plan');
+  if (segRows.length === 0)
+    throw new HttpError(
+      409,
+      'no_condition',
+      'No segment has a PCI yet: import condition surveys before running a plan',
+    );
+  if (segRows.length > MAX_PLAN_SEGMENTS)
+    throw new HttpError(
+      413,
+      'plan_too_large',
+      `A plan takes at most ${MAX_PLAN_SEGMENTS.toLocaleString('en-US')} segments`,
+    );
   const planSegments: PlanSegment[] = segRows.map((r) => ({
     ref: r.id,
     segmentId: r.segmentId,
@@ -105,11 +156,22 @@ export function planInput(deps: Deps, agencyId: string, planId: string): PlanInp
   const mixes = new Map(catalogRepo.listMixes(deps.db, agencyId).map((m) => [m.id, m]));
   const all = catalogRepo.listTreatments(deps.db, agencyId);
   const unknown = settings.treatmentIds.filter((id) => !all.some((t) => t.id === id));
-  if (unknown.length) throw new HttpError(400, 'invalid_request', 'Invalid request: settings.treatmentIds — names treatments not in the catalog', [{ path: 'settings.treatmentIds', message: 'names treatments not in the catalog' }]);
+  if (unknown.length)
+    throw new HttpError(
+      400,
+      'invalid_request',
+      'Invalid request: settings.treatmentIds — names treatments not in the catalog',
+      [{ path: 'settings.treatmentIds', message: 'names treatments not in the catalog' }],
+    );
   const chosen = settings.treatmentIds.length ? all.filter((t) => settings.treatmentIds.includes(t.id)) : all;
   // Planning cost per segment: unit rates, traffic control and add-ons; mobilisation belongs to contracts, not segments.
   const treatments: PlanTreatment[] = chosen.map((t) => {
-    const r = resolveTreatment(t, t.mixId ? (mixes.get(t.mixId) ?? null) : null, {}, { ...econ, mobilizationPerJob: 0 });
+    const r = resolveTreatment(
+      t,
+      t.mixId ? (mixes.get(t.mixId) ?? null) : null,
+      {},
+      { ...econ, mobilizationPerJob: 0 },
+    );
     return {
       id: t.id,
       name: t.name,
@@ -132,16 +194,33 @@ export function planInput(deps: Deps, agencyId: string, planId: string): PlanInp
     agencyName: agency.name,
     method: settings.method,
     minNetworkPci: settings.minNetworkPci,
-    settings: { startYear: settings.startYear, budgets: budgetsOf(settings), weighting: settings.weighting, needsWorkBelow: settings.needsWorkBelow, minNetworkPci: settings.minNetworkPci },
+    settings: {
+      startYear: settings.startYear,
+      budgets: budgetsOf(settings),
+      weighting: settings.weighting,
+      needsWorkBelow: settings.needsWorkBelow,
+      minNetworkPci: settings.minNetworkPci,
+    },
     segments: planSegments,
     treatments,
     curves,
   };
   const cand = candidates(input);
   const options = cand.instance.segments.reduce((s, x) => s + x.options.length, 0);
-  if (options === 0) throw new HttpError(400, 'invalid_request', 'Invalid request: settings.treatmentIds — no treatment applies to any segment in the horizon', [{ path: 'settings.treatmentIds', message: 'no treatment applies to any segment in the horizon' }]);
+  if (options === 0)
+    throw new HttpError(
+      400,
+      'invalid_request',
+      'Invalid request: settings.treatmentIds — no treatment applies to any segment in the horizon',
+      [{ path: 'settings.treatmentIds', message: 'no treatment applies to any segment in the horizon' }],
+    );
   if (settings.method === 'exact' && options > MAX_EXACT_OPTIONS) {
-    throw new HttpError(400, 'invalid_request', `Invalid request: settings.method — ${options.toLocaleString('en-US')} candidates is more than the exact method takes here (${MAX_EXACT_OPTIONS.toLocaleString('en-US')}); use the fast method, which reports its gap to a bound`, [{ path: 'settings.method', message: 'too many candidates for the exact method; use fast' }]);
+    throw new HttpError(
+      400,
+      'invalid_request',
+      `Invalid request: settings.method — ${options.toLocaleString('en-US')} candidates is more than the exact method takes here (${MAX_EXACT_OPTIONS.toLocaleString('en-US')}); use the fast method, which reports its gap to a bound`,
+      [{ path: 'settings.method', message: 'too many candidates for the exact method; use fast' }],
+    );
   }
   return input;
 }
@@ -150,13 +229,27 @@ export function startRun(deps: Deps, agencyId: string, userId: string, planId: s
   const input = planInput(deps, agencyId, planId);
   const runId = newId();
   deps.db.transaction((tx) => {
-    tx.insert(planRuns).values({ id: runId, planId, agencyId, status: 'running', input: JSON.stringify(input) }).run();
-    recordAudit(tx, { agencyId, userId, action: 'plan.run', entity: 'plan', entityId: planId, detail: { runId, method: input.method } });
+    tx.insert(planRuns)
+      .values({ id: runId, planId, agencyId, status: 'running', input: JSON.stringify(input) })
+      .run();
+    recordAudit(tx, {
+      agencyId,
+      userId,
+      action: 'plan.run',
+      entity: 'plan',
+      entityId: planId,
+      detail: { runId, method: input.method },
+    });
   });
   const finish = (r: RunState) => {
     deps.db
       .update(planRuns)
-      .set({ status: r.status, result: r.result ? JSON.stringify(r.result) : null, error: r.error?.message ?? null, endedAt: new Date().toISOString() })
+      .set({
+        status: r.status,
+        result: r.result ? JSON.stringify(r.result) : null,
+        error: r.error?.message ?? null,
+        endedAt: new Date().toISOString(),
+      })
       .where(eq(planRuns.id, runId))
       .run();
   };
@@ -164,7 +257,11 @@ export function startRun(deps: Deps, agencyId: string, userId: string, planId: s
     const job = deps.jobs.start(agencyId, 'plan', PLAN_TASK, { input }, finish);
     jobOfRun.set(runId, job.id);
   } catch (err) {
-    deps.db.update(planRuns).set({ status: 'failed', error: (err as Error).message, endedAt: new Date().toISOString() }).where(eq(planRuns.id, runId)).run();
+    deps.db
+      .update(planRuns)
+      .set({ status: 'failed', error: (err as Error).message, endedAt: new Date().toISOString() })
+      .where(eq(planRuns.id, runId))
+      .run();
     throw err;
   }
   return runView(deps, agencyId, planId, runId, 'engineer');
@@ -175,7 +272,11 @@ const jobOfRun = new Map<string, string>();
 
 export function runView(deps: Deps, agencyId: string, planId: string, runId: string, role: string) {
   planRow(deps, agencyId, planId, role);
-  const r = deps.db.select().from(planRuns).where(and(eq(planRuns.id, runId), eq(planRuns.planId, planId))).get();
+  const r = deps.db
+    .select()
+    .from(planRuns)
+    .where(and(eq(planRuns.id, runId), eq(planRuns.planId, planId)))
+    .get();
   if (!r) throw notFound('No such run');
   let progress = r.status === 'running' ? 0 : 1;
   const jobId = jobOfRun.get(runId);
@@ -186,12 +287,26 @@ export function runView(deps: Deps, agencyId: string, planId: string, runId: str
       progress = 0;
     }
   }
-  return { id: r.id, status: r.status, progress, startedAt: r.startedAt, endedAt: r.endedAt, error: r.error, result: r.result ? JSON.parse(r.result) : null };
+  return {
+    id: r.id,
+    status: r.status,
+    progress,
+    startedAt: r.startedAt,
+    endedAt: r.endedAt,
+    error: r.error,
+    result: r.result ? JSON.parse(r.result) : null,
+  };
 }
 
 export function latestResult(deps: Deps, agencyId: string, planId: string, role: string) {
   planRow(deps, agencyId, planId, role);
-  const r = deps.db.select().from(planRuns).where(and(eq(planRuns.planId, planId), eq(planRuns.status, 'done'))).orderBy(desc(planRuns.startedAt)).limit(1).get();
+  const r = deps.db
+    .select()
+    .from(planRuns)
+    .where(and(eq(planRuns.planId, planId), eq(planRuns.status, 'done')))
+    .orderBy(desc(planRuns.startedAt))
+    .limit(1)
+    .get();
   return r ? { runId: r.id, endedAt: r.endedAt, result: JSON.parse(r.result!) } : null;
 }
 
@@ -204,15 +319,37 @@ export function cancelRun(deps: Deps, agencyId: string, planId: string, runId: s
 
 /** After a crash or restart no worker is left: runs still marked running did not finish. */
 export function failInterruptedRuns(deps: Deps) {
-  return deps.db.update(planRuns).set({ status: 'failed', error: 'interrupted by a server restart', endedAt: new Date().toISOString() }).where(eq(planRuns.status, 'running')).run().changes;
+  return deps.db
+    .update(planRuns)
+    .set({ status: 'failed', error: 'interrupted by a server restart', endedAt: new Date().toISOString() })
+    .where(eq(planRuns.status, 'running'))
+    .run().changes;
 }
 
-export async function publish(deps: Deps, agencyId: string, userId: string, planId: string, publishIt: boolean, notify: boolean) {
+export async function publish(
+  deps: Deps,
+  agencyId: string,
+  userId: string,
+  planId: string,
+  publishIt: boolean,
+  notify: boolean,
+) {
   const row = planRow(deps, agencyId, planId, 'engineer');
-  if (publishIt && !latestResult(deps, agencyId, planId, 'engineer')) throw new HttpError(409, 'not_run', 'Run the plan before publishing it');
+  if (publishIt && !latestResult(deps, agencyId, planId, 'engineer'))
+    throw new HttpError(409, 'not_run', 'Run the plan before publishing it');
   deps.db.transaction((tx) => {
-    tx.update(plans).set({ status: publishIt ? 'published' : 'draft', publishedAt: publishIt ? new Date().toISOString() : null }).where(eq(plans.id, planId)).run();
-    recordAudit(tx, { agencyId, userId, action: publishIt ? 'plan.publish' : 'plan.unpublish', entity: 'plan', entityId: planId, detail: { name: row.name } });
+    tx.update(plans)
+      .set({ status: publishIt ? 'published' : 'draft', publishedAt: publishIt ? new Date().toISOString() : null })
+      .where(eq(plans.id, planId))
+      .run();
+    recordAudit(tx, {
+      agencyId,
+      userId,
+      action: publishIt ? 'plan.publish' : 'plan.unpublish',
+      entity: 'plan',
+      entityId: planId,
+      detail: { name: row.name },
+    });
   });
   let notified = 0;
   if (publishIt && notify) {
@@ -243,8 +380,14 @@ export function startBudgetSearch(deps: Deps, agencyId: string, planId: string, 
 }
 
 export function segmentGeometries(deps: Deps, agencyId: string) {
-  const rows = deps.db.select({ ref: segments.id, geometry: segments.geometry }).from(segments).where(and(eq(segments.agencyId, agencyId), isNotNull(segments.geometry))).all();
-  return new Map(rows.map((r) => [r.ref, JSON.parse(r.geometry!) as { type: string; coordinates: number[][] | number[][][] }]));
+  const rows = deps.db
+    .select({ ref: segments.id, geometry: segments.geometry })
+    .from(segments)
+    .where(and(eq(segments.agencyId, agencyId), isNotNull(segments.geometry)))
+    .all();
+  return new Map(
+    rows.map((r) => [r.ref, JSON.parse(r.geometry!) as { type: string; coordinates: number[][] | number[][][] }]),
+  );
 }
 
 export const agencyName = (deps: Deps, agencyId: string) => agencyById(deps.db, agencyId)!.name;

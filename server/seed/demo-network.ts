@@ -75,12 +75,33 @@ const toLonLat = (origin: [number, number], xMi: number, yMi: number): [number, 
   return [round(lon, 6), round(lat, 6)];
 };
 
-const STREETS = ['Main', 'Oak', 'Elm', 'Cedar', 'Walnut', 'Pine', 'Maple', 'Hickory', 'Ash', 'Locust', 'Spruce', 'Willow'];
-const ordinal = (n: number) => `${n}${n % 10 === 1 && n !== 11 ? 'st' : n % 10 === 2 && n !== 12 ? 'nd' : n % 10 === 3 && n !== 13 ? 'rd' : 'th'}`;
+const STREETS = [
+  'Main',
+  'Oak',
+  'Elm',
+  'Cedar',
+  'Walnut',
+  'Pine',
+  'Maple',
+  'Hickory',
+  'Ash',
+  'Locust',
+  'Spruce',
+  'Willow',
+];
+const ordinal = (n: number) =>
+  `${n}${n % 10 === 1 && n !== 11 ? 'st' : n % 10 === 2 && n !== 12 ? 'nd' : n % 10 === 3 && n !== 13 ? 'rd' : 'th'}`;
 
 function townGrid(
   r: Rand,
-  opts: { prefix: string; origin: [number, number]; blocks: number; blockMi: number; district: string; mainClass: FunctionalClass },
+  opts: {
+    prefix: string;
+    origin: [number, number];
+    blocks: number;
+    blockMi: number;
+    district: string;
+    mainClass: FunctionalClass;
+  },
 ): DemoSegment[] {
   const out: DemoSegment[] = [];
   const n = opts.blocks;
@@ -133,7 +154,8 @@ export function brannockCounty(seed = 20261): DemoSegment[] {
   const letter = (i: number) => String.fromCharCode(65 + i);
   const ewName = (j: number) => (j === 10 ? 'County Highway 14' : `${(j + 1) * 100} Road`);
   const nsName = (i: number) => (i === 12 ? 'Tallow Creek Parkway' : `Road ${letter(i)}`);
-  const district = (x: number, y: number) => (y >= rows / 2 ? (x < cols / 2 ? 'Northwest' : 'Northeast') : x < cols / 2 ? 'Southwest' : 'Southeast');
+  const district = (x: number, y: number) =>
+    y >= rows / 2 ? (x < cols / 2 ? 'Northwest' : 'Northeast') : x < cols / 2 ? 'Southwest' : 'Southeast';
   for (let dir = 0; dir < 2; dir++) {
     const lines = dir === 0 ? rows + 1 : cols + 1;
     const steps = dir === 0 ? cols : rows;
@@ -153,7 +175,8 @@ export function brannockCounty(seed = 20261): DemoSegment[] {
               : 'minor_collector'
             : 'local';
         const u = r();
-        const surface: Surface = arterial || collector ? 'asphalt' : u < 0.5 ? 'asphalt' : u < 0.78 ? 'chip_seal' : 'gravel';
+        const surface: Surface =
+          arterial || collector ? 'asphalt' : u < 0.5 ? 'asphalt' : u < 0.78 ? 'chip_seal' : 'gravel';
         const name = dir === 0 ? ewName(line) : nsName(line);
         const cross = (i: number) => (dir === 0 ? nsName(i) : ewName(i));
         // Section lines are surveyed miles, give or take a little at the corners.

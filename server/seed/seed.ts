@@ -46,7 +46,9 @@ function insertNetwork(db: Db, agencyId: string, network: DemoSegment[]) {
       .returning({ id: segments.id })
       .get();
     for (const v of s.surveys) {
-      db.insert(surveys).values({ agencyId, segmentRef: row.id, surveyDate: v.surveyDate, pci: v.pci, source: 'demo survey' }).run();
+      db.insert(surveys)
+        .values({ agencyId, segmentRef: row.id, surveyDate: v.surveyDate, pci: v.pci, source: 'demo survey' })
+        .run();
     }
   }
 }
@@ -55,11 +57,22 @@ function insertCatalog(db: Db, agencyId: string) {
   const ids: Record<string, string> = {};
   for (const { key, ...m } of DEMO_MIXES) {
     ids[key] = newId();
-    db.insert(mixes).values({ ...m, id: ids[key], agencyId, isDemo: true }).run();
+    db.insert(mixes)
+      .values({ ...m, id: ids[key], agencyId, isDemo: true })
+      .run();
   }
   for (const { mixKey, ...t } of DEMO_TREATMENTS) {
     db.insert(treatments)
-      .values({ ...t, id: newId(), agencyId, mixId: mixKey ? ids[mixKey] : null, costItems: JSON.stringify(t.costItems), effect: JSON.stringify(t.effect), applicability: JSON.stringify(t.applicability), isDemo: true })
+      .values({
+        ...t,
+        id: newId(),
+        agencyId,
+        mixId: mixKey ? ids[mixKey] : null,
+        costItems: JSON.stringify(t.costItems),
+        effect: JSON.stringify(t.effect),
+        applicability: JSON.stringify(t.applicability),
+        isDemo: true,
+      })
       .run();
   }
 }
@@ -74,12 +87,34 @@ export async function seedDemo(db: Db) {
     const t = tx as unknown as Db;
     t.insert(agencies)
       .values([
-        { id: brannock, name: 'Brannock County', kind: 'county', state: 'demo', baseYear: 2027, discountRate: 0.02, discountRateSource: 'Demo value — cite your own (e.g. OMB Circular A-94 Appendix C real rate)', analysisPeriodYears: 40, ...DEMO_ECONOMICS },
-        { id: marlow, name: 'City of Marlow', kind: 'city', state: 'demo', baseYear: 2027, discountRate: 0.02, discountRateSource: 'Demo value — cite your own (e.g. OMB Circular A-94 Appendix C real rate)', analysisPeriodYears: 35, ...DEMO_ECONOMICS },
+        {
+          id: brannock,
+          name: 'Brannock County',
+          kind: 'county',
+          state: 'demo',
+          baseYear: 2027,
+          discountRate: 0.02,
+          discountRateSource: 'Demo value — cite your own (e.g. OMB Circular A-94 Appendix C real rate)',
+          analysisPeriodYears: 40,
+          ...DEMO_ECONOMICS,
+        },
+        {
+          id: marlow,
+          name: 'City of Marlow',
+          kind: 'city',
+          state: 'demo',
+          baseYear: 2027,
+          discountRate: 0.02,
+          discountRateSource: 'Demo value — cite your own (e.g. OMB Circular A-94 Appendix C real rate)',
+          analysisPeriodYears: 35,
+          ...DEMO_ECONOMICS,
+        },
       ])
       .run();
     t.insert(users)
-      .values(DEMO_ACCOUNTS.map((a) => ({ id: ids[a.email], email: a.email, name: a.name, passwordHash, isDemo: true })))
+      .values(
+        DEMO_ACCOUNTS.map((a) => ({ id: ids[a.email], email: a.email, name: a.name, passwordHash, isDemo: true })),
+      )
       .run();
     t.insert(memberships)
       .values([
@@ -103,7 +138,9 @@ export async function seedDemo(db: Db) {
 /** Empties every table (for `npm run seed -- --reset`). */
 export function wipe(sqlite: Sqlite) {
   const tables = sqlite
-    .prepare("SELECT name FROM sqlite_master WHERE type='table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE '__drizzle%'")
+    .prepare(
+      "SELECT name FROM sqlite_master WHERE type='table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE '__drizzle%'",
+    )
     .all() as { name: string }[];
   sqlite.pragma('foreign_keys = OFF');
   sqlite.transaction(() => {
@@ -111,4 +148,3 @@ export function wipe(sqlite: Sqlite) {
   })();
   sqlite.pragma('foreign_keys = ON');
 }
-

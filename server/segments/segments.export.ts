@@ -42,7 +42,9 @@ export async function segmentsXlsx(rows: SegmentRow[], agencyName: string) {
   ws.getRow(1).font = { bold: true };
   ws.views = [{ state: 'frozen', ySplit: 1 }];
   const about = wb.addWorksheet('About');
-  about.addRow([`${agencyName} — segment inventory exported from Wearcourse on ${new Date().toISOString().slice(0, 10)}`]);
+  about.addRow([
+    `${agencyName} — segment inventory exported from Wearcourse on ${new Date().toISOString().slice(0, 10)}`,
+  ]);
   about.addRow(['Lengths in miles, widths in feet. Re-import this file to update segments by segment_id.']);
   return Buffer.from(await wb.xlsx.writeBuffer());
 }

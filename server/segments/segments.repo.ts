@@ -37,7 +37,9 @@ function filters(agencyId: string, q: SegmentFilter): SQL {
   const parts: (SQL | undefined)[] = [eq(segments.agencyId, agencyId)];
   if (q.q) {
     const pattern = `%${q.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    parts.push(or(sql`${segments.roadName} LIKE ${pattern} ESCAPE '\\'`, sql`${segments.segmentId} LIKE ${pattern} ESCAPE '\\'`));
+    parts.push(
+      or(sql`${segments.roadName} LIKE ${pattern} ESCAPE '\\'`, sql`${segments.segmentId} LIKE ${pattern} ESCAPE '\\'`),
+    );
   }
   if (q.class?.length) parts.push(inArray(segments.functionalClass, q.class));
   if (q.surface?.length) parts.push(inArray(segments.surface, q.surface));
@@ -85,7 +87,9 @@ export function listSegments(db: Db, agencyId: string, q: SegmentListQuery) {
       miles: sql<number>`coalesce(sum(${segments.lengthMi}), 0)`,
       laneMiles: sql<number>`coalesce(sum(${segments.lengthMi} * ${segments.lanes}), 0)`,
       areaSy: sql<number>`coalesce(sum(${segments.lengthMi} * 5280 * ${segments.widthFt} / 9.0), 0)`,
-      weightedPci: sql<number | null>`sum(${segments.pci} * ${segments.lengthMi}) / nullif(sum(case when ${segments.pci} is not null then ${segments.lengthMi} end), 0)`,
+      weightedPci: sql<
+        number | null
+      >`sum(${segments.pci} * ${segments.lengthMi}) / nullif(sum(case when ${segments.pci} is not null then ${segments.lengthMi} end), 0)`,
     })
     .from(segments)
     .where(where)
@@ -101,7 +105,6 @@ export function networkStats(db: Db, agencyId: string) {
     .all();
   return rows;
 }
-
 
 export function segmentById(db: Db, agencyId: string, id: number) {
   return db
@@ -123,12 +126,20 @@ export function surveysOf(db: Db, agencyId: string, segmentRef: number) {
 /** Map features as one JSON string: the stored geometry text is spliced in, never parsed. */
 export function segmentsGeoJson(db: Db, agencyId: string, q: SegmentFilter): string {
   const rows = db
-    .select({ id: segments.id, segmentId: segments.segmentId, roadName: segments.roadName, pci: segments.pci, cls: segments.functionalClass, geometry: segments.geometry })
+    .select({
+      id: segments.id,
+      segmentId: segments.segmentId,
+      roadName: segments.roadName,
+      pci: segments.pci,
+      cls: segments.functionalClass,
+      geometry: segments.geometry,
+    })
     .from(segments)
     .where(and(filters(agencyId, q), isNotNull(segments.geometry)))
     .all();
   const parts = rows.map(
-    (r) => `{"type":"Feature","id":${r.id},"properties":${JSON.stringify({ id: r.id, s: r.segmentId, r: r.roadName, p: r.pci === null ? -1 : Math.round(r.pci), c: r.cls })},"geometry":${r.geometry}}`,
+    (r) =>
+      `{"type":"Feature","id":${r.id},"properties":${JSON.stringify({ id: r.id, s: r.segmentId, r: r.roadName, p: r.pci === null ? -1 : Math.round(r.pci), c: r.cls })},"geometry":${r.geometry}}`,
   );
   return `{"type":"FeatureCollection","features":[${parts.join(',')}]}`;
 }

@@ -74,7 +74,8 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
     method: 'get',
     path: '/api/agencies/:agencyId/segments.geojson',
     tag: 'Segments',
-    summary: 'Segments with geometry as GeoJSON for the map (id, segment id, road name, PCI, class), same filters as the list',
+    summary:
+      'Segments with geometry as GeoJSON for the map (id, segment id, road name, PCI, class), same filters as the list',
     access: { kind: 'agency', role: 'viewer' },
     params: AgencyParamsSchema,
     query: FilterQuerySchema,

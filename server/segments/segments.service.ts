@@ -75,7 +75,14 @@ export function updateSegment(deps: Deps, agencyId: string, userId: string, id: 
       .set({ ...patch, updatedAt: new Date().toISOString() })
       .where(eq(segments.id, id))
       .run();
-    recordAudit(tx, { agencyId, userId, action: 'segment.update', entity: 'segment', entityId: before.segmentId, detail: changed });
+    recordAudit(tx, {
+      agencyId,
+      userId,
+      action: 'segment.update',
+      entity: 'segment',
+      entityId: before.segmentId,
+      detail: changed,
+    });
   });
   deps.listCache?.bump(agencyId);
   return segmentDetail(deps, agencyId, id);

@@ -1,6 +1,9 @@
 declare module 'better-sqlite3-session-store' {
   import type session from 'express-session';
-  type StoreCtor = new (options: { client: unknown; expired?: { clear?: boolean; intervalMs?: number } }) => session.Store;
+  type StoreCtor = new (options: {
+    client: unknown;
+    expired?: { clear?: boolean; intervalMs?: number };
+  }) => session.Store;
   export default function factory(s: typeof session): StoreCtor;
 }
 declare module 'epsg-index/all.json' {

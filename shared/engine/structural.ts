@@ -34,7 +34,15 @@ export function requiredStructuralNumber(w18: number, p: { zr: number; s0: numbe
 }
 
 /** Standard normal deviate ZR for common reliability levels (AASHTO 1993, Part I, Table 4.1). */
-export const ZR_BY_RELIABILITY: Record<number, number> = { 50: 0, 75: -0.674, 80: -0.841, 85: -1.037, 90: -1.282, 95: -1.645, 99: -2.327 };
+export const ZR_BY_RELIABILITY: Record<number, number> = {
+  50: 0,
+  75: -0.674,
+  80: -0.841,
+  85: -1.037,
+  90: -1.282,
+  95: -1.645,
+  99: -2.327,
+};
 
 export type StructuralAssumptions = {
   reliability: keyof typeof ZR_BY_RELIABILITY;
@@ -90,9 +98,21 @@ export function checkOverlay(
   a: StructuralAssumptions = DEFAULT_STRUCTURAL_ASSUMPTIONS,
 ): StructuralCheck {
   const trucksPerDay = (seg.adt ?? 0) * ((seg.truckPct ?? 0) / 100);
-  const designEsals = Math.max(1000, trucksPerDay * a.esalPerTruck * a.designLaneFactor * 365 * overlay.serviceLifeYears);
-  const requiredSn = requiredStructuralNumber(designEsals, { zr: ZR_BY_RELIABILITY[a.reliability], s0: a.s0, deltaPsi: a.deltaPsi, mrPsi: a.subgradeMrPsi });
-  const group = /arterial|interstate|freeway/.test(seg.functionalClass) ? 'arterial' : /collector/.test(seg.functionalClass) ? 'collector' : 'local';
+  const designEsals = Math.max(
+    1000,
+    trucksPerDay * a.esalPerTruck * a.designLaneFactor * 365 * overlay.serviceLifeYears,
+  );
+  const requiredSn = requiredStructuralNumber(designEsals, {
+    zr: ZR_BY_RELIABILITY[a.reliability],
+    s0: a.s0,
+    deltaPsi: a.deltaPsi,
+    mrPsi: a.subgradeMrPsi,
+  });
+  const group = /arterial|interstate|freeway/.test(seg.functionalClass)
+    ? 'arterial'
+    : /collector/.test(seg.functionalClass)
+      ? 'collector'
+      : 'local';
   const effectiveExistingSn = a.existingSn[group] * conditionFactor(seg.pci);
   const snWithOverlay = effectiveExistingSn + a.overlayLayerCoefficient * overlay.thicknessIn;
   const shortBy = Math.max(0, requiredSn - snWithOverlay);

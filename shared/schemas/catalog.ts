@@ -27,8 +27,14 @@ export const MixInputSchema = z
     coldWeatherNote: z.string().trim().max(500).nullable().default(null),
     priceEffectiveDate: isoDate,
   })
-  .refine((m) => m.minLiftIn <= m.maxLiftIn, { message: 'the minimum lift is more than the maximum', path: ['minLiftIn'] })
-  .refine((m) => m.refLiftIn >= m.minLiftIn && m.refLiftIn <= m.maxLiftIn, { message: 'the reference lift is outside the lift range', path: ['refLiftIn'] });
+  .refine((m) => m.minLiftIn <= m.maxLiftIn, {
+    message: 'the minimum lift is more than the maximum',
+    path: ['minLiftIn'],
+  })
+  .refine((m) => m.refLiftIn >= m.minLiftIn && m.refLiftIn <= m.maxLiftIn, {
+    message: 'the reference lift is outside the lift range',
+    path: ['refLiftIn'],
+  });
 export type MixInput = z.infer<typeof MixInputSchema>;
 
 export const MixSchema = z.object({
@@ -48,7 +54,16 @@ export const MixSchema = z.object({
 });
 export type Mix = z.infer<typeof MixSchema>;
 
-export const TREATMENT_KINDS = ['crack_seal', 'chip_seal', 'micro_surfacing', 'thin_overlay', 'mill_and_overlay', 'structural_overlay', 'reconstruction', 'custom'] as const;
+export const TREATMENT_KINDS = [
+  'crack_seal',
+  'chip_seal',
+  'micro_surfacing',
+  'thin_overlay',
+  'mill_and_overlay',
+  'structural_overlay',
+  'reconstruction',
+  'custom',
+] as const;
 export const TreatmentKindSchema = z.enum(TREATMENT_KINDS);
 export const TREATMENT_KIND_LABELS: Record<(typeof TREATMENT_KINDS)[number], string> = {
   crack_seal: 'crack seal',
@@ -107,8 +122,14 @@ export const TreatmentInputSchema = z
     message: 'an overlay needs a mix and a default thickness',
     path: ['mixId'],
   })
-  .refine((t) => t.lifeYears !== null || t.mixId !== null, { message: 'give a life, or a mix whose life it follows', path: ['lifeYears'] })
-  .refine((t) => t.applicability.pciMin <= t.applicability.pciMax, { message: 'the PCI range is reversed', path: ['applicability', 'pciMin'] });
+  .refine((t) => t.lifeYears !== null || t.mixId !== null, {
+    message: 'give a life, or a mix whose life it follows',
+    path: ['lifeYears'],
+  })
+  .refine((t) => t.applicability.pciMin <= t.applicability.pciMax, {
+    message: 'the PCI range is reversed',
+    path: ['applicability', 'pciMin'],
+  });
 export type TreatmentInput = z.infer<typeof TreatmentInputSchema>;
 
 export const TreatmentSchema = z.object({
@@ -150,7 +171,22 @@ export const CatalogSchema = z.object({
 export type Catalog = z.infer<typeof CatalogSchema>;
 
 export const PriceHistorySchema = z.object({
-  items: z.array(z.object({ entity: z.string(), entityId: z.string(), name: z.string(), field: z.string(), before: z.unknown(), after: z.unknown(), effectiveDate: z.string(), at: z.string(), userName: z.string().nullable() })),
+  items: z.array(
+    z.object({
+      entity: z.string(),
+      entityId: z.string(),
+      name: z.string(),
+      field: z.string(),
+      before: z.unknown(),
+      after: z.unknown(),
+      effectiveDate: z.string(),
+      at: z.string(),
+      userName: z.string().nullable(),
+    }),
+  ),
 });
 
-export const CatalogItemParamsSchema = z.object({ agencyId: z.string().min(1).max(64), itemId: z.string().min(1).max(64) });
+export const CatalogItemParamsSchema = z.object({
+  agencyId: z.string().min(1).max(64),
+  itemId: z.string().min(1).max(64),
+});

@@ -24,7 +24,14 @@ export const SEGMENT_FIELDS = [
 ] as const;
 export type SegmentField = (typeof SEGMENT_FIELDS)[number];
 
-export const REQUIRED_SEGMENT_FIELDS: SegmentField[] = ['segment_id', 'road_name', 'width_ft', 'lanes', 'functional_class', 'surface'];
+export const REQUIRED_SEGMENT_FIELDS: SegmentField[] = [
+  'segment_id',
+  'road_name',
+  'width_ft',
+  'lanes',
+  'functional_class',
+  'surface',
+];
 
 export const SURVEY_FIELDS = ['segment_id', 'survey_date', 'pci', 'source'] as const;
 export type SurveyField = (typeof SURVEY_FIELDS)[number];
@@ -132,4 +139,7 @@ export type ImportHistory = z.infer<typeof ImportHistorySchema>;
 
 export const SavedMappingSchema = z.object({ mapping: z.record(z.string(), z.string()).nullable() });
 
-export const ImportParamsSchema = z.object({ agencyId: z.string().min(1).max(64), importId: z.string().min(1).max(64) });
+export const ImportParamsSchema = z.object({
+  agencyId: z.string().min(1).max(64),
+  importId: z.string().min(1).max(64),
+});

@@ -19,12 +19,20 @@ const RatesSchema = z.object({
   perJob: z.number().min(0).max(1e9).default(0),
   addOnFraction: z.number().min(0).max(5).default(0),
 });
-const TemplateSchema = z.object({ label: z.string().max(120), serviceLifeYears: z.number().positive().max(100), rates: RatesSchema, userCostPerJob: z.number().min(0).optional() });
+const TemplateSchema = z.object({
+  label: z.string().max(120),
+  serviceLifeYears: z.number().positive().max(100),
+  rates: RatesSchema,
+  userCostPerJob: z.number().min(0).optional(),
+});
 
 export const PlanSchema = z.object({
   initial: TemplateSchema,
   rehabilitation: z.array(TemplateSchema).max(10).default([]),
-  maintenance: z.array(z.object({ template: TemplateSchema, everyYears: z.number().int().min(1).max(50) })).max(10).default([]),
+  maintenance: z
+    .array(z.object({ template: TemplateSchema, everyYears: z.number().int().min(1).max(50) }))
+    .max(10)
+    .default([]),
   repeatAtEndOfLife: z.boolean().default(true),
 });
 
@@ -35,7 +43,10 @@ export const EvaluateAlternativeSchema = z
     /** Richer form: a plan priced per SY / lane-mile / job, expanded over the period. */
     plan: PlanSchema.optional(),
   })
-  .refine((a) => (a.activities?.length ?? 0) > 0 || a.plan, { message: 'an alternative needs at least one activity (or a plan)', path: ['activities'] });
+  .refine((a) => (a.activities?.length ?? 0) > 0 || a.plan, {
+    message: 'an alternative needs at least one activity (or a plan)',
+    path: ['activities'],
+  });
 
 export const EvaluateBodySchema = z
   .object({
@@ -49,14 +60,29 @@ export const EvaluateBodySchema = z
     for (const [i, a] of b.alternatives.entries()) {
       for (const [j, act] of (a.activities ?? []).entries()) {
         if (act.year > b.analysisPeriodYears)
-          ctx.addIssue({ code: 'custom', path: ['alternatives', i, 'activities', j, 'year'], message: `falls outside the ${b.analysisPeriodYears}-year analysis period` });
+          ctx.addIssue({
+            code: 'custom',
+            path: ['alternatives', i, 'activities', j, 'year'],
+            message: `falls outside the ${b.analysisPeriodYears}-year analysis period`,
+          });
       }
     }
-    if (b.alternatives.some((a) => a.plan) && !b.quantities) ctx.addIssue({ code: 'custom', path: ['quantities'], message: 'is required when an alternative is given as a plan' });
+    if (b.alternatives.some((a) => a.plan) && !b.quantities)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['quantities'],
+        message: 'is required when an alternative is given as a plan',
+      });
   });
 export type EvaluateBody = z.infer<typeof EvaluateBodySchema>;
 
-export const CashFlowSchema = z.object({ year: z.number(), cost: z.number(), userCost: z.number(), presentValue: z.number(), label: z.string().optional() });
+export const CashFlowSchema = z.object({
+  year: z.number(),
+  cost: z.number(),
+  userCost: z.number(),
+  presentValue: z.number(),
+  label: z.string().optional(),
+});
 
 export const EvaluateResultSchema = z.object({
   discountRate: z.number(),
@@ -88,7 +114,10 @@ export const AlternativeSpecSchema = z.object({
   name: z.string().trim().min(1).max(80),
   initial: StepSchema,
   rehabilitation: z.array(StepSchema).max(6).default([]),
-  maintenance: z.array(z.object({ treatmentId: z.string().min(1), everyYears: z.number().int().min(1).max(30) })).max(4).default([]),
+  maintenance: z
+    .array(z.object({ treatmentId: z.string().min(1), everyYears: z.number().int().min(1).max(30) }))
+    .max(4)
+    .default([]),
   repeatAtEndOfLife: z.boolean().default(true),
 });
 export type AlternativeSpec = z.infer<typeof AlternativeSpecSchema>;
@@ -101,21 +130,41 @@ export const GroupSchema = z.object({
   centrelineMiles: z.number().positive().max(1e6),
   /** Per-segment traffic and condition for the structural caution. */
   segments: z
-    .array(z.object({ segmentId: z.string(), adt: z.number().nullable(), truckPct: z.number().nullable(), functionalClass: FunctionalClassSchema, pci: z.number().nullable() }))
+    .array(
+      z.object({
+        segmentId: z.string(),
+        adt: z.number().nullable(),
+        truckPct: z.number().nullable(),
+        functionalClass: FunctionalClassSchema,
+        pci: z.number().nullable(),
+      }),
+    )
     .max(50_000),
 });
 export type Group = z.infer<typeof GroupSchema>;
 
-export const RangeOverrideSchema = z.object({ low: z.number(), high: z.number(), distribution: z.enum(['triangular', 'uniform', 'fixed']).default('triangular') });
+export const RangeOverrideSchema = z.object({
+  low: z.number(),
+  high: z.number(),
+  distribution: z.enum(['triangular', 'uniform', 'fixed']).default('triangular'),
+});
 
 export const StudyInputSchema = z.object({
   economics: EconomicsSchema,
   group: GroupSchema,
-  alternatives: z.array(AlternativeSpecSchema).min(2, 'compare at least two alternatives').max(6, 'compare at most six alternatives'),
+  alternatives: z
+    .array(AlternativeSpecSchema)
+    .min(2, 'compare at least two alternatives')
+    .max(6, 'compare at most six alternatives'),
   baselineIndex: z.number().int().min(0).default(0),
   risk: z.object({
     iterations: z.number().int().min(100).max(20_000).default(5000),
-    seed: z.number().int().min(0).max(2 ** 31).default(2027),
+    seed: z
+      .number()
+      .int()
+      .min(0)
+      .max(2 ** 31)
+      .default(2027),
     ranges: z.record(z.string(), RangeOverrideSchema).default({}),
   }),
   /** The catalog items the study uses, as they were: the snapshot that makes a re-run exact. */
@@ -135,7 +184,10 @@ export const StudyRequestSchema = z.object({
 export type StudyRequest = z.infer<typeof StudyRequestSchema>;
 
 export const RunParamsSchema = z.object({ agencyId: z.string().min(1).max(64), runId: z.string().min(1).max(64) });
-export const AnalysisParamsSchema = z.object({ agencyId: z.string().min(1).max(64), analysisId: z.string().min(1).max(64) });
+export const AnalysisParamsSchema = z.object({
+  agencyId: z.string().min(1).max(64),
+  analysisId: z.string().min(1).max(64),
+});
 
 export const RunStateSchema = z.object({
   id: z.string(),
@@ -149,8 +201,22 @@ export const RunStateSchema = z.object({
 });
 export type RunStateView = z.infer<typeof RunStateSchema>;
 
-export const SaveAnalysisBodySchema = z.object({ name: z.string().trim().min(1).max(120), runId: z.string().min(1).max(64) });
+export const SaveAnalysisBodySchema = z.object({
+  name: z.string().trim().min(1).max(120),
+  runId: z.string().min(1).max(64),
+});
 
 export const AnalysisListSchema = z.object({
-  items: z.array(z.object({ id: z.string(), name: z.string(), createdAt: z.string(), updatedAt: z.string(), createdBy: z.string().nullable(), alternatives: z.number(), group: z.string(), laneMiles: z.number() })),
+  items: z.array(
+    z.object({
+      id: z.string(),
+      name: z.string(),
+      createdAt: z.string(),
+      updatedAt: z.string(),
+      createdBy: z.string().nullable(),
+      alternatives: z.number(),
+      group: z.string(),
+      laneMiles: z.number(),
+    }),
+  ),
 });

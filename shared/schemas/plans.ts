@@ -22,7 +22,8 @@ export const PlanSettingsSchema = z
   .superRefine((s, ctx) => {
     if (s.budgetMode === 'custom') {
       if (!s.budgets) ctx.addIssue({ code: 'custom', path: ['budgets'], message: 'is required: one budget per year' });
-      else if (s.budgets.length !== s.horizonYears) ctx.addIssue({ code: 'custom', path: ['budgets'], message: `needs ${s.horizonYears} values, one per year` });
+      else if (s.budgets.length !== s.horizonYears)
+        ctx.addIssue({ code: 'custom', path: ['budgets'], message: `needs ${s.horizonYears} values, one per year` });
     } else if (s.annualBudget === undefined) {
       ctx.addIssue({ code: 'custom', path: ['annualBudget'], message: 'is required' });
     }
@@ -31,7 +32,10 @@ export type PlanSettingsInput = z.infer<typeof PlanSettingsSchema>;
 
 export function budgetsOf(s: PlanSettingsInput): number[] {
   if (s.budgetMode === 'custom') return s.budgets ?? [];
-  return Array.from({ length: s.horizonYears }, (_, y) => (s.annualBudget ?? 0) * (s.budgetMode === 'escalating' ? (1 + s.escalationPct / 100) ** y : 1));
+  return Array.from(
+    { length: s.horizonYears },
+    (_, y) => (s.annualBudget ?? 0) * (s.budgetMode === 'escalating' ? (1 + s.escalationPct / 100) ** y : 1),
+  );
 }
 
 export const PlanBodySchema = z.object({ name: z.string().trim().min(1).max(120), settings: PlanSettingsSchema });
@@ -44,11 +48,17 @@ export const PlanSummarySchema = z.object({
   createdAt: z.string(),
   updatedAt: z.string(),
   publishedAt: z.string().nullable(),
-  lastRun: z.object({ id: z.string(), status: z.string(), startedAt: z.string(), endedAt: z.string().nullable() }).nullable(),
+  lastRun: z
+    .object({ id: z.string(), status: z.string(), startedAt: z.string(), endedAt: z.string().nullable() })
+    .nullable(),
 });
 
 export const PlanParamsSchema = z.object({ agencyId: z.string().min(1).max(64), planId: z.string().min(1).max(64) });
-export const PlanRunParamsSchema = z.object({ agencyId: z.string().min(1).max(64), planId: z.string().min(1).max(64), runId: z.string().min(1).max(64) });
+export const PlanRunParamsSchema = z.object({
+  agencyId: z.string().min(1).max(64),
+  planId: z.string().min(1).max(64),
+  runId: z.string().min(1).max(64),
+});
 
 export const PublishBodySchema = z.object({ publish: z.boolean(), notifyViewers: z.boolean().default(false) });
 export const BudgetSearchBodySchema = z.object({ targetPci: z.number().min(1).max(100) });
@@ -61,24 +71,44 @@ const OptionSchema = z
     benefit: z.number().min(0).max(1e12),
     year: z.number().int().min(0).optional(),
     cost: z.number().min(0).max(1e12).optional(),
-    costs: z.array(z.object({ year: z.number().int().min(0), cost: z.number().min(0).max(1e12) })).min(1).max(20).optional(),
+    costs: z
+      .array(z.object({ year: z.number().int().min(0), cost: z.number().min(0).max(1e12) }))
+      .min(1)
+      .max(20)
+      .optional(),
   })
-  .refine((o) => (o.costs ? o.year === undefined && o.cost === undefined : o.year !== undefined && o.cost !== undefined), {
-    message: 'give either year and cost, or costs: [{ year, cost }]',
-  });
+  .refine(
+    (o) => (o.costs ? o.year === undefined && o.cost === undefined : o.year !== undefined && o.cost !== undefined),
+    {
+      message: 'give either year and cost, or costs: [{ year, cost }]',
+    },
+  );
 
 export const OptimizeBodySchema = z
   .object({
     budgets: z.array(z.number().min(0, 'cannot be negative').max(1e12)).min(1, 'give at least one year').max(50),
     method: z.enum(['exact', 'fast', 'ranking']).default('fast'),
-    segments: z.array(z.object({ id: z.string().min(1).max(120), priority: z.number().optional(), options: z.array(OptionSchema).max(200) })).max(100_000),
+    segments: z
+      .array(
+        z.object({
+          id: z.string().min(1).max(120),
+          priority: z.number().optional(),
+          options: z.array(OptionSchema).max(200),
+        }),
+      )
+      .max(100_000),
     timeLimitSeconds: z.number().min(1).max(120).default(30),
   })
   .superRefine((b, ctx) => {
     for (const [i, s] of b.segments.entries()) {
       for (const [j, o] of s.options.entries()) {
         const years = o.costs ? o.costs.map((c) => c.year) : [o.year ?? 0];
-        if (years.some((y) => y >= b.budgets.length)) ctx.addIssue({ code: 'custom', path: ['segments', i, 'options', j], message: `spends in a year with no budget (there are ${b.budgets.length})` });
+        if (years.some((y) => y >= b.budgets.length))
+          ctx.addIssue({
+            code: 'custom',
+            path: ['segments', i, 'options', j],
+            message: `spends in a year with no budget (there are ${b.budgets.length})`,
+          });
       }
     }
   });
@@ -96,8 +126,15 @@ export const OptimizeResultSchema = z.object({
 
 // ---- Forecast ---------------------------------------------------------------
 
-export const CurveSchema = z.object({ p0: z.number().min(0).max(100), a: z.number().positive().max(100), b: z.number().min(1).max(3) });
-export const CurveOverrideBodySchema = z.object({ familyKey: z.string().min(3).max(80), curve: CurveSchema.nullable() });
+export const CurveSchema = z.object({
+  p0: z.number().min(0).max(100),
+  a: z.number().positive().max(100),
+  b: z.number().min(1).max(3),
+});
+export const CurveOverrideBodySchema = z.object({
+  familyKey: z.string().min(3).max(80),
+  curve: CurveSchema.nullable(),
+});
 
 export type FamilyView = {
   key: string;

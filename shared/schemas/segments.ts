@@ -43,10 +43,7 @@ export const SegmentSchema = z.object({
 export type Segment = z.infer<typeof SegmentSchema>;
 
 const csvList = <T extends z.ZodTypeAny>(item: T) =>
-  z.preprocess(
-    (v) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v),
-    z.array(item).max(20),
-  );
+  z.preprocess((v) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v), z.array(item).max(20));
 
 export const SegmentListQuerySchema = z.object({
   limit: z.coerce.number().int().min(1).max(1000).default(100),
@@ -56,7 +53,12 @@ export const SegmentListQuerySchema = z.object({
   surface: csvList(SurfaceSchema).optional(),
   band: csvList(z.enum([...CONDITION_BAND_IDS, 'none'])).optional(),
   district: z.string().trim().max(100).optional(),
-  ids: z.preprocess((v) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v), z.array(z.coerce.number().int().positive()).max(5000)).optional(),
+  ids: z
+    .preprocess(
+      (v) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v),
+      z.array(z.coerce.number().int().positive()).max(5000),
+    )
+    .optional(),
   sort: z.enum(['segmentId', 'roadName', 'lengthMi', 'pci', 'functionalClass', 'district']).default('segmentId'),
   dir: z.enum(['asc', 'desc']).default('asc'),
 });

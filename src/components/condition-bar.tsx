@@ -4,7 +4,11 @@ import { fmtInt } from '@/lib/format';
 /** Lane-miles by condition band as one horizontal bar; the legend always carries numbers. */
 export function ConditionBar({ byBand }: { byBand: { band: string; laneMiles: number }[] }) {
   const bands = [
-    ...CONDITION_BANDS.map((b) => ({ id: b.id as string, label: `${b.label} (PCI ${b.min}–${b.max})`, color: b.color })),
+    ...CONDITION_BANDS.map((b) => ({
+      id: b.id as string,
+      label: `${b.label} (PCI ${b.min}–${b.max})`,
+      color: b.color,
+    })),
     { id: 'none', label: 'Unpaved or no survey', color: NO_DATA_COLOR },
   ];
   const total = byBand.reduce((s, b) => s + b.laneMiles, 0) || 1;
@@ -13,7 +17,11 @@ export function ConditionBar({ byBand }: { byBand: { band: string; laneMiles: nu
     <div>
       <div className="flex h-6 w-full overflow-hidden rounded" role="img" aria-label="Lane-miles by condition band">
         {bands.map((b) => (
-          <div key={b.id} style={{ width: `${(100 * value(b.id)) / total}%`, background: b.color }} title={`${b.label}: ${fmtInt(value(b.id))} lane-mi`} />
+          <div
+            key={b.id}
+            style={{ width: `${(100 * value(b.id)) / total}%`, background: b.color }}
+            title={`${b.label}: ${fmtInt(value(b.id))} lane-mi`}
+          />
         ))}
       </div>
       <ul className="mt-2 grid grid-cols-2 gap-x-4 gap-y-1 text-xs md:grid-cols-3">

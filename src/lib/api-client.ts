@@ -27,8 +27,14 @@ export async function api<T>(path: string, init: RequestInit & { json?: unknown 
   const text = await res.text();
   const data = text ? safeJson(text) : undefined;
   if (!res.ok) {
-    const err = (data as { error?: { code?: string; message?: string; issues?: { path: string; message: string }[] } })?.error;
-    throw new ApiError(res.status, err?.code ?? 'http_error', err?.message ?? `Request failed (${res.status})`, err?.issues);
+    const err = (data as { error?: { code?: string; message?: string; issues?: { path: string; message: string }[] } })
+      ?.error;
+    throw new ApiError(
+      res.status,
+      err?.code ?? 'http_error',
+      err?.message ?? `Request failed (${res.status})`,
+      err?.issues,
+    );
   }
   return data as T;
 }

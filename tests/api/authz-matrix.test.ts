@@ -27,7 +27,8 @@ function send(client: ReturnType<TestApp['anonymous']>, r: RouteDef, url: string
   return r.method === 'get' || r.method === 'delete' ? req : req.send({});
 }
 
-const isAgencyNotFound = (res: { status: number; body: { error?: { message?: string } } }) => res.status === 404 && res.body?.error?.message === 'No such agency';
+const isAgencyNotFound = (res: { status: number; body: { error?: { message?: string } } }) =>
+  res.status === 404 && res.body?.error?.message === 'No such agency';
 
 describe('authorization matrix over every declared route', () => {
   it('covers every /api route Express serves', () => {
@@ -41,7 +42,9 @@ describe('authorization matrix over every declared route', () => {
       }
     };
     walk((t.app as unknown as { router: { stack: Layer[] } }).router.stack);
-    const undeclared = served.filter((s) => s.includes(' /api/') && !declared.has(s) && !['get /api/health', 'get /api/openapi.json'].includes(s));
+    const undeclared = served.filter(
+      (s) => s.includes(' /api/') && !declared.has(s) && !['get /api/health', 'get /api/openapi.json'].includes(s),
+    );
     expect(served.length).toBeGreaterThan(50);
     expect(undeclared).toEqual([]);
     expect(t.routes.length).toBeGreaterThan(50);
@@ -63,11 +66,15 @@ describe('authorization matrix over every declared route', () => {
         if (r.access.kind !== 'agency') continue;
         const own = await send(users[role], r, fill(r, t.ids.brannock));
         const allowed = ROLE_RANK[role] >= ROLE_RANK[r.access.role];
-        if (allowed && (own.status === 401 || own.status === 403 || isAgencyNotFound(own))) failures.push(`own ${r.method} ${r.path} → ${own.status} (should pass the access check)`);
+        if (allowed && (own.status === 401 || own.status === 403 || isAgencyNotFound(own)))
+          failures.push(`own ${r.method} ${r.path} → ${own.status} (should pass the access check)`);
         if (!allowed && own.status !== 403) failures.push(`own ${r.method} ${r.path} → ${own.status} (should be 403)`);
         if (own.status >= 500) failures.push(`own ${r.method} ${r.path} → ${own.status}`);
         const foreign = await send(users[role], r, fill(r, t.ids.marlow));
-        if (!isAgencyNotFound(foreign)) failures.push(`foreign ${r.method} ${r.path} → ${foreign.status} ${JSON.stringify(foreign.body).slice(0, 80)}`);
+        if (!isAgencyNotFound(foreign))
+          failures.push(
+            `foreign ${r.method} ${r.path} → ${foreign.status} ${JSON.stringify(foreign.body).slice(0, 80)}`,
+          );
       }
       expect(failures).toEqual([]);
     });

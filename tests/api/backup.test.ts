@@ -20,8 +20,13 @@ beforeAll(async () => {
   t = await createTestApp();
   admin = await t.as('admin@brannock.example');
   // Give the agency a plan and a curve edit, so the archive carries more than the seed.
-  await admin.post(`/api/agencies/${t.ids.brannock}/plans`).send({ name: 'Archived plan', settings: { startYear: 2027, horizonYears: 5, budgetMode: 'flat', annualBudget: 1_000_000 } });
-  await admin.put(`/api/agencies/${t.ids.brannock}/forecast/curves`).send({ familyKey: 'asphalt|local|overlay', curve: { p0: 99, a: 0.6, b: 1.5 } });
+  await admin.post(`/api/agencies/${t.ids.brannock}/plans`).send({
+    name: 'Archived plan',
+    settings: { startYear: 2027, horizonYears: 5, budgetMode: 'flat', annualBudget: 1_000_000 },
+  });
+  await admin
+    .put(`/api/agencies/${t.ids.brannock}/forecast/curves`)
+    .send({ familyKey: 'asphalt|local|overlay', curve: { p0: 99, a: 0.6, b: 1.5 } });
 });
 afterAll(() => t.close());
 
@@ -43,7 +48,10 @@ describe('agency export and restore', () => {
     expect(manifest.counts).toMatchObject({ segments: 1224, mixes: 4, treatments: 7, plans: 1, curves: 1 });
     expect(manifest.counts.surveys).toBeGreaterThan(7000);
 
-    const restored = await admin.post('/api/agencies/restore').field('name', 'Brannock County (copy)').attach('file', exp.body as Buffer, 'export.zip');
+    const restored = await admin
+      .post('/api/agencies/restore')
+      .field('name', 'Brannock County (copy)')
+      .attach('file', exp.body as Buffer, 'export.zip');
     expect(restored.status).toBe(201);
     expect(restored.body.counts).toEqual(manifest.counts);
     const me = await admin.get('/api/me');
@@ -53,14 +61,25 @@ describe('agency export and restore', () => {
     const b = await files(exp2.body as Buffer);
     expect(JSON.parse(b['manifest.json']).counts).toEqual(manifest.counts);
     // Identical content wherever ids do not appear.
-    for (const n of ['segments.csv', 'segments.geojson', 'surveys.csv', 'curves.json', 'import-mappings.json', 'analyses.json']) expect(hash(b[n]), n).toBe(hash(a[n]));
+    for (const n of [
+      'segments.csv',
+      'segments.geojson',
+      'surveys.csv',
+      'curves.json',
+      'import-mappings.json',
+      'analyses.json',
+    ])
+      expect(hash(b[n]), n).toBe(hash(a[n]));
     // The catalog and plans carry new ids: equal once ids are mapped back to names.
     const strip = (txt: string) => {
       const c = JSON.parse(txt);
       const mixName = new Map(c.mixes.map((m: { id: string; name: string }) => [m.id, m.name]));
       return {
         mixes: c.mixes.map(({ id: _i, ...m }: { id: string }) => m),
-        treatments: c.treatments.map(({ id: _i, mixId, ...t }: { id: string; mixId: string | null }) => ({ ...t, mix: mixId ? mixName.get(mixId) : null })),
+        treatments: c.treatments.map(({ id: _i, mixId, ...t }: { id: string; mixId: string | null }) => ({
+          ...t,
+          mix: mixId ? mixName.get(mixId) : null,
+        })),
       };
     };
     expect(strip(b['catalog.json'])).toEqual(strip(a['catalog.json']));

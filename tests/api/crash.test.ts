@@ -27,7 +27,11 @@ function kill9() {
 }
 
 async function signIn(url: string) {
-  const res = await fetch(`${url}/api/auth/sign-in/email`, { method: 'POST', headers: { 'Content-Type': 'application/json', Origin: url }, body: JSON.stringify({ email: 'engineer@brannock.example', password: 'wearcourse-demo' }) });
+  const res = await fetch(`${url}/api/auth/sign-in/email`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json', Origin: url },
+    body: JSON.stringify({ email: 'engineer@brannock.example', password: 'wearcourse-demo' }),
+  });
   const cookie = res.headers.get('set-cookie')!.split(';')[0];
   const me = (await res.json()) as { memberships: { agencyId: string; agencyName: string }[] };
   return { cookie, agencyId: me.memberships.find((m) => m.agencyName === 'Brannock County')!.agencyId };
@@ -37,7 +41,8 @@ const inspect = () => {
   const db = new Database(dbPath, { readonly: true });
   const r = {
     integrity: db.pragma('integrity_check', { simple: true }),
-    synthetic: (db.prepare("SELECT count(*) AS n FROM segments WHERE segment_id LIKE 'SYN-%'").get() as { n: number }).n,
+    synthetic: (db.prepare("SELECT count(*) AS n FROM segments WHERE segment_id LIKE 'SYN-%'").get() as { n: number })
+      .n,
     imports: (db.prepare('SELECT count(*) AS n FROM imports').get() as { n: number }).n,
     runs: db.prepare('SELECT status, error FROM plan_runs').all() as { status: string; error: string | null }[],
   };
@@ -56,7 +61,11 @@ describe('crash safety (SIGKILL)', () => {
     const { cookie, agencyId } = await signIn(url);
     const form = new FormData();
     form.set('file', new Blob([syntheticCsv(50_000)]), 'big.csv');
-    const pending = fetch(`${url}/api/agencies/${agencyId}/imports`, { method: 'POST', headers: { Cookie: cookie, Origin: url }, body: form }).catch(() => 'killed');
+    const pending = fetch(`${url}/api/agencies/${agencyId}/imports`, {
+      method: 'POST',
+      headers: { Cookie: cookie, Origin: url },
+      body: form,
+    }).catch(() => 'killed');
     await new Promise((r) => setTimeout(r, 700));
     await kill9();
     expect(await pending).toBe('killed');
@@ -66,11 +75,22 @@ describe('crash safety (SIGKILL)', () => {
     expect(after.imports).toBe(0);
   });
 
-  it('a plan run killed half-way is marked failed at the next start, and the app serves again', { timeout: 180_000 }, async () => {
+  it('a plan run killed half-way is marked failed at the next start, and the app serves again', {
+    timeout: 180_000,
+  }, async () => {
     let url = await start();
     const { cookie, agencyId } = await signIn(url);
     const headers = { Cookie: cookie, Origin: url, 'Content-Type': 'application/json' };
-    const plan = (await (await fetch(`${url}/api/agencies/${agencyId}/plans`, { method: 'POST', headers, body: JSON.stringify({ name: 'crash', settings: { startYear: 2027, horizonYears: 20, budgetMode: 'flat', annualBudget: 3_000_000, method: 'fast' } }) })).json()) as { id: string };
+    const plan = (await (
+      await fetch(`${url}/api/agencies/${agencyId}/plans`, {
+        method: 'POST',
+        headers,
+        body: JSON.stringify({
+          name: 'crash',
+          settings: { startYear: 2027, horizonYears: 20, budgetMode: 'flat', annualBudget: 3_000_000, method: 'fast' },
+        }),
+      })
+    ).json()) as { id: string };
     const run = await fetch(`${url}/api/agencies/${agencyId}/plans/${plan.id}/run`, { method: 'POST', headers });
     expect(run.status).toBe(202);
     await new Promise((r) => setTimeout(r, 150));
@@ -80,12 +100,14 @@ describe('crash safety (SIGKILL)', () => {
     const after = inspect();
     expect(after.integrity).toBe('ok');
     expect(after.runs).toEqual([{ status: 'failed', error: 'interrupted by a server restart' }]);
-    expect((await (await fetch(`${url}/api/health`)).json())).toEqual({ ok: true });
+    expect(await (await fetch(`${url}/api/health`)).json()).toEqual({ ok: true });
     // And the plan can run again to the end.
     const again = await signIn(url);
-    const r2 = await fetch(`${url}/api/agencies/${agencyId}/plans/${plan.id}/run`, { method: 'POST', headers: { ...headers, Cookie: again.cookie, Origin: url } });
+    const r2 = await fetch(`${url}/api/agencies/${agencyId}/plans/${plan.id}/run`, {
+      method: 'POST',
+      headers: { ...headers, Cookie: again.cookie, Origin: url },
+    });
     expect(r2.status).toBe(202);
     await kill9();
   });
 });
-

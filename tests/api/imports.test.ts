@@ -29,7 +29,15 @@ describe('CSV with our canonical headers', () => {
     const before = segCount();
     const res = await upload(sample('brannock-prairie-view.csv'), { dryRun: 'true' });
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ dryRun: true, format: 'csv', added: 58, updated: 0, unchanged: 0, rejected: 0, errors: [] });
+    expect(res.body).toMatchObject({
+      dryRun: true,
+      format: 'csv',
+      added: 58,
+      updated: 0,
+      unchanged: 0,
+      rejected: 0,
+      errors: [],
+    });
     expect(res.body.preview).toHaveLength(10);
     expect(res.body.mapping.segment_id).toBe('segment_id');
     expect(segCount()).toBe(before);
@@ -41,18 +49,32 @@ describe('CSV with our canonical headers', () => {
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ dryRun: false, added: 58, updated: 0, unchanged: 0, rejected: 0 });
     expect(segCount()).toBe(before + 58);
-    const seg = t.sqlite.prepare("SELECT * FROM segments WHERE agency_id = ? AND segment_id = 'PV-S1-1'").get(t.ids.brannock) as Record<string, unknown>;
-    expect(seg).toMatchObject({ road_name: 'Bluestem Dr', length_mi: 0.08, width_ft: 30, functional_class: 'local', surface: 'asphalt' });
+    const seg = t.sqlite
+      .prepare("SELECT * FROM segments WHERE agency_id = ? AND segment_id = 'PV-S1-1'")
+      .get(t.ids.brannock) as Record<string, unknown>;
+    expect(seg).toMatchObject({
+      road_name: 'Bluestem Dr',
+      length_mi: 0.08,
+      width_ft: 30,
+      functional_class: 'local',
+      surface: 'asphalt',
+    });
     expect(count('SELECT count(*) AS n FROM surveys WHERE segment_ref = ?', seg.id)).toBe(1);
     const again = await upload(sample('brannock-prairie-view.csv'));
     expect(again.body).toMatchObject({ added: 0, updated: 0, unchanged: 58, rejected: 0 });
     const history = await eng.get(url);
-    expect(history.body.items[0]).toMatchObject({ fileName: 'brannock-prairie-view.csv', unchanged: 58, userName: 'Ruben Osei' });
+    expect(history.body.items[0]).toMatchObject({
+      fileName: 'brannock-prairie-view.csv',
+      unchanged: 58,
+      userName: 'Ruben Osei',
+    });
     expect(history.body.items[1]).toMatchObject({ added: 58 });
   });
 
   it('re-import upserts by segment id: changed rows are updated, others unchanged', async () => {
-    const text = fs.readFileSync(sample('brannock-prairie-view.csv'), 'utf8').replace('PV-S1-1,Bluestem Dr', 'PV-S1-1,Bluestem Drive');
+    const text = fs
+      .readFileSync(sample('brannock-prairie-view.csv'), 'utf8')
+      .replace('PV-S1-1,Bluestem Dr', 'PV-S1-1,Bluestem Drive');
     const res = await upload({ name: 'edited.csv', content: text });
     expect(res.body).toMatchObject({ added: 0, updated: 1, unchanged: 57 });
   });
@@ -63,13 +85,23 @@ describe('XLSX with its own headers', () => {
     const res = await upload(sample('brannock-prairie-view.xlsx'), { dryRun: 'true' });
     expect(res.status).toBe(200);
     expect(res.body.format).toBe('xlsx');
-    expect(res.body.mapping).toMatchObject({ segment_id: 'Segment ID', road_name: 'Road Name', length_mi: 'Length (mi)', surface: 'Surface Type', adt: 'AADT', pci_date: 'Survey Date' });
+    expect(res.body.mapping).toMatchObject({
+      segment_id: 'Segment ID',
+      road_name: 'Road Name',
+      length_mi: 'Length (mi)',
+      surface: 'Surface Type',
+      adt: 'AADT',
+      pci_date: 'Survey Date',
+    });
     expect(res.body.rejected).toBe(0);
     expect(res.body.unchanged + res.body.updated).toBe(58);
   });
 
   it('an explicit mapping naming a column that is not there answers 400 naming the field', async () => {
-    const res = await upload(sample('brannock-prairie-view.xlsx'), { dryRun: 'true', mapping: JSON.stringify({ road_name: 'Street' }) });
+    const res = await upload(sample('brannock-prairie-view.xlsx'), {
+      dryRun: 'true',
+      mapping: JSON.stringify({ road_name: 'Street' }),
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.issues[0].path).toBe('mapping.road_name');
   });
@@ -80,10 +112,14 @@ describe('GeoJSON', () => {
     const fresh = await createTestApp();
     try {
       const u = await fresh.as('engineer@marlow.example');
-      const res = await u.post(`/api/agencies/${fresh.ids.marlow}/imports`).attach('file', sample('brannock-prairie-view.geojson'));
+      const res = await u
+        .post(`/api/agencies/${fresh.ids.marlow}/imports`)
+        .attach('file', sample('brannock-prairie-view.geojson'));
       expect(res.status).toBe(200);
       expect(res.body).toMatchObject({ format: 'geojson', added: 58, rejected: 0 });
-      const row = fresh.sqlite.prepare("SELECT length_mi, geometry FROM segments WHERE segment_id = 'PV-S1-1'").get() as { length_mi: number; geometry: string };
+      const row = fresh.sqlite
+        .prepare("SELECT length_mi, geometry FROM segments WHERE segment_id = 'PV-S1-1'")
+        .get() as { length_mi: number; geometry: string };
       // 0.08 mi blocks laid out on the sample's grid; turf's geodesic length agrees within 0.5%.
       expect(row.length_mi).toBeGreaterThan(0.08 * 0.995);
       expect(row.length_mi).toBeLessThan(0.08 * 1.005);
@@ -99,12 +135,24 @@ describe('GeoJSON', () => {
     try {
       const ua = await a.as('engineer@marlow.example');
       const ub = await b.as('engineer@marlow.example');
-      expect((await ua.post(`/api/agencies/${a.ids.marlow}/imports`).attach('file', sample('brannock-prairie-view.geojson'))).status).toBe(200);
-      const rb = await ub.post(`/api/agencies/${b.ids.marlow}/imports`).attach('file', sample('brannock-prairie-view-stateplane.geojson'));
+      expect(
+        (await ua.post(`/api/agencies/${a.ids.marlow}/imports`).attach('file', sample('brannock-prairie-view.geojson')))
+          .status,
+      ).toBe(200);
+      const rb = await ub
+        .post(`/api/agencies/${b.ids.marlow}/imports`)
+        .attach('file', sample('brannock-prairie-view-stateplane.geojson'));
       expect(rb.status).toBe(200);
       expect(rb.body.crs).toBe('EPSG:3419');
       const geo = (app: TestApp) =>
-        new Map((app.sqlite.prepare("SELECT segment_id, geometry FROM segments WHERE segment_id LIKE 'PV-%'").all() as { segment_id: string; geometry: string }[]).map((r) => [r.segment_id, JSON.parse(r.geometry).coordinates as number[][]]));
+        new Map(
+          (
+            app.sqlite.prepare("SELECT segment_id, geometry FROM segments WHERE segment_id LIKE 'PV-%'").all() as {
+              segment_id: string;
+              geometry: string;
+            }[]
+          ).map((r) => [r.segment_id, JSON.parse(r.geometry).coordinates as number[][]]),
+        );
       const ga = geo(a);
       const gb = geo(b);
       expect(gb.size).toBe(58);
@@ -138,7 +186,10 @@ describe('GeoJSON', () => {
   });
 
   it('an unknown EPSG code answers 400 naming crs', async () => {
-    const res = await upload(sample('brannock-prairie-view-stateplane.geojson'), { dryRun: 'true', crs: 'EPSG:999999' });
+    const res = await upload(sample('brannock-prairie-view-stateplane.geojson'), {
+      dryRun: 'true',
+      crs: 'EPSG:999999',
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.issues[0].path).toBe('crs');
   });
@@ -147,31 +198,81 @@ describe('GeoJSON', () => {
     const doc = {
       type: 'FeatureCollection',
       features: [
-        { type: 'Feature', properties: { segment_id: 'G-1', road_name: 'A', width_ft: 24, lanes: 2, functional_class: 'local', surface: 'asphalt' }, geometry: { type: 'Point', coordinates: [-98.5, 38.8] } },
-        { type: 'Feature', properties: { segment_id: 'G-2', road_name: 'B', width_ft: 24, lanes: 2, functional_class: 'local', surface: 'asphalt' }, geometry: { type: 'LineString', coordinates: [[-98.5, 38.8]] } },
-        { type: 'Feature', properties: { segment_id: 'G-3', road_name: 'C', width_ft: 24, lanes: 2, functional_class: 'local', surface: 'asphalt' }, geometry: null },
+        {
+          type: 'Feature',
+          properties: {
+            segment_id: 'G-1',
+            road_name: 'A',
+            width_ft: 24,
+            lanes: 2,
+            functional_class: 'local',
+            surface: 'asphalt',
+          },
+          geometry: { type: 'Point', coordinates: [-98.5, 38.8] },
+        },
+        {
+          type: 'Feature',
+          properties: {
+            segment_id: 'G-2',
+            road_name: 'B',
+            width_ft: 24,
+            lanes: 2,
+            functional_class: 'local',
+            surface: 'asphalt',
+          },
+          geometry: { type: 'LineString', coordinates: [[-98.5, 38.8]] },
+        },
+        {
+          type: 'Feature',
+          properties: {
+            segment_id: 'G-3',
+            road_name: 'C',
+            width_ft: 24,
+            lanes: 2,
+            functional_class: 'local',
+            surface: 'asphalt',
+          },
+          geometry: null,
+        },
       ],
     };
     const res = await upload({ name: 'bad.geojson', content: JSON.stringify(doc) }, { dryRun: 'true' });
     expect(res.status).toBe(422);
-    expect(res.body.errors.map((e: { row: number; column: string }) => `${e.row}:${e.column}`)).toEqual(['1:geometry', '2:geometry', '3:geometry']);
+    expect(res.body.errors.map((e: { row: number; column: string }) => `${e.row}:${e.column}`)).toEqual([
+      '1:geometry',
+      '2:geometry',
+      '3:geometry',
+    ]);
   });
 });
 
 describe('WKT geometry in a spreadsheet column', () => {
   it('reads LINESTRING cells as geometry, leaves blank cells without, and names unreadable ones', async () => {
     const head = 'segment_id,road_name,length_mi,width_ft,lanes,functional_class,surface,geometry\n';
-    const ok = await upload({ name: 'wkt.csv', content: `${head}W-1,Wkt Rd,,24,2,local,asphalt,"LINESTRING (-98.5 38.8, -98.5 38.81)"\nW-2,Wkt Rd,1,24,2,local,asphalt,\n` }, { dryRun: 'true' });
+    const ok = await upload(
+      {
+        name: 'wkt.csv',
+        content: `${head}W-1,Wkt Rd,,24,2,local,asphalt,"LINESTRING (-98.5 38.8, -98.5 38.81)"\nW-2,Wkt Rd,1,24,2,local,asphalt,\n`,
+      },
+      { dryRun: 'true' },
+    );
     expect(ok.status).toBe(200);
     expect(ok.body.rejected).toBe(0);
     // 0.01° of latitude is about 0.69 mi (1° ≈ 69 mi, from memory); turf's value must be near it.
     expect(ok.body.preview[0].lengthMi).toBeGreaterThan(0.68);
-    expect(ok.body.preview[0].lengthMi).toBeLessThan(0.70);
+    expect(ok.body.preview[0].lengthMi).toBeLessThan(0.7);
     expect(ok.body.preview[0].hasGeometry).toBe(true);
     expect(ok.body.preview[1].hasGeometry).toBe(false);
-    const bad = await upload({ name: 'wkt.csv', content: `${head}W-3,Wkt Rd,1,24,2,local,asphalt,LINESTRING (oops)\n` }, { dryRun: 'true' });
+    const bad = await upload(
+      { name: 'wkt.csv', content: `${head}W-3,Wkt Rd,1,24,2,local,asphalt,LINESTRING (oops)\n` },
+      { dryRun: 'true' },
+    );
     expect(bad.status).toBe(422);
-    expect(bad.body.errors[0]).toMatchObject({ row: 2, column: 'geometry', message: expect.stringMatching(/not readable WKT/) });
+    expect(bad.body.errors[0]).toMatchObject({
+      row: 2,
+      column: 'geometry',
+      message: expect.stringMatching(/not readable WKT/),
+    });
   });
 });
 
@@ -185,8 +286,19 @@ describe('the messy sample', () => {
       { row: 4, column: 'Width (ft)', value: '-22', message: 'must be greater than 0' },
       { row: 5, column: 'Lanes', value: 'two', message: 'is not a number' },
       { row: 6, column: 'Road Name', value: '', message: 'is required' },
-      { row: 7, column: 'Functional Class', value: 'Arterial Road', message: 'is not one of interstate, freeway, principal_arterial, minor_arterial, major_collector, minor_collector, local' },
-      { row: 8, column: 'Surface', value: 'Cobblestone', message: 'is not one of asphalt, chip_seal, concrete, gravel, other' },
+      {
+        row: 7,
+        column: 'Functional Class',
+        value: 'Arterial Road',
+        message:
+          'is not one of interstate, freeway, principal_arterial, minor_arterial, major_collector, minor_collector, local',
+      },
+      {
+        row: 8,
+        column: 'Surface',
+        value: 'Cobblestone',
+        message: 'is not one of asphalt, chip_seal, concrete, gravel, other',
+      },
       { row: 9, column: 'PCI', value: '140', message: 'must be at most 100' },
       { row: 10, column: 'Survey Date', value: '06/04/2026', message: 'is not a date in YYYY-MM-DD form' },
       { row: 11, column: 'Segment ID', value: 'RD-101', message: 'repeats the segment id of row 2' },
@@ -222,11 +334,31 @@ describe('bad files get a clear 4xx, never a 500', () => {
     { name: 'header-only.csv', content: good, status: 400, match: /no data rows/ },
     { name: 'colon.csv', content: 'segment_id:road_name:length_mi\nA:B:1\n', status: 400, match: /Only one column/ },
     { name: 'dup-header.csv', content: 'segment_id,segment_id,road_name\nA,B,C\n', status: 400, match: /twice/ },
-    { name: 'not-a-workbook.xlsx', content: 'this is plain text, not a zip', status: 400, match: /not an Excel workbook/ },
-    { name: 'broken.xlsx', content: Buffer.from('PK\u0003\u0004garbage-garbage-garbage'), status: 400, match: /not a readable Excel workbook/ },
-    { name: 'broken.geojson', content: '{"type": "FeatureCollection", "features": [', status: 400, match: /not valid JSON/ },
+    {
+      name: 'not-a-workbook.xlsx',
+      content: 'this is plain text, not a zip',
+      status: 400,
+      match: /not an Excel workbook/,
+    },
+    {
+      name: 'broken.xlsx',
+      content: Buffer.from('PK\u0003\u0004garbage-garbage-garbage'),
+      status: 400,
+      match: /not a readable Excel workbook/,
+    },
+    {
+      name: 'broken.geojson',
+      content: '{"type": "FeatureCollection", "features": [',
+      status: 400,
+      match: /not valid JSON/,
+    },
     { name: 'points.geojson', content: '{"type": "Point", "coordinates": [1, 2]}', status: 400, match: /not GeoJSON/ },
-    { name: 'image.png', content: Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a]), status: 400, match: /Unsupported file type/ },
+    {
+      name: 'image.png',
+      content: Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a]),
+      status: 400,
+      match: /Unsupported file type/,
+    },
   ];
   it.each(cases)('$name → $status', async (c) => {
     const before = segCount();
@@ -237,7 +369,13 @@ describe('bad files get a clear 4xx, never a 500', () => {
   });
 
   it('a BOM and semicolons are understood', async () => {
-    const res = await upload({ name: 'bom.csv', content: `\ufeffsegment_id;road_name;length_mi;width_ft;lanes;functional_class;surface\nBOM-1;Test Rd;0.5;24;2;Local;Asphalt\n` }, { dryRun: 'true' });
+    const res = await upload(
+      {
+        name: 'bom.csv',
+        content: `\ufeffsegment_id;road_name;length_mi;width_ft;lanes;functional_class;surface\nBOM-1;Test Rd;0.5;24;2;Local;Asphalt\n`,
+      },
+      { dryRun: 'true' },
+    );
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ added: 1, rejected: 0 });
   });
@@ -256,9 +394,17 @@ describe('bad files get a clear 4xx, never a 500', () => {
   });
 
   it('a missing required column is named once, not row by row', async () => {
-    const res = await upload({ name: 'nowidth.csv', content: 'segment_id,road_name,length_mi,lanes,functional_class,surface\nX,Y,1,2,local,asphalt\n' }, { dryRun: 'true' });
+    const res = await upload(
+      {
+        name: 'nowidth.csv',
+        content: 'segment_id,road_name,length_mi,lanes,functional_class,surface\nX,Y,1,2,local,asphalt\n',
+      },
+      { dryRun: 'true' },
+    );
     expect(res.status).toBe(422);
-    expect(res.body.errors).toEqual([{ row: 1, column: 'width_ft', value: '', message: 'no column of the file is matched to this required field' }]);
+    expect(res.body.errors).toEqual([
+      { row: 1, column: 'width_ft', value: '', message: 'no column of the file is matched to this required field' },
+    ]);
   });
 
   it('no file answers 400 naming the field; JSON instead of multipart answers 415', async () => {
@@ -270,7 +416,11 @@ describe('bad files get a clear 4xx, never a 500', () => {
   });
 
   it('path tricks in the file name are reduced to a bare label', async () => {
-    const res = await upload({ name: '../../etc/passwd.csv', content: 'segment_id,road_name,length_mi,width_ft,lanes,functional_class,surface\nP-1,Path Rd,1,24,2,local,asphalt\n' });
+    const res = await upload({
+      name: '../../etc/passwd.csv',
+      content:
+        'segment_id,road_name,length_mi,width_ft,lanes,functional_class,surface\nP-1,Path Rd,1,24,2,local,asphalt\n',
+    });
     expect(res.status).toBe(200);
     const history = await eng.get(url);
     expect(history.body.items[0].fileName).toBe('passwd.csv');
@@ -282,14 +432,19 @@ describe('survey import', () => {
     const res = await upload(sample('brannock-prairie-view-surveys.csv'), { kind: 'surveys' });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ kind: 'surveys', added: 58, rejected: 0 });
-    const seg = t.sqlite.prepare("SELECT id, pci, pci_date FROM segments WHERE agency_id = ? AND segment_id = 'PV-S1-2'").get(t.ids.brannock) as { id: number; pci: number; pci_date: string };
+    const seg = t.sqlite
+      .prepare("SELECT id, pci, pci_date FROM segments WHERE agency_id = ? AND segment_id = 'PV-S1-2'")
+      .get(t.ids.brannock) as { id: number; pci: number; pci_date: string };
     // The 2025 survey is older than the 2026 one from the segment file: the latest stays.
     expect(seg.pci_date.startsWith('2026')).toBe(true);
     expect(count('SELECT count(*) AS n FROM surveys WHERE segment_ref = ?', seg.id)).toBe(2);
   });
 
   it('an unknown segment id is a row error', async () => {
-    const res = await upload({ name: 's.csv', content: 'segment_id,survey_date,pci\nNOPE-1,2025-05-01,70\n' }, { kind: 'surveys', dryRun: 'true' });
+    const res = await upload(
+      { name: 's.csv', content: 'segment_id,survey_date,pci\nNOPE-1,2025-05-01,70\n' },
+      { kind: 'surveys', dryRun: 'true' },
+    );
     expect(res.status).toBe(422);
     expect(res.body.errors[0]).toMatchObject({ row: 2, column: 'segment_id', value: 'NOPE-1' });
   });
@@ -317,7 +472,10 @@ describe('permissions', () => {
 describe('zipped shapefile', () => {
   it('reads a State Plane shapefile through its .prj, guesses the 10-character dBase column names, and measures the reprojected line', async () => {
     const { default: proj4 } = await import('proj4');
-    const epsg = (await import('epsg-index/all.json', { with: { type: 'json' } })).default as Record<string, { proj4: string; wkt: string }>;
+    const epsg = (await import('epsg-index/all.json', { with: { type: 'json' } })).default as Record<
+      string,
+      { proj4: string; wkt: string }
+    >;
     // NAD83 / Kansas North (ftUS), EPSG:3419: definition and WKT from the epsg-index package.
     const toSp = proj4('WGS84', epsg['3419'].proj4);
     const lonlat = [
@@ -325,7 +483,19 @@ describe('zipped shapefile', () => {
       [-98.428513, 38.83],
     ];
     const zip = await (await import('../helpers/shapefile')).zippedShapefile(
-      [{ props: { segment_id: 'SHP-1', road_name: 'Shape Rd', width_ft: '24', lanes: '2', functional: 'local', surface: 'asphalt' }, lines: [lonlat.map((p) => toSp.forward(p))] }],
+      [
+        {
+          props: {
+            segment_id: 'SHP-1',
+            road_name: 'Shape Rd',
+            width_ft: '24',
+            lanes: '2',
+            functional: 'local',
+            surface: 'asphalt',
+          },
+          lines: [lonlat.map((p) => toSp.forward(p))],
+        },
+      ],
       epsg['3419'].wkt,
     );
     const res = await upload({ name: 'roads.zip', content: zip }, { dryRun: 'true' });
@@ -340,12 +510,20 @@ describe('zipped shapefile', () => {
 
 describe('audit of imports', () => {
   it('records each added and changed segment with before and after, in the same transaction', async () => {
-    const text = fs.readFileSync(sample('brannock-prairie-view.csv'), 'utf8').replace('PV-S1-2,Bluestem Dr', 'PV-S1-2,Bluestem Boulevard');
+    const text = fs
+      .readFileSync(sample('brannock-prairie-view.csv'), 'utf8')
+      .replace('PV-S1-2,Bluestem Dr', 'PV-S1-2,Bluestem Boulevard');
     const res = await upload({ name: 'audit.csv', content: text });
     expect(res.status).toBe(200);
-    const row = t.sqlite.prepare("SELECT detail FROM audit_log WHERE action = 'segment.import.update' AND entity_id = 'PV-S1-2' ORDER BY id DESC LIMIT 1").get() as { detail: string };
+    const row = t.sqlite
+      .prepare(
+        "SELECT detail FROM audit_log WHERE action = 'segment.import.update' AND entity_id = 'PV-S1-2' ORDER BY id DESC LIMIT 1",
+      )
+      .get() as { detail: string };
     expect(JSON.parse(row.detail).changed.roadName).toEqual({ before: 'Bluestem Dr', after: 'Bluestem Boulevard' });
-    const adds = (t.sqlite.prepare("SELECT count(*) AS n FROM audit_log WHERE action = 'segment.import.add'").get() as { n: number }).n;
+    const adds = (
+      t.sqlite.prepare("SELECT count(*) AS n FROM audit_log WHERE action = 'segment.import.add'").get() as { n: number }
+    ).n;
     expect(adds).toBeGreaterThanOrEqual(58);
   });
 });

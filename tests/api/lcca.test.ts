@@ -15,8 +15,20 @@ const minimal = {
   discountRate: 0.04,
   analysisPeriodYears: 35,
   alternatives: [
-    { name: 'A', activities: [{ year: 0, cost: 1_000_000, serviceLifeYears: 20 }, { year: 20, cost: 500_000, serviceLifeYears: 20 }] },
-    { name: 'B', activities: [{ year: 0, cost: 1_000_000, serviceLifeYears: 15 }, { year: 15, cost: 400_000, serviceLifeYears: 12 }] },
+    {
+      name: 'A',
+      activities: [
+        { year: 0, cost: 1_000_000, serviceLifeYears: 20 },
+        { year: 20, cost: 500_000, serviceLifeYears: 20 },
+      ],
+    },
+    {
+      name: 'B',
+      activities: [
+        { year: 0, cost: 1_000_000, serviceLifeYears: 15 },
+        { year: 15, cost: 400_000, serviceLifeYears: 12 },
+      ],
+    },
   ],
 };
 
@@ -42,7 +54,12 @@ describe('POST /api/lcca/evaluate', () => {
       discountRate: 0,
       analysisPeriodYears: 10,
       quantities: { areaSy: 7040, laneMiles: 1 },
-      alternatives: [{ name: 'seal', plan: { initial: { label: 'chip seal', serviceLifeYears: 5, rates: { perSy: 3 } }, repeatAtEndOfLife: true } }],
+      alternatives: [
+        {
+          name: 'seal',
+          plan: { initial: { label: 'chip seal', serviceLifeYears: 5, rates: { perSy: 3 } }, repeatAtEndOfLife: true },
+        },
+      ],
     });
     expect(res.status).toBe(200);
     // Two chip seals at 3 $/SY on 7,040 SY at a zero rate, no remaining life: 2 × 21,120.
@@ -50,11 +67,23 @@ describe('POST /api/lcca/evaluate', () => {
   });
 
   const bad: [string, unknown, string][] = [
-    ['negative life', { ...minimal, alternatives: [{ name: 'A', activities: [{ year: 0, cost: 1, serviceLifeYears: -3 }] }] }, 'body.alternatives.0.activities.0.serviceLifeYears'],
+    [
+      'negative life',
+      { ...minimal, alternatives: [{ name: 'A', activities: [{ year: 0, cost: 1, serviceLifeYears: -3 }] }] },
+      'body.alternatives.0.activities.0.serviceLifeYears',
+    ],
     ['rate of −100 %', { ...minimal, discountRate: -1 }, 'body.discountRate'],
     ['period 0', { ...minimal, analysisPeriodYears: 0 }, 'body.analysisPeriodYears'],
-    ['an alternative with no activity', { ...minimal, alternatives: [{ name: 'A', activities: [] }] }, 'body.alternatives.0.activities'],
-    ['an activity after the period', { ...minimal, alternatives: [{ name: 'A', activities: [{ year: 40, cost: 1, serviceLifeYears: 5 }] }] }, 'body.alternatives.0.activities.0.year'],
+    [
+      'an alternative with no activity',
+      { ...minimal, alternatives: [{ name: 'A', activities: [] }] },
+      'body.alternatives.0.activities',
+    ],
+    [
+      'an activity after the period',
+      { ...minimal, alternatives: [{ name: 'A', activities: [{ year: 40, cost: 1, serviceLifeYears: 5 }] }] },
+      'body.alternatives.0.activities.0.year',
+    ],
     ['a string for a number', { ...minimal, discountRate: '4%' }, 'body.discountRate'],
   ];
   it.each(bad)('%s → 400 naming the field', async (_name, body, path) => {
@@ -81,20 +110,42 @@ describe('catalog', () => {
 
   it('admins change a price with its effective date; the change is in the price history; engineers cannot edit', async () => {
     const admin = await t.as('admin@brannock.example');
-    const full = (await admin.get(`/api/agencies/${t.ids.brannock}/catalog`)).body.mixes.find((m: { name: string }) => m.name === 'Dense-graded 12.5 mm');
+    const full = (await admin.get(`/api/agencies/${t.ids.brannock}/catalog`)).body.mixes.find(
+      (m: { name: string }) => m.name === 'Dense-graded 12.5 mm',
+    );
     const { id, isDemo: _d, ...input } = full;
-    const res = await admin.put(`/api/agencies/${t.ids.brannock}/catalog/mixes/${id}`).send({ ...input, pricePerTon: 76.5, priceEffectiveDate: '2026-11-15' });
+    const res = await admin
+      .put(`/api/agencies/${t.ids.brannock}/catalog/mixes/${id}`)
+      .send({ ...input, pricePerTon: 76.5, priceEffectiveDate: '2026-11-15' });
     expect(res.status).toBe(200);
     expect(res.body.pricePerTon).toBe(76.5);
     const hist = await admin.get(`/api/agencies/${t.ids.brannock}/catalog/price-history`);
-    expect(hist.body.items[0]).toMatchObject({ entity: 'mix', field: 'pricePerTon', before: 74, after: 76.5, effectiveDate: '2026-11-15' });
-    const denied = await eng.put(`/api/agencies/${t.ids.brannock}/catalog/mixes/${id}`).send({ ...input, pricePerTon: 1 });
+    expect(hist.body.items[0]).toMatchObject({
+      entity: 'mix',
+      field: 'pricePerTon',
+      before: 74,
+      after: 76.5,
+      effectiveDate: '2026-11-15',
+    });
+    const denied = await eng
+      .put(`/api/agencies/${t.ids.brannock}/catalog/mixes/${id}`)
+      .send({ ...input, pricePerTon: 1 });
     expect(denied.status).toBe(403);
   });
 
   it('refuses a mix whose lift range is reversed, naming the field', async () => {
     const admin = await t.as('admin@brannock.example');
-    const res = await admin.post(`/api/agencies/${t.ids.brannock}/catalog/mixes`).send({ name: 'X', binderGrade: 'PG 58-28', modifier: 'none', pricePerTon: 70, minLiftIn: 3, maxLiftIn: 2, refLiftIn: 2.5, refLifeYears: 10, priceEffectiveDate: '2026-12-01' });
+    const res = await admin.post(`/api/agencies/${t.ids.brannock}/catalog/mixes`).send({
+      name: 'X',
+      binderGrade: 'PG 58-28',
+      modifier: 'none',
+      pricePerTon: 70,
+      minLiftIn: 3,
+      maxLiftIn: 2,
+      refLiftIn: 2.5,
+      refLifeYears: 10,
+      priceEffectiveDate: '2026-12-01',
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.issues.map((i: { path: string }) => i.path)).toContain('body.minLiftIn');
   });
@@ -129,8 +180,21 @@ describe('catalog-based comparisons', () => {
     name: 'Parkway resurfacing',
     group: { label: 'Parkway', segmentIds: segIds, areaSy: 1, laneMiles: 1, centrelineMiles: 1, segments: [] },
     alternatives: [
-      { name: '2 in dense-graded', initial: { treatmentId: byName('Mill and overlay (2 in)') }, rehabilitation: [], maintenance: [{ treatmentId: byName('Crack seal'), everyYears: 4 }] },
-      { name: '1.5 in rubber-modified', initial: { treatmentId: byName('Mill and overlay (2 in)'), mixId: mix('Rubber-modified, dry process'), thicknessIn: 1.5 }, maintenance: [{ treatmentId: byName('Crack seal'), everyYears: 4 }] },
+      {
+        name: '2 in dense-graded',
+        initial: { treatmentId: byName('Mill and overlay (2 in)') },
+        rehabilitation: [],
+        maintenance: [{ treatmentId: byName('Crack seal'), everyYears: 4 }],
+      },
+      {
+        name: '1.5 in rubber-modified',
+        initial: {
+          treatmentId: byName('Mill and overlay (2 in)'),
+          mixId: mix('Rubber-modified, dry process'),
+          thicknessIn: 1.5,
+        },
+        maintenance: [{ treatmentId: byName('Crack seal'), everyYears: 4 }],
+      },
       { name: 'Chip seal cycle', initial: { treatmentId: byName('Chip seal') } },
     ],
     risk: { iterations: 1000, seed: 99 },
@@ -154,14 +218,18 @@ describe('catalog-based comparisons', () => {
     // The 1.5-in lift needs fewer tons: 0.5 in × 108 vs 110 lb/SY-in over the same area.
     expect(r.alternatives[1].initialTons).toBeLessThan(r.alternatives[0].initialTons);
 
-    const saved = await eng.post(`/api/agencies/${t.ids.brannock}/analyses`).send({ name: 'Parkway resurfacing', runId: start.body.id });
+    const saved = await eng
+      .post(`/api/agencies/${t.ids.brannock}/analyses`)
+      .send({ name: 'Parkway resurfacing', runId: start.body.id });
     expect(saved.status).toBe(201);
     const list = await eng.get(`/api/agencies/${t.ids.brannock}/analyses`);
     expect(list.body.items[0]).toMatchObject({ name: 'Parkway resurfacing', alternatives: 3 });
 
     // A later price change does not touch the saved comparison's own prices.
     const admin = await t.as('admin@brannock.example');
-    const full = (await admin.get(`/api/agencies/${t.ids.brannock}/catalog`)).body.mixes.find((m: { name: string }) => m.name === 'Rubber-modified, dry process');
+    const full = (await admin.get(`/api/agencies/${t.ids.brannock}/catalog`)).body.mixes.find(
+      (m: { name: string }) => m.name === 'Rubber-modified, dry process',
+    );
     const { id, isDemo: _d, ...input } = full;
     await admin.put(`/api/agencies/${t.ids.brannock}/catalog/mixes/${id}`).send({ ...input, pricePerTon: 120 });
     const rerun = await eng.post(`/api/agencies/${t.ids.brannock}/analyses/${saved.body.id}/rerun`);
@@ -193,7 +261,9 @@ describe('catalog-based comparisons', () => {
   });
 
   it('segments of another agency are refused, and a run can be cancelled', async () => {
-    const marlowSeg = (await (await t.as('engineer@marlow.example')).get(`/api/agencies/${t.ids.marlow}/segments?limit=1`)).body.items[0].id;
+    const marlowSeg = (
+      await (await t.as('engineer@marlow.example')).get(`/api/agencies/${t.ids.marlow}/segments?limit=1`)
+    ).body.items[0].id;
     const req = request();
     req.group.segmentIds = [marlowSeg];
     const res = await eng.post(`/api/agencies/${t.ids.brannock}/analyses/runs`).send(req);

@@ -17,14 +17,20 @@ describe('password reset', () => {
     expect(mail?.agencyId).toBeNull();
     const token = tokenFrom(mail!.textBody, 'reset-password');
 
-    const done = await t.anonymous().post('/api/auth/reset-password').send({ token, password: 'new marlow passphrase' });
+    const done = await t
+      .anonymous()
+      .post('/api/auth/reset-password')
+      .send({ token, password: 'new marlow passphrase' });
     expect(done.status).toBe(200);
     expect((await oldSession.get('/api/me')).status).toBe(401);
     await expect(t.as('engineer@marlow.example')).rejects.toThrow(/401/);
     const fresh = await t.as('engineer@marlow.example', 'new marlow passphrase');
     expect((await fresh.get('/api/me')).status).toBe(200);
 
-    const reuse = await t.anonymous().post('/api/auth/reset-password').send({ token, password: 'yet another passphrase' });
+    const reuse = await t
+      .anonymous()
+      .post('/api/auth/reset-password')
+      .send({ token, password: 'yet another passphrase' });
     expect(reuse.status).toBe(400);
     expect(reuse.body.error.code).toBe('invalid_token');
   });
@@ -45,7 +51,10 @@ describe('password reset', () => {
   });
 
   it('validates the new password length, naming the field', async () => {
-    const res = await t.anonymous().post('/api/auth/reset-password').send({ token: 'x'.repeat(43), password: 'short' });
+    const res = await t
+      .anonymous()
+      .post('/api/auth/reset-password')
+      .send({ token: 'x'.repeat(43), password: 'short' });
     expect(res.status).toBe(400);
     expect(res.body.error.issues.map((i: { path: string }) => i.path)).toContain('body.password');
   });

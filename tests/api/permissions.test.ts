@@ -35,7 +35,9 @@ describe.each(brannockCases)('Brannock $role', (c) => {
   });
   it(`writes an own segment → ${c.write}`, async () => {
     const u = await t.as(c.email);
-    const res = await u.patch(`/api/agencies/${brannock}/segments/${brannockSegment}`).send({ notes: `checked by ${c.role}` });
+    const res = await u
+      .patch(`/api/agencies/${brannock}/segments/${brannockSegment}`)
+      .send({ notes: `checked by ${c.role}` });
     expect(res.status).toBe(c.write);
     if (c.write === 403) expect(res.body.error.code).toBe('forbidden');
   });
@@ -87,7 +89,9 @@ describe('signed out', () => {
   it('answers 401 to reads and writes of agency data', async () => {
     const anon = t.anonymous();
     expect((await anon.get(`/api/agencies/${brannock}/segments`)).status).toBe(401);
-    expect((await anon.patch(`/api/agencies/${brannock}/segments/${brannockSegment}`).send({ notes: 'x' })).status).toBe(401);
+    expect(
+      (await anon.patch(`/api/agencies/${brannock}/segments/${brannockSegment}`).send({ notes: 'x' })).status,
+    ).toBe(401);
     expect((await anon.get(`/api/agencies/${marlow}/members`)).status).toBe(401);
   });
 });

@@ -11,7 +11,14 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-const settings = (over: Record<string, unknown> = {}) => ({ startYear: 2027, horizonYears: 5, budgetMode: 'flat', annualBudget: 2_400_000, method: 'fast', ...over });
+const settings = (over: Record<string, unknown> = {}) => ({
+  startYear: 2027,
+  horizonYears: 5,
+  budgetMode: 'flat',
+  annualBudget: 2_400_000,
+  method: 'fast',
+  ...over,
+});
 
 async function runToEnd(planId: string) {
   const start = await eng.post(`${base}/${planId}/run`);
@@ -42,7 +49,14 @@ describe('plans', () => {
     // Work done keeps the network better than doing nothing.
     expect(r.summary.finalPci).toBeGreaterThan(r.summary.finalPciDoNothing);
     expect(r.work.length).toBeGreaterThan(10);
-    expect(r.work[0]).toEqual(expect.objectContaining({ segmentId: expect.any(String), treatment: expect.any(String), cost: expect.any(Number), areaSy: expect.any(Number) }));
+    expect(r.work[0]).toEqual(
+      expect.objectContaining({
+        segmentId: expect.any(String),
+        treatment: expect.any(String),
+        cost: expect.any(Number),
+        areaSy: expect.any(Number),
+      }),
+    );
     // The optimiser beats the worst-first baseline on its own objective.
     expect(r.solution.totalBenefit).toBeGreaterThanOrEqual(r.baseline.totalBenefit);
     expect(r.solution.gap).toBeLessThan(0.02);
@@ -51,17 +65,23 @@ describe('plans', () => {
   it('exports the work list and a brief PDF with pages and headings', async () => {
     const csv = await eng.get(`${base}/${planId}/work-list?format=csv`);
     expect(csv.status).toBe(200);
-    expect(csv.text.split(/\r?\n/)[0]).toBe('year,segment_id,road_name,treatment,mix,thickness_in,tons,area_sy,lane_miles,cost,pci_before,pci_after');
-    const pdf = await eng.get(`${base}/${planId}/brief.pdf`).buffer(true).parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    expect(csv.text.split(/\r?\n/)[0]).toBe(
+      'year,segment_id,road_name,treatment,mix,thickness_in,tons,area_sy,lane_miles,cost,pci_before,pci_after',
+    );
+    const pdf = await eng
+      .get(`${base}/${planId}/brief.pdf`)
+      .buffer(true)
+      .parse((res, cb) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(pdf.status).toBe(200);
     const text = (pdf.body as Buffer).toString('latin1');
     expect(text.startsWith('%PDF-')).toBe(true);
     expect((text.match(/\/Type \/Page\b/g) ?? []).length).toBeGreaterThanOrEqual(2);
-    for (const h of ['Summary', 'Network condition', 'Backlog', 'Work list, first two years', 'Cautions']) expect(text).toContain(`(${h})`);
+    for (const h of ['Summary', 'Network condition', 'Backlog', 'Work list, first two years', 'Cautions'])
+      expect(text).toContain(`(${h})`);
   });
 
   it('viewers see only published plans; publishing e-mails them a link', async () => {
@@ -95,12 +115,20 @@ describe('plans', () => {
     // A treatment that applies only to interstates: the demo county has none.
     const admin = await t.as('admin@brannock.example');
     const only = await admin.post(`/api/agencies/${t.ids.brannock}/catalog/treatments`).send({
-      name: 'Interstate diamond grind', category: 'rehabilitation', kind: 'custom', lifeYears: 10, productionSyPerDay: 5000,
-      costItems: [{ label: 'Grinding', basis: 'per_sy', amount: 6 }], effect: { type: 'reset', value: 95, resetsAge: true },
-      applicability: { pciMin: 0, pciMax: 100, surfaces: ['concrete'], classes: ['interstate'], minYearsSinceLast: 0 }, priceEffectiveDate: '2026-12-01',
+      name: 'Interstate diamond grind',
+      category: 'rehabilitation',
+      kind: 'custom',
+      lifeYears: 10,
+      productionSyPerDay: 5000,
+      costItems: [{ label: 'Grinding', basis: 'per_sy', amount: 6 }],
+      effect: { type: 'reset', value: 95, resetsAge: true },
+      applicability: { pciMin: 0, pciMax: 100, surfaces: ['concrete'], classes: ['interstate'], minYearsSinceLast: 0 },
+      priceEffectiveDate: '2026-12-01',
     });
     expect(only.status).toBe(201);
-    const p = await eng.post(base).send({ name: 'nothing applies', settings: settings({ treatmentIds: [only.body.id] }) });
+    const p = await eng
+      .post(base)
+      .send({ name: 'nothing applies', settings: settings({ treatmentIds: [only.body.id] }) });
     const res = await eng.post(`${base}/${p.body.id}/run`);
     expect(res.status).toBe(400);
     expect(res.body.error.issues[0].path).toBe('settings.treatmentIds');
@@ -132,10 +160,25 @@ describe('POST /api/plan/optimize', () => {
     const res = await eng.post('/api/plan/optimize').send({
       budgets: [90, 90],
       method: 'exact',
-      segments: [{ id: 'A', options: [{ id: 'A-crack', year: 0, cost: 10, benefit: 40 }, { id: 'A-overlay', year: 1, cost: 60, benefit: 120 }] }],
+      segments: [
+        {
+          id: 'A',
+          options: [
+            { id: 'A-crack', year: 0, cost: 10, benefit: 40 },
+            { id: 'A-overlay', year: 1, cost: 60, benefit: 120 },
+          ],
+        },
+      ],
     });
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ method: 'exact', chosen: [{ segmentId: 'A', optionId: 'A-overlay' }], totalBenefit: 120, spentByYear: [0, 60], bound: 120, gap: 0 });
+    expect(res.body).toMatchObject({
+      method: 'exact',
+      chosen: [{ segmentId: 'A', optionId: 'A-overlay' }],
+      totalBenefit: 120,
+      spentByYear: [0, 60],
+      bound: 120,
+      gap: 0,
+    });
   });
 
   it('takes treatment paths with costs in several years, and every method', async () => {
@@ -144,7 +187,19 @@ describe('POST /api/plan/optimize', () => {
         budgets: [60, 60],
         method,
         segments: [
-          { id: 'P', options: [{ id: 'P-path', benefit: 100, costs: [{ year: 0, cost: 50 }, { year: 1, cost: 50 }] }] },
+          {
+            id: 'P',
+            options: [
+              {
+                id: 'P-path',
+                benefit: 100,
+                costs: [
+                  { year: 0, cost: 50 },
+                  { year: 1, cost: 50 },
+                ],
+              },
+            ],
+          },
           { id: 'Q', options: [{ id: 'Q1', year: 1, cost: 60, benefit: 70 }] },
         ],
       });
@@ -159,7 +214,9 @@ describe('POST /api/plan/optimize', () => {
     expect(neg.body.error.issues[0].path).toBe('body.budgets.0');
     const none = await eng.post('/api/plan/optimize').send({ segments: [] });
     expect(none.body.error.issues[0].path).toBe('body.budgets');
-    const late = await eng.post('/api/plan/optimize').send({ budgets: [10], segments: [{ id: 'A', options: [{ id: 'a', year: 3, cost: 1, benefit: 1 }] }] });
+    const late = await eng
+      .post('/api/plan/optimize')
+      .send({ budgets: [10], segments: [{ id: 'A', options: [{ id: 'a', year: 3, cost: 1, benefit: 1 }] }] });
     expect(late.status).toBe(400);
     expect(late.body.error.issues[0].path).toBe('body.segments.0.options.0');
   });

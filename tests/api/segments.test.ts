@@ -21,7 +21,17 @@ describe('segment list', () => {
     expect(b.body.items).toHaveLength(10);
     const ids = new Set([...a.body.items, ...b.body.items].map((s: { id: number }) => s.id));
     expect(ids.size).toBe(20);
-    for (const key of ['id', 'segmentId', 'roadName', 'lengthMi', 'widthFt', 'lanes', 'functionalClass', 'surface', 'pci']) {
+    for (const key of [
+      'id',
+      'segmentId',
+      'roadName',
+      'lengthMi',
+      'widthFt',
+      'lanes',
+      'functionalClass',
+      'surface',
+      'pci',
+    ]) {
       expect(a.body.items[0]).toHaveProperty(key);
     }
   });
@@ -42,7 +52,9 @@ describe('segment list', () => {
   it('class and band filters return only matching rows, and totals describe the filtered set', async () => {
     const res = await u.get(`${base}?class=principal_arterial&limit=1000`);
     expect(res.body.total).toBe(24);
-    expect(res.body.items.every((s: { functionalClass: string }) => s.functionalClass === 'principal_arterial')).toBe(true);
+    expect(res.body.items.every((s: { functionalClass: string }) => s.functionalClass === 'principal_arterial')).toBe(
+      true,
+    );
     const miles = res.body.items.reduce((s: number, x: { lengthMi: number }) => s + x.lengthMi, 0);
     expect(res.body.totals.miles).toBeCloseTo(miles, 6);
     const lm = res.body.items.reduce((s: number, x: { laneMiles: number }) => s + x.laneMiles, 0);
@@ -50,9 +62,13 @@ describe('segment list', () => {
     const fair = CONDITION_BANDS.find((b) => b.id === 'fair')!;
     const banded = await u.get(`${base}?band=fair&limit=1000`);
     expect(banded.body.total).toBeGreaterThan(0);
-    expect(banded.body.items.every((s: { pci: number }) => Math.round(s.pci) >= fair.min && Math.round(s.pci) <= fair.max)).toBe(true);
+    expect(
+      banded.body.items.every((s: { pci: number }) => Math.round(s.pci) >= fair.min && Math.round(s.pci) <= fair.max),
+    ).toBe(true);
     const none = await u.get(`${base}?band=none&limit=1000`);
-    expect(none.body.items.every((s: { pci: number | null; surface: string }) => s.pci === null && s.surface === 'gravel')).toBe(true);
+    expect(
+      none.body.items.every((s: { pci: number | null; surface: string }) => s.pci === null && s.surface === 'gravel'),
+    ).toBe(true);
   });
 
   it('sorts by PCI descending', async () => {
@@ -101,26 +117,37 @@ describe('map GeoJSON and exports', () => {
     expect(csv.status).toBe(200);
     expect(csv.headers['content-disposition']).toMatch(/brannock-county-segments\.csv/);
     const lines = csv.text.trim().split(/\r?\n/);
-    expect(lines[0]).toBe('segment_id,road_name,from_desc,to_desc,length_mi,width_ft,lanes,functional_class,surface,adt,truck_pct,pci,pci_date,last_treatment,last_treatment_year,district,notes,geometry');
+    expect(lines[0]).toBe(
+      'segment_id,road_name,from_desc,to_desc,length_mi,width_ft,lanes,functional_class,surface,adt,truck_pct,pci,pci_date,last_treatment,last_treatment_year,district,notes,geometry',
+    );
     expect(lines[1]).toMatch(/,"?LINESTRING ?\(-98\./);
     expect(lines).toHaveLength(1 + 20 + 20); // the parkway and the two Tallow Creek main streets
     const eng = await t.as('engineer@brannock.example');
-    const re = await eng.post(`/api/agencies/${t.ids.brannock}/imports`).field('dryRun', 'true').attach('file', Buffer.from(csv.text), 'export.csv');
+    const re = await eng
+      .post(`/api/agencies/${t.ids.brannock}/imports`)
+      .field('dryRun', 'true')
+      .attach('file', Buffer.from(csv.text), 'export.csv');
     expect(re.status).toBe(200);
     expect(re.body).toMatchObject({ added: 0, updated: 0, unchanged: 40, rejected: 0 });
   });
 
   it('XLSX export is a workbook that re-imports as unchanged', async () => {
-    const x = await u.get(`/api/agencies/${t.ids.brannock}/segments/export?format=xlsx&district=Tallow Creek`).buffer(true).parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const x = await u
+      .get(`/api/agencies/${t.ids.brannock}/segments/export?format=xlsx&district=Tallow Creek`)
+      .buffer(true)
+      .parse((res, cb) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(x.status).toBe(200);
     const body = x.body as Buffer;
     expect(body.subarray(0, 2).toString('latin1')).toBe('PK');
     const eng = await t.as('engineer@brannock.example');
-    const re = await eng.post(`/api/agencies/${t.ids.brannock}/imports`).field('dryRun', 'true').attach('file', body, 'export.xlsx');
+    const re = await eng
+      .post(`/api/agencies/${t.ids.brannock}/imports`)
+      .field('dryRun', 'true')
+      .attach('file', body, 'export.xlsx');
     expect(re.status).toBe(200);
     expect(re.body).toMatchObject({ added: 0, updated: 0, unchanged: 220, rejected: 0 });
   });
@@ -137,7 +164,15 @@ describe('cached lists never go stale', () => {
     await eng.patch(`/api/agencies/${t.ids.brannock}/segments/${id}`).send({ roadName: 'Renamed Road' });
     expect((await eng.get(url)).body.items[0].roadName).toBe('Renamed Road');
     const count = (await eng.get(`/api/agencies/${t.ids.brannock}/segments?limit=1`)).body.total;
-    await eng.post(`/api/agencies/${t.ids.brannock}/imports`).attach('file', Buffer.from('segment_id,road_name,length_mi,width_ft,lanes,functional_class,surface\nNEW-1,New Rd,1,24,2,local,asphalt\n'), 'n.csv');
+    await eng
+      .post(`/api/agencies/${t.ids.brannock}/imports`)
+      .attach(
+        'file',
+        Buffer.from(
+          'segment_id,road_name,length_mi,width_ft,lanes,functional_class,surface\nNEW-1,New Rd,1,24,2,local,asphalt\n',
+        ),
+        'n.csv',
+      );
     expect((await eng.get(`/api/agencies/${t.ids.brannock}/segments?limit=1`)).body.total).toBe(count + 1);
     // Another agency's cache is its own.
     const marlow = await t.as('engineer@marlow.example');

@@ -21,7 +21,9 @@ describe('request validation and the error shape', () => {
   it('a body with a wrong type or an unknown field answers 400 and writes nothing', async () => {
     const u = await t.as('engineer@brannock.example');
     const before = await u.get(`/api/agencies/${t.ids.brannock}/segments/1`);
-    const res = await u.patch(`/api/agencies/${t.ids.brannock}/segments/1`).send({ widthFt: 'wide', agencyId: 'other' });
+    const res = await u
+      .patch(`/api/agencies/${t.ids.brannock}/segments/1`)
+      .send({ widthFt: 'wide', agencyId: 'other' });
     expect(res.status).toBe(400);
     const paths = res.body.error.issues.map((i: { path: string }) => i.path);
     expect(paths).toContain('body.widthFt');
@@ -31,7 +33,10 @@ describe('request validation and the error shape', () => {
 
   it('malformed JSON answers 400, never a stack trace', async () => {
     const u = await t.as('engineer@brannock.example');
-    const res = await u.patch(`/api/agencies/${t.ids.brannock}/segments/1`).set('Content-Type', 'application/json').send('{"notes": ');
+    const res = await u
+      .patch(`/api/agencies/${t.ids.brannock}/segments/1`)
+      .set('Content-Type', 'application/json')
+      .send('{"notes": ');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('entity.parse.failed');
     expect(JSON.stringify(res.body)).not.toMatch(/at .*\.ts|node_modules/);
@@ -39,7 +44,10 @@ describe('request validation and the error shape', () => {
 
   it('a non-JSON body answers 415', async () => {
     const u = await t.as('engineer@brannock.example');
-    const res = await u.patch(`/api/agencies/${t.ids.brannock}/segments/1`).set('Content-Type', 'text/plain').send('notes=x');
+    const res = await u
+      .patch(`/api/agencies/${t.ids.brannock}/segments/1`)
+      .set('Content-Type', 'text/plain')
+      .send('notes=x');
     expect(res.status).toBe(415);
   });
 
@@ -79,7 +87,9 @@ describe('API documentation', () => {
       expect(res.body.paths[p]?.[r.method], `${r.method} ${p}`).toBeDefined();
     }
     const list = res.body.paths['/api/agencies/{agencyId}/segments'].get;
-    expect(list.parameters.map((p: { name: string }) => p.name)).toEqual(expect.arrayContaining(['agencyId', 'limit', 'offset', 'q', 'class', 'band']));
+    expect(list.parameters.map((p: { name: string }) => p.name)).toEqual(
+      expect.arrayContaining(['agencyId', 'limit', 'offset', 'q', 'class', 'band']),
+    );
   });
 
   it('serves a readable reference page', async () => {

@@ -16,7 +16,9 @@ describe('compare alternatives for a selection of roads', () => {
       await signIn(page, h.url, 'engineer@brannock.example');
       await page.getByRole('link', { name: 'Roads' }).click();
       await page.getByLabel('Functional class').selectOption('minor_arterial');
-      await page.waitForFunction(() => document.querySelector('[data-testid=segment-table]')?.getAttribute('data-total') === '40');
+      await page.waitForFunction(
+        () => document.querySelector('[data-testid=segment-table]')?.getAttribute('data-total') === '40',
+      );
       const boxes = page.locator('[data-testid=segment-table] input[type=checkbox]');
       for (let i = 0; i < 5; i++) await boxes.nth(i).check();
       expect(await page.getByTestId('selection-count').textContent()).toBe('5 selected');

@@ -15,12 +15,27 @@ describe('content security policy in the browser', () => {
     try {
       await page.addInitScript(() => {
         (window as unknown as { __csp: string[] }).__csp = [];
-        document.addEventListener('securitypolicyviolation', (e) => (window as unknown as { __csp: string[] }).__csp.push(`${e.violatedDirective} ${e.blockedURI}`));
+        document.addEventListener('securitypolicyviolation', (e) =>
+          (window as unknown as { __csp: string[] }).__csp.push(`${e.violatedDirective} ${e.blockedURI}`),
+        );
       });
       await signIn(page, h.url, 'admin@brannock.example');
       const base = page.url().replace(/\/network$/, '');
       const violations: string[] = [];
-      for (const screen of ['network', 'roads', 'roads/5', 'imports', 'catalog', 'compare', 'forecast', 'plans', 'members', 'settings', 'activity', 'sent-mail']) {
+      for (const screen of [
+        'network',
+        'roads',
+        'roads/5',
+        'imports',
+        'catalog',
+        'compare',
+        'forecast',
+        'plans',
+        'members',
+        'settings',
+        'activity',
+        'sent-mail',
+      ]) {
         await page.goto(`${base}/${screen}`);
         await page.waitForLoadState('networkidle');
         await page.waitForTimeout(600);

@@ -13,12 +13,20 @@ afterAll(async () => {
 
 /** Segment ids the map has actually drawn (deduped: a feature comes back once per tile). */
 async function renderedSegmentIds(page: Page) {
-  await page.waitForFunction(() => {
-    const el = document.querySelector('[data-testid=network-map] .maplibregl-map') as (HTMLElement & { __map?: { loaded(): boolean; areTilesLoaded(): boolean } }) | null;
-    return !!el?.__map && el.__map.loaded() && el.__map.areTilesLoaded();
-  }, null, { timeout: 60_000 });
+  await page.waitForFunction(
+    () => {
+      const el = document.querySelector('[data-testid=network-map] .maplibregl-map') as
+        | (HTMLElement & { __map?: { loaded(): boolean; areTilesLoaded(): boolean } })
+        | null;
+      return !!el?.__map && el.__map.loaded() && el.__map.areTilesLoaded();
+    },
+    null,
+    { timeout: 60_000 },
+  );
   return page.evaluate(() => {
-    const el = document.querySelector('[data-testid=network-map] .maplibregl-map') as HTMLElement & { __map: { queryRenderedFeatures(o: object): { properties: { s: string } }[] } };
+    const el = document.querySelector('[data-testid=network-map] .maplibregl-map') as HTMLElement & {
+      __map: { queryRenderedFeatures(o: object): { properties: { s: string } }[] };
+    };
     return [...new Set(el.__map.queryRenderedFeatures({ layers: ['segments-line'] }).map((f) => f.properties.s))];
   });
 }
@@ -39,12 +47,16 @@ describe('inventory: import through the UI, then table and map', () => {
       expect(await page.getByTestId('import-counts').textContent()).toContain('Would add58');
       await page.getByRole('button', { name: 'Write 58 rows' }).click();
       await page.getByTestId('import-result').waitFor();
-      expect(await page.getByTestId('import-result').textContent()).toBe('Added 58, updated 0, unchanged 0, rejected 0.');
+      expect(await page.getByTestId('import-result').textContent()).toBe(
+        'Added 58, updated 0, unchanged 0, rejected 0.',
+      );
       expect(await page.getByTestId('import-history').textContent()).toContain('brannock-prairie-view.csv');
 
       await page.getByRole('link', { name: 'Roads' }).click();
       await page.getByLabel('Road name or segment id').fill('PV-');
-      await page.waitForFunction(() => document.querySelector('[data-testid=segment-table]')?.getAttribute('data-total') === '58');
+      await page.waitForFunction(
+        () => document.querySelector('[data-testid=segment-table]')?.getAttribute('data-total') === '58',
+      );
       const firstRow = page.locator('[data-testid=segment-table] [role=row][data-segment]').first();
       expect(await firstRow.getAttribute('data-segment')).toMatch(/^PV-/);
       // The map draws the filtered set: the new segments and nothing else.
@@ -100,7 +112,9 @@ describe('inventory: import through the UI, then table and map', () => {
       await signIn(page, h.url, 'engineer@brannock.example');
       await page.getByRole('link', { name: 'Roads' }).click();
       await page.getByLabel('Functional class').selectOption('principal_arterial');
-      await page.waitForFunction(() => document.querySelector('[data-testid=segment-table]')?.getAttribute('data-total') === '24');
+      await page.waitForFunction(
+        () => document.querySelector('[data-testid=segment-table]')?.getAttribute('data-total') === '24',
+      );
       await page.locator('[data-testid=segment-table] [role=row][data-segment] button').first().click();
       await page.getByTestId('pci-chart').waitFor();
       expect(await page.getByTestId('pci-chart').locator('circle').count()).toBe(8);

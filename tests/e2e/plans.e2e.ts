@@ -24,14 +24,24 @@ describe('budget plan, end to end', () => {
       await page.getByText('Scenario saved').waitFor();
       await page.getByRole('button', { name: 'Run the plan' }).click();
       await page.getByTestId('plan-results').waitFor({ timeout: 120_000 });
-      expect(await page.getByTestId('plan-caption').textContent()).toMatch(/network PCI goes from \d+ in 2027 to \d+ by 2032/);
+      expect(await page.getByTestId('plan-caption').textContent()).toMatch(
+        /network PCI goes from \d+ in 2027 to \d+ by 2032/,
+      );
       for (const id of ['pci-by-year', 'bands-by-year', 'backlog-by-year']) await page.getByTestId(id).waitFor();
       expect(await page.getByTestId('work-list').locator('tbody tr').count()).toBeGreaterThan(5);
       // The map colours planned work: rendered features with a planned year exist.
       await page.waitForFunction(
         () => {
-          const el = document.querySelector('[data-testid=plan-results] [data-testid=network-map] .maplibregl-map') as (HTMLElement & { __map?: { loaded(): boolean; queryRenderedFeatures(o: object): { state: { py?: number } }[] } }) | null;
-          return !!el?.__map && el.__map.loaded() && el.__map.queryRenderedFeatures({ layers: ['segments-line'] }).some((f) => (f.state.py ?? -1) >= 0);
+          const el = document.querySelector('[data-testid=plan-results] [data-testid=network-map] .maplibregl-map') as
+            | (HTMLElement & {
+                __map?: { loaded(): boolean; queryRenderedFeatures(o: object): { state: { py?: number } }[] };
+              })
+            | null;
+          return (
+            !!el?.__map &&
+            el.__map.loaded() &&
+            el.__map.queryRenderedFeatures({ layers: ['segments-line'] }).some((f) => (f.state.py ?? -1) >= 0)
+          );
         },
         null,
         { timeout: 60_000 },
@@ -43,7 +53,8 @@ describe('budget plan, end to end', () => {
       await page.getByRole('link', { name: 'Brief', exact: true }).click();
       await page.getByTestId('brief').waitFor();
       await page.getByTestId('brief-map').waitFor();
-      for (const heading of ['Summary', 'Network condition', 'Backlog', 'Work list, first two years', 'Cautions']) await page.getByRole('heading', { name: heading }).waitFor();
+      for (const heading of ['Summary', 'Network condition', 'Backlog', 'Work list, first two years', 'Cautions'])
+        await page.getByRole('heading', { name: heading }).waitFor();
       await page.goBack();
       const pdfHref = await page.getByRole('link', { name: 'Council brief (PDF)' }).getAttribute('href');
       const pdf = await page.request.get(`${h.url}${pdfHref}`);
@@ -51,7 +62,16 @@ describe('budget plan, end to end', () => {
       expect(pdf.headers()['content-type']).toBe('application/pdf');
       const text = (await pdf.body()).toString('latin1');
       expect((text.match(/\/Type \/Page\b/g) ?? []).length).toBeGreaterThanOrEqual(2);
-      for (const heading of ['Summary', 'Network condition', 'Lane-miles by condition band', 'Backlog', 'Work list, first two years', 'Method', 'Cautions']) expect(text).toContain(`(${heading})`);
+      for (const heading of [
+        'Summary',
+        'Network condition',
+        'Lane-miles by condition band',
+        'Backlog',
+        'Work list, first two years',
+        'Method',
+        'Cautions',
+      ])
+        expect(text).toContain(`(${heading})`);
       expect(outside).toEqual([]);
       expect(consoleErrors).toEqual([]);
     } finally {

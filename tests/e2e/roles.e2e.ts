@@ -49,7 +49,9 @@ describe('each demo role signs in and sees its navigation', () => {
       await page.getByRole('heading', { name: 'City of Marlow network' }).waitFor();
       await page.getByRole('link', { name: 'Roads' }).click();
       await page.locator('[data-testid=segment-table] [role=row][data-segment]').first().waitFor();
-      const ids = await page.locator('[data-testid=segment-table] [role=row][data-segment]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-segment') ?? ''));
+      const ids = await page
+        .locator('[data-testid=segment-table] [role=row][data-segment]')
+        .evaluateAll((rows) => rows.map((r) => r.getAttribute('data-segment') ?? ''));
       expect(ids.length).toBeGreaterThan(0);
       expect(ids.every((id) => id.startsWith('MW-'))).toBe(true);
     } finally {

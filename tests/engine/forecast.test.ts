@@ -31,12 +31,19 @@ describe('deterioration curve', () => {
 
   it('is monotone non-increasing and within 0–100 at every age, for any parameters', () => {
     fc.assert(
-      fc.property(fc.double({ min: 0, max: 100, noNaN: true }), fc.double({ min: 0.001, max: 20, noNaN: true }), fc.double({ min: 1, max: 3, noNaN: true }), fc.double({ min: 0, max: 80, noNaN: true }), fc.double({ min: 0, max: 20, noNaN: true }), (p0, a, b, t, dt) => {
-        const c = { p0, a, b };
-        const v1 = pciAt(c, t);
-        const v2 = pciAt(c, t + dt);
-        return v1 >= 0 && v1 <= 100 && v2 <= v1 + 1e-12;
-      }),
+      fc.property(
+        fc.double({ min: 0, max: 100, noNaN: true }),
+        fc.double({ min: 0.001, max: 20, noNaN: true }),
+        fc.double({ min: 1, max: 3, noNaN: true }),
+        fc.double({ min: 0, max: 80, noNaN: true }),
+        fc.double({ min: 0, max: 20, noNaN: true }),
+        (p0, a, b, t, dt) => {
+          const c = { p0, a, b };
+          const v1 = pciAt(c, t);
+          const v2 = pciAt(c, t + dt);
+          return v1 >= 0 && v1 <= 100 && v2 <= v1 + 1e-12;
+        },
+      ),
     );
   });
 
@@ -46,6 +53,11 @@ describe('deterioration curve', () => {
   });
 
   it('declines to fit fewer than three points', () => {
-    expect(fitCurve([{ age: 1, pci: 90 }, { age: 2, pci: 85 }])).toBeNull();
+    expect(
+      fitCurve([
+        { age: 1, pci: 90 },
+        { age: 2, pci: 85 },
+      ]),
+    ).toBeNull();
   });
 });

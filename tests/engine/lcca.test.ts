@@ -52,13 +52,26 @@ describe('FHWA LCCA formulas (FHWA-SA-98-079, 1998): hand-worked cases', () => {
   });
 
   it('gives no credit to maintenance marked without salvage', () => {
-    const rsl = remainingLife([{ year: 0, cost: 100, serviceLifeYears: 40 }, { year: 33, cost: 5, serviceLifeYears: 3, salvage: false }], 35);
+    const rsl = remainingLife(
+      [
+        { year: 0, cost: 100, serviceLifeYears: 40 },
+        { year: 33, cost: 5, serviceLifeYears: 3, salvage: false },
+      ],
+      35,
+    );
     expect(rsl.index).toBe(0);
     expect(rsl.value).toBeCloseTo(100 * (5 / 40), 12);
   });
 
   it('EUAC at a zero rate is NPV / N', () => {
-    const r = evaluateAlternative([{ year: 0, cost: 700, serviceLifeYears: 10 }, { year: 10, cost: 300, serviceLifeYears: 10 }], 0, 20);
+    const r = evaluateAlternative(
+      [
+        { year: 0, cost: 700, serviceLifeYears: 10 },
+        { year: 10, cost: 300, serviceLifeYears: 10 },
+      ],
+      0,
+      20,
+    );
     expect(r.presentValue).toBe(1000);
     expect(r.euac).toBe(50);
   });
@@ -74,21 +87,30 @@ const activityArb = (n: number) =>
 describe('properties (fast-check)', () => {
   it('PV falls as the rate rises, for positive cash flows with no remaining-life credit', () => {
     fc.assert(
-      fc.property(fc.array(activityArb(30), { minLength: 1, maxLength: 8 }), fc.double({ min: 0, max: 0.1, noNaN: true }), fc.double({ min: 0.001, max: 0.05, noNaN: true }), (acts, r, dr) => {
-        const noRsl = acts.map((a) => ({ ...a, salvage: false }));
-        const a = evaluateAlternative(noRsl, r, 30).presentValue;
-        const b = evaluateAlternative(noRsl, r + dr, 30).presentValue;
-        return b <= a * (1 + 1e-12);
-      }),
+      fc.property(
+        fc.array(activityArb(30), { minLength: 1, maxLength: 8 }),
+        fc.double({ min: 0, max: 0.1, noNaN: true }),
+        fc.double({ min: 0.001, max: 0.05, noNaN: true }),
+        (acts, r, dr) => {
+          const noRsl = acts.map((a) => ({ ...a, salvage: false }));
+          const a = evaluateAlternative(noRsl, r, 30).presentValue;
+          const b = evaluateAlternative(noRsl, r + dr, 30).presentValue;
+          return b <= a * (1 + 1e-12);
+        },
+      ),
     );
   });
 
   it('EUAC × P/A(r, N) = NPV', () => {
     fc.assert(
-      fc.property(fc.array(activityArb(40), { minLength: 1, maxLength: 8 }), fc.double({ min: 0.0001, max: 0.12, noNaN: true }), (acts, r) => {
-        const res = evaluateAlternative(acts, r, 40);
-        return Math.abs(res.euac * pa(r, 40) - res.presentValue) <= 1e-6 * Math.max(1, Math.abs(res.presentValue));
-      }),
+      fc.property(
+        fc.array(activityArb(40), { minLength: 1, maxLength: 8 }),
+        fc.double({ min: 0.0001, max: 0.12, noNaN: true }),
+        (acts, r) => {
+          const res = evaluateAlternative(acts, r, 40);
+          return Math.abs(res.euac * pa(r, 40) - res.presentValue) <= 1e-6 * Math.max(1, Math.abs(res.presentValue));
+        },
+      ),
     );
   });
 
@@ -104,11 +126,19 @@ describe('properties (fast-check)', () => {
 
   it('doubling all prices doubles NPV', () => {
     fc.assert(
-      fc.property(fc.array(activityArb(35), { minLength: 1, maxLength: 8 }), fc.double({ min: 0, max: 0.1, noNaN: true }), (acts, r) => {
-        const one = evaluateAlternative(acts, r, 35).presentValue;
-        const two = evaluateAlternative(acts.map((a) => ({ ...a, cost: a.cost * 2 })), r, 35).presentValue;
-        return Math.abs(two - 2 * one) <= 1e-9 * Math.abs(one);
-      }),
+      fc.property(
+        fc.array(activityArb(35), { minLength: 1, maxLength: 8 }),
+        fc.double({ min: 0, max: 0.1, noNaN: true }),
+        (acts, r) => {
+          const one = evaluateAlternative(acts, r, 35).presentValue;
+          const two = evaluateAlternative(
+            acts.map((a) => ({ ...a, cost: a.cost * 2 })),
+            r,
+            35,
+          ).presentValue;
+          return Math.abs(two - 2 * one) <= 1e-9 * Math.abs(one);
+        },
+      ),
     );
   });
 });
@@ -138,14 +168,23 @@ describe('schedule expansion', () => {
   });
 
   it('costs are rates × quantities plus add-ons', () => {
-    expect(activityCost({ perSy: 2, perLaneMile: 100, perJob: 3500, addOnFraction: 0.18 }, { areaSy: 7040, laneMiles: 1, jobs: 1 })).toBeCloseTo((2 * 7040 + 100 + 3500) * 1.18, 9);
+    expect(
+      activityCost(
+        { perSy: 2, perLaneMile: 100, perJob: 3500, addOnFraction: 0.18 },
+        { areaSy: 7040, laneMiles: 1, jobs: 1 },
+      ),
+    ).toBeCloseTo((2 * 7040 + 100 + 3500) * 1.18, 9);
   });
 });
 
 describe('vectorised network evaluation', () => {
   it('equals a segment-by-segment evaluation, and the group total equals one evaluation of the group', () => {
     const plan: SchedulePlan = {
-      initial: { label: 'thin overlay', serviceLifeYears: 9, rates: { perSy: 9.5, perLaneMile: 250, perJob: 4700, addOnFraction: 0.18 } },
+      initial: {
+        label: 'thin overlay',
+        serviceLifeYears: 9,
+        rates: { perSy: 9.5, perLaneMile: 250, perJob: 4700, addOnFraction: 0.18 },
+      },
       rehabilitation: [],
       maintenance: [{ template: { label: 'crack seal', serviceLifeYears: 3, rates: rates(0.4) }, everyYears: 3 }],
       repeatAtEndOfLife: true,
@@ -166,7 +205,12 @@ describe('vectorised network evaluation', () => {
       expect(res.npv[i]).toBeCloseTo(one.presentValue, 6);
       expect(res.euac[i]).toBeCloseTo(one.presentValue * ap(0.03, 40), 6);
     }
-    const group = evaluatePlanForGroup(plan, { areaSy: total, laneMiles: laneMiles.reduce((s, v) => s + v, 0) }, 0.03, 40);
+    const group = evaluatePlanForGroup(
+      plan,
+      { areaSy: total, laneMiles: laneMiles.reduce((s, v) => s + v, 0) },
+      0.03,
+      40,
+    );
     expect(res.totalNpv).toBeCloseTo(group.result.presentValue, 4);
   });
 });

@@ -1,6 +1,13 @@
 import loadHighs from 'highs';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { feasible, type Instance, solveBruteForce, solveExact, solveFast, solveRanking } from '../../shared/engine/plan/optimize';
+import {
+  feasible,
+  type Instance,
+  solveBruteForce,
+  solveExact,
+  solveFast,
+  solveRanking,
+} from '../../shared/engine/plan/optimize';
 import { rng } from '../../shared/engine/random';
 
 let highs: Awaited<ReturnType<typeof loadHighs>>;
@@ -14,7 +21,10 @@ describe('exact method (HiGHS) on hand-solvable instances', () => {
   it('the example from the API: budget 90 a year', () => {
     // A: crack seal in year 0 (10 → 40) or overlay in year 1 (60 → 120). Only A exists and each
     // year's budget is 90, so the overlay fits; its benefit 120 beats 40. Optimum = 120.
-    const inst: Instance = { budgets: [90, 90], segments: [{ id: 'A', options: [opt('A-crack', 0, 10, 40), opt('A-overlay', 1, 60, 120)] }] };
+    const inst: Instance = {
+      budgets: [90, 90],
+      segments: [{ id: 'A', options: [opt('A-crack', 0, 10, 40), opt('A-overlay', 1, 60, 120)] }],
+    };
     const s = solveExact(inst, highs);
     expect(s.totalBenefit).toBe(120);
     expect(s.chosen).toEqual([{ segmentId: 'A', optionId: 'A-overlay' }]);
@@ -45,7 +55,19 @@ describe('exact method (HiGHS) on hand-solvable instances', () => {
     const inst: Instance = {
       budgets: [60, 60],
       segments: [
-        { id: 'P', options: [{ id: 'P-path', benefit: 100, costs: [{ year: 0, cost: 50 }, { year: 1, cost: 50 }] }] },
+        {
+          id: 'P',
+          options: [
+            {
+              id: 'P-path',
+              benefit: 100,
+              costs: [
+                { year: 0, cost: 50 },
+                { year: 1, cost: 50 },
+              ],
+            },
+          ],
+        },
         { id: 'Q', options: [opt('Q1', 1, 60, 70)] },
       ],
     };
@@ -62,7 +84,11 @@ function randomInstance(seed: number, nSeg: number, years: number, optsPer: numb
     priority: u() * 100,
     options: Array.from({ length: optsPer }, (_, j) => {
       const cost = Math.round(5 + u() * 60);
-      return { id: `S${i}-${j}`, benefit: Math.round(cost * (0.5 + u() * 2.5)), costs: [{ year: Math.floor(u() * years), cost }] };
+      return {
+        id: `S${i}-${j}`,
+        benefit: Math.round(cost * (0.5 + u() * 2.5)),
+        costs: [{ year: Math.floor(u() * years), cost }],
+      };
     }),
   }));
   const total = segments.reduce((s, x) => s + x.options[0].costs[0].cost, 0);
@@ -76,24 +102,38 @@ describe('exact method against brute-force enumeration on tiny random instances'
       const brute = solveBruteForce(inst);
       const exact = solveExact(inst, highs);
       expect(exact.totalBenefit).toBeCloseTo(brute.totalBenefit, 6);
-      expect(feasible(inst, inst.segments.map((s) => { const c = exact.chosen.find((x) => x.segmentId === s.id); return c ? s.options.findIndex((o) => o.id === c.optionId) : -1; }))).toBe(true);
+      expect(
+        feasible(
+          inst,
+          inst.segments.map((s) => {
+            const c = exact.chosen.find((x) => x.segmentId === s.id);
+            return c ? s.options.findIndex((o) => o.id === c.optionId) : -1;
+          }),
+        ),
+      ).toBe(true);
     });
   }
 });
 
 describe('fast method', () => {
-  it.each([11, 12, 13, 14, 15])('is within 1 % of the exact optimum and never over budget (2,000 segments, seed %i)', { timeout: 90_000 }, (seed) => {
-    const inst = randomInstance(seed, 2000, 5, 3);
-    // HiGHS to a 0.01 % MIP gap: the optimum is at most 0.01 % above its answer.
-    const exact = solveExact(inst, highs, { timeLimitSeconds: 60, gap: 1e-4 });
-    const fast = solveFast(inst);
-    fast.spentByYear.forEach((s, y) => expect(s).toBeLessThanOrEqual(inst.budgets[y] + 1e-6));
-    expect(fast.totalBenefit).toBeGreaterThanOrEqual(exact.totalBenefit * 0.99);
-    // Its Lagrangian bound is a true upper bound on the optimum.
-    expect(fast.bound).toBeGreaterThanOrEqual(exact.totalBenefit - 1e-6);
-    console.log(`seed ${seed}: fast ${fast.totalBenefit} vs HiGHS ${exact.totalBenefit} (${((1 - fast.totalBenefit / exact.totalBenefit) * 100).toFixed(3)} % below), reported gap ${(fast.gap * 100).toFixed(2)} %`);
-    expect(fast.gap).toBeCloseTo((fast.bound - fast.totalBenefit) / fast.bound, 12);
-  });
+  it.each([11, 12, 13, 14, 15])(
+    'is within 1 % of the exact optimum and never over budget (2,000 segments, seed %i)',
+    { timeout: 90_000 },
+    (seed) => {
+      const inst = randomInstance(seed, 2000, 5, 3);
+      // HiGHS to a 0.01 % MIP gap: the optimum is at most 0.01 % above its answer.
+      const exact = solveExact(inst, highs, { timeLimitSeconds: 60, gap: 1e-4 });
+      const fast = solveFast(inst);
+      fast.spentByYear.forEach((s, y) => expect(s).toBeLessThanOrEqual(inst.budgets[y] + 1e-6));
+      expect(fast.totalBenefit).toBeGreaterThanOrEqual(exact.totalBenefit * 0.99);
+      // Its Lagrangian bound is a true upper bound on the optimum.
+      expect(fast.bound).toBeGreaterThanOrEqual(exact.totalBenefit - 1e-6);
+      console.log(
+        `seed ${seed}: fast ${fast.totalBenefit} vs HiGHS ${exact.totalBenefit} (${((1 - fast.totalBenefit / exact.totalBenefit) * 100).toFixed(3)} % below), reported gap ${(fast.gap * 100).toFixed(2)} %`,
+      );
+      expect(fast.gap).toBeCloseTo((fast.bound - fast.totalBenefit) / fast.bound, 12);
+    },
+  );
 
   it('worst-first ranking stays within budget and does no better than the optimum', () => {
     const inst = randomInstance(21, 300, 4, 3);

@@ -52,14 +52,39 @@ describe('distribution sampler against closed-form moments', () => {
 
 // A two-alternative model: A costs more now, B more later.
 const inputs: ModelInput[] = [
-  { key: 'rate', label: 'Discount rate', base: 0.03, low: 0.01, high: 0.07, distribution: { type: 'triangular', min: 0.01, mode: 0.03, max: 0.07 } },
-  { key: 'priceA', label: 'Price of A', base: 100, low: 80, high: 130, distribution: { type: 'uniform', min: 80, max: 130 } },
+  {
+    key: 'rate',
+    label: 'Discount rate',
+    base: 0.03,
+    low: 0.01,
+    high: 0.07,
+    distribution: { type: 'triangular', min: 0.01, mode: 0.03, max: 0.07 },
+  },
+  {
+    key: 'priceA',
+    label: 'Price of A',
+    base: 100,
+    low: 80,
+    high: 130,
+    distribution: { type: 'uniform', min: 80, max: 130 },
+  },
   { key: 'lifeB', label: 'Life of B', base: 8, low: 6, high: 10 },
 ];
 const model = (v: Record<string, number>) => [
-  evaluateAlternative([{ year: 0, cost: v.priceA, serviceLifeYears: 20 }, { year: 20, cost: v.priceA, serviceLifeYears: 20 }], v.rate, 40).presentValue,
   evaluateAlternative(
-    Array.from({ length: Math.ceil(40 / v.lifeB) }, (_, i) => ({ year: Math.round(i * v.lifeB), cost: 45, serviceLifeYears: v.lifeB })).filter((a) => a.year < 40),
+    [
+      { year: 0, cost: v.priceA, serviceLifeYears: 20 },
+      { year: 20, cost: v.priceA, serviceLifeYears: 20 },
+    ],
+    v.rate,
+    40,
+  ).presentValue,
+  evaluateAlternative(
+    Array.from({ length: Math.ceil(40 / v.lifeB) }, (_, i) => ({
+      year: Math.round(i * v.lifeB),
+      cost: 45,
+      serviceLifeYears: v.lifeB,
+    })).filter((a) => a.year < 40),
     v.rate,
     40,
   ).presentValue,

@@ -21,10 +21,16 @@ describe('AASHTO 1993 flexible design equation', () => {
 
 describe('thin-overlay caution', () => {
   it('flags a 1-inch lift on a weak, busy arterial and passes a quiet local road', () => {
-    const busy = checkOverlay({ adt: 8000, truckPct: 15, functionalClass: 'principal_arterial', pci: 35 }, { thicknessIn: 1, serviceLifeYears: 10 });
+    const busy = checkOverlay(
+      { adt: 8000, truckPct: 15, functionalClass: 'principal_arterial', pci: 35 },
+      { thicknessIn: 1, serviceLifeYears: 10 },
+    );
     expect(busy.caution).toBe(true);
     expect(busy.shortBy).toBeGreaterThan(0);
-    const quiet = checkOverlay({ adt: 150, truckPct: 4, functionalClass: 'local', pci: 75 }, { thicknessIn: 1.5, serviceLifeYears: 10 });
+    const quiet = checkOverlay(
+      { adt: 150, truckPct: 4, functionalClass: 'local', pci: 75 },
+      { thicknessIn: 1.5, serviceLifeYears: 10 },
+    );
     expect(quiet.caution).toBe(false);
   });
 });

@@ -14,7 +14,8 @@ export async function zippedShapefile(features: { props: Record<string, string>;
     b.writeInt32LE(3, 0);
     const xs = pts.map((p) => p[0]);
     const ys = pts.map((p) => p[1]);
-    for (const [i, v] of [Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)].entries()) b.writeDoubleLE(v, 4 + 8 * i);
+    for (const [i, v] of [Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)].entries())
+      b.writeDoubleLE(v, 4 + 8 * i);
     b.writeInt32LE(f.lines.length, 36);
     b.writeInt32LE(pts.length, 40);
     let start = 0;
@@ -29,7 +30,12 @@ export async function zippedShapefile(features: { props: Record<string, string>;
     return b;
   });
   const all = features.flatMap((f) => f.lines.flat());
-  const box = [Math.min(...all.map((p) => p[0])), Math.min(...all.map((p) => p[1])), Math.max(...all.map((p) => p[0])), Math.max(...all.map((p) => p[1]))];
+  const box = [
+    Math.min(...all.map((p) => p[0])),
+    Math.min(...all.map((p) => p[1])),
+    Math.max(...all.map((p) => p[0])),
+    Math.max(...all.map((p) => p[1])),
+  ];
   const header = (lengthBytes: number) => {
     const h = Buffer.alloc(100);
     h.writeInt32BE(9994, 0);
@@ -70,7 +76,18 @@ export async function zippedShapefile(features: { props: Record<string, string>;
     fd.writeUInt8(width, 16);
     return fd;
   });
-  const rows = features.map((f) => Buffer.from(` ${names.map((n) => String(f.props[n] ?? '').padEnd(width).slice(0, width)).join('')}`, 'latin1'));
+  const rows = features.map((f) =>
+    Buffer.from(
+      ` ${names
+        .map((n) =>
+          String(f.props[n] ?? '')
+            .padEnd(width)
+            .slice(0, width),
+        )
+        .join('')}`,
+      'latin1',
+    ),
+  );
   const dbf = Buffer.concat([dh, ...fields, Buffer.from([0x0d]), ...rows, Buffer.from([0x1a])]);
 
   const zip = new JSZip();

@@ -37,10 +37,7 @@ export async function createTestApp(overrides: Partial<AppConfig> = {}, opts: { 
   /** A signed-in client that sends the Origin header like a browser would. */
   async function as(email: string, password = DEMO_PASSWORD) {
     const agent = request.agent(app);
-    const res = await agent
-      .post('/api/auth/sign-in/email')
-      .set('Origin', APP_URL)
-      .send({ email, password });
+    const res = await agent.post('/api/auth/sign-in/email').set('Origin', APP_URL).send({ email, password });
     if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
     return client(agent);
   }

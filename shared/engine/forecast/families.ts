@@ -1,7 +1,8 @@
 // Pavement families: surface × functional-class group × treatment group.
 import type { Curve } from './curve';
 
-export const classGroup = (cls: string) => (/arterial|interstate|freeway/.test(cls) ? 'arterial' : /collector/.test(cls) ? 'collector' : 'local');
+export const classGroup = (cls: string) =>
+  /arterial|interstate|freeway/.test(cls) ? 'arterial' : /collector/.test(cls) ? 'collector' : 'local';
 
 export function treatmentGroup(lastTreatment: string | null) {
   const t = (lastTreatment ?? '').toLowerCase();
@@ -11,7 +12,8 @@ export function treatmentGroup(lastTreatment: string | null) {
   return 'unknown';
 }
 
-export const familyKey = (surface: string, cls: string, lastTreatment: string | null) => `${surface}|${classGroup(cls)}|${treatmentGroup(lastTreatment)}`;
+export const familyKey = (surface: string, cls: string, lastTreatment: string | null) =>
+  `${surface}|${classGroup(cls)}|${treatmentGroup(lastTreatment)}`;
 
 /**
  * Fallback curves where a family has too few surveys to fit. These are

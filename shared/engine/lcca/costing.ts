@@ -5,7 +5,12 @@ import type { Economics, Mix, Treatment } from '../../schemas/catalog';
 import { LB_PER_TON } from '../quantities';
 import type { CostRates } from './schedule';
 
-export type RateLine = { label: string; basis: 'per_sy' | 'per_lane_mile' | 'per_job' | 'percent'; rate: number; note?: string };
+export type RateLine = {
+  label: string;
+  basis: 'per_sy' | 'per_lane_mile' | 'per_job' | 'percent';
+  rate: number;
+  note?: string;
+};
 
 export type ResolvedTreatment = {
   label: string;
@@ -45,15 +50,32 @@ export function resolveTreatment(
   if (mix && thicknessIn) {
     const price = over.mixPricePerTon?.[mix.id] ?? mix.pricePerTon;
     tonsPerSy = (thicknessIn * mix.spreadRateLbPerSyIn) / LB_PER_TON;
-    lines.push({ label: `${mix.name}, ${thicknessIn} in at ${mix.spreadRateLbPerSyIn} lb/SY-in, $${price}/ton`, basis: 'per_sy', rate: tonsPerSy * price, note: `${(tonsPerSy * 1000).toFixed(1)} tons per 1,000 SY` });
+    lines.push({
+      label: `${mix.name}, ${thicknessIn} in at ${mix.spreadRateLbPerSyIn} lb/SY-in, $${price}/ton`,
+      basis: 'per_sy',
+      rate: tonsPerSy * price,
+      note: `${(tonsPerSy * 1000).toFixed(1)} tons per 1,000 SY`,
+    });
   }
-  for (const item of t.costItems) lines.push({ label: item.label, basis: item.basis, rate: item.basis === 'percent' ? item.amount : item.amount * factor });
+  for (const item of t.costItems)
+    lines.push({
+      label: item.label,
+      basis: item.basis,
+      rate: item.basis === 'percent' ? item.amount : item.amount * factor,
+    });
   if (econ.trafficControlPerDay > 0) {
-    lines.push({ label: `Traffic control, $${econ.trafficControlPerDay}/day at ${t.productionSyPerDay.toLocaleString('en-US')} SY/day`, basis: 'per_sy', rate: econ.trafficControlPerDay / t.productionSyPerDay });
+    lines.push({
+      label: `Traffic control, $${econ.trafficControlPerDay}/day at ${t.productionSyPerDay.toLocaleString('en-US')} SY/day`,
+      basis: 'per_sy',
+      rate: econ.trafficControlPerDay / t.productionSyPerDay,
+    });
   }
-  if (econ.mobilizationPerJob > 0) lines.push({ label: 'Mobilisation', basis: 'per_job', rate: econ.mobilizationPerJob });
-  if (econ.engineeringFraction > 0) lines.push({ label: 'Engineering', basis: 'percent', rate: econ.engineeringFraction });
-  if (econ.contingencyFraction > 0) lines.push({ label: 'Contingency', basis: 'percent', rate: econ.contingencyFraction });
+  if (econ.mobilizationPerJob > 0)
+    lines.push({ label: 'Mobilisation', basis: 'per_job', rate: econ.mobilizationPerJob });
+  if (econ.engineeringFraction > 0)
+    lines.push({ label: 'Engineering', basis: 'percent', rate: econ.engineeringFraction });
+  if (econ.contingencyFraction > 0)
+    lines.push({ label: 'Contingency', basis: 'percent', rate: econ.contingencyFraction });
   const sum = (b: RateLine['basis']) => lines.filter((l) => l.basis === b).reduce((s, l) => s + l.rate, 0);
   let serviceLifeYears: number;
   let lifeSource: ResolvedTreatment['lifeSource'];
@@ -70,7 +92,12 @@ export function resolveTreatment(
   const label = mix && thicknessIn ? `${t.name} — ${mix.name}, ${thicknessIn} in` : t.name;
   return {
     label,
-    rates: { perSy: sum('per_sy'), perLaneMile: sum('per_lane_mile'), perJob: sum('per_job'), addOnFraction: sum('percent') },
+    rates: {
+      perSy: sum('per_sy'),
+      perLaneMile: sum('per_lane_mile'),
+      perJob: sum('per_job'),
+      addOnFraction: sum('percent'),
+    },
     lines,
     tonsPerSy,
     thicknessIn,
@@ -84,9 +111,27 @@ export function resolveTreatment(
 export function costLines(r: ResolvedTreatment, q: { areaSy: number; laneMiles: number }) {
   const qty = (b: RateLine['basis']) => (b === 'per_sy' ? q.areaSy : b === 'per_lane_mile' ? q.laneMiles : 1);
   const unit = (b: RateLine['basis']) => (b === 'per_sy' ? 'SY' : b === 'per_lane_mile' ? 'lane-mi' : 'job');
-  const base = r.lines.filter((l) => l.basis !== 'percent').map((l) => ({ label: l.label, quantity: qty(l.basis), unit: unit(l.basis), unitCost: l.rate, amount: qty(l.basis) * l.rate, note: l.note }));
+  const base = r.lines
+    .filter((l) => l.basis !== 'percent')
+    .map((l) => ({
+      label: l.label,
+      quantity: qty(l.basis),
+      unit: unit(l.basis),
+      unitCost: l.rate,
+      amount: qty(l.basis) * l.rate,
+      note: l.note,
+    }));
   const subtotal = base.reduce((s, l) => s + l.amount, 0);
-  const addOns = r.lines.filter((l) => l.basis === 'percent').map((l) => ({ label: `${l.label} (${(l.rate * 100).toFixed(1)} %)`, quantity: subtotal, unit: '$', unitCost: l.rate, amount: subtotal * l.rate, note: undefined as string | undefined }));
+  const addOns = r.lines
+    .filter((l) => l.basis === 'percent')
+    .map((l) => ({
+      label: `${l.label} (${(l.rate * 100).toFixed(1)} %)`,
+      quantity: subtotal,
+      unit: '$',
+      unitCost: l.rate,
+      amount: subtotal * l.rate,
+      note: undefined as string | undefined,
+    }));
   const total = subtotal + addOns.reduce((s, l) => s + l.amount, 0);
   return { lines: [...base, ...addOns], subtotal, total, tons: r.tonsPerSy * q.areaSy };
 }

@@ -37,7 +37,8 @@ export function remainingLife(activities: Activity[], analysisPeriodYears: numbe
   for (let i = 0; i < activities.length; i++) {
     const a = activities[i];
     if (a.salvage === false || a.serviceLifeYears <= 0) continue;
-    if (a.year + a.serviceLifeYears > analysisPeriodYears && (index === null || a.year >= activities[index].year)) index = i;
+    if (a.year + a.serviceLifeYears > analysisPeriodYears && (index === null || a.year >= activities[index].year))
+      index = i;
   }
   if (index === null) return { value: 0, index };
   const a = activities[index];
@@ -45,10 +46,20 @@ export function remainingLife(activities: Activity[], analysisPeriodYears: numbe
   return { value: a.cost * fraction, index };
 }
 
-export function evaluateAlternative(activities: Activity[], discountRate: number, analysisPeriodYears: number): AlternativeResult {
+export function evaluateAlternative(
+  activities: Activity[],
+  discountRate: number,
+  analysisPeriodYears: number,
+): AlternativeResult {
   const cashFlows = activities.map((a) => {
     const f = pf(discountRate, a.year);
-    return { year: a.year, cost: a.cost, userCost: a.userCost ?? 0, presentValue: (a.cost + (a.userCost ?? 0)) * f, label: a.label };
+    return {
+      year: a.year,
+      cost: a.cost,
+      userCost: a.userCost ?? 0,
+      presentValue: (a.cost + (a.userCost ?? 0)) * f,
+      label: a.label,
+    };
   });
   const presentValueOfCosts = cashFlows.reduce((s, c) => s + c.cost * pf(discountRate, c.year), 0);
   const presentValueOfUserCosts = cashFlows.reduce((s, c) => s + c.userCost * pf(discountRate, c.year), 0);

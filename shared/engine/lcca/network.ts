@@ -22,8 +22,13 @@ function activitiesFor(rated: RatedActivity[], q: { areaSy: number; laneMiles: n
 
 /** Net present value per unit of each quantity, for one expanded schedule. */
 export function unitCoefficients(rated: RatedActivity[], discountRate: number, analysisPeriodYears: number) {
-  const npv = (q: { areaSy: number; laneMiles: number; jobs: number }) => evaluateAlternative(activitiesFor(rated, q), discountRate, analysisPeriodYears).presentValue;
-  return { perSy: npv({ areaSy: 1, laneMiles: 0, jobs: 0 }), perLaneMile: npv({ areaSy: 0, laneMiles: 1, jobs: 0 }), perJob: npv({ areaSy: 0, laneMiles: 0, jobs: 1 }) };
+  const npv = (q: { areaSy: number; laneMiles: number; jobs: number }) =>
+    evaluateAlternative(activitiesFor(rated, q), discountRate, analysisPeriodYears).presentValue;
+  return {
+    perSy: npv({ areaSy: 1, laneMiles: 0, jobs: 0 }),
+    perLaneMile: npv({ areaSy: 0, laneMiles: 1, jobs: 0 }),
+    perJob: npv({ areaSy: 0, laneMiles: 0, jobs: 1 }),
+  };
 }
 
 export type NetworkAlternativeResult = {
@@ -38,7 +43,12 @@ export type NetworkAlternativeResult = {
  * Evaluates each plan over every segment in one call. The group is one job
  * (mobilisation and traffic control once), shared among segments by area.
  */
-export function evaluateNetwork(plans: SchedulePlan[], q: Quantities, discountRate: number, analysisPeriodYears: number): NetworkAlternativeResult[] {
+export function evaluateNetwork(
+  plans: SchedulePlan[],
+  q: Quantities,
+  discountRate: number,
+  analysisPeriodYears: number,
+): NetworkAlternativeResult[] {
   const n = q.areaSy.length;
   let totalSy = 0;
   for (let i = 0; i < n; i++) totalSy += q.areaSy[i];
@@ -60,7 +70,12 @@ export function evaluateNetwork(plans: SchedulePlan[], q: Quantities, discountRa
 }
 
 /** The group's full result (cash flows, RSL) for display: the group as one job. */
-export function evaluatePlanForGroup(plan: SchedulePlan, totals: { areaSy: number; laneMiles: number }, discountRate: number, analysisPeriodYears: number) {
+export function evaluatePlanForGroup(
+  plan: SchedulePlan,
+  totals: { areaSy: number; laneMiles: number },
+  discountRate: number,
+  analysisPeriodYears: number,
+) {
   const rated = expandSchedule(plan, analysisPeriodYears);
   const activities = activitiesFor(rated, { ...totals, jobs: 1 });
   return { rated, activities, result: evaluateAlternative(activities, discountRate, analysisPeriodYears) };

@@ -16,7 +16,15 @@ export type Model = (values: Record<string, number>) => number[];
 
 const baseValues = (inputs: ModelInput[]) => Object.fromEntries(inputs.map((i) => [i.key, i.base]));
 
-export type TornadoRow = { key: string; label: string; low: number; high: number; npvAtLow: number[]; npvAtHigh: number[]; swing: number };
+export type TornadoRow = {
+  key: string;
+  label: string;
+  low: number;
+  high: number;
+  npvAtLow: number[];
+  npvAtHigh: number[];
+  swing: number;
+};
 
 /** One input at a time to its low and high; rows sorted by the largest swing of any alternative. */
 export function sensitivity(inputs: ModelInput[], model: Model): { base: number[]; rows: TornadoRow[] } {
@@ -37,7 +45,13 @@ export function sensitivity(inputs: ModelInput[], model: Model): { base: number[
  * [lo, hi] by scanning for a sign change and bisecting it. Null when one is
  * cheaper across the whole range.
  */
-export function breakEvenRate(npvAt: (rate: number) => number[], a: number, b: number, lo = 0, hi = 0.15): number | null {
+export function breakEvenRate(
+  npvAt: (rate: number) => number[],
+  a: number,
+  b: number,
+  lo = 0,
+  hi = 0.15,
+): number | null {
   const diff = (r: number) => {
     const v = npvAt(r);
     return v[a] - v[b];
@@ -89,7 +103,11 @@ function quantile(sorted: Float64Array, p: number) {
   return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
 }
 
-export function monteCarlo(inputs: ModelInput[], model: Model, opts: { iterations: number; seed: number; bins?: number; onProgress?: (done: number) => void }): McResult {
+export function monteCarlo(
+  inputs: ModelInput[],
+  model: Model,
+  opts: { iterations: number; seed: number; bins?: number; onProgress?: (done: number) => void },
+): McResult {
   const u = rng(opts.seed);
   const base = baseValues(inputs);
   const random = inputs.filter((i) => i.distribution && i.distribution.type !== 'fixed');
@@ -116,7 +134,16 @@ export function monteCarlo(inputs: ModelInput[], model: Model, opts: { iteration
     let ss = 0;
     for (let i = 0; i < n; i++) ss += (d[i] - mean) ** 2;
     const sorted = Float64Array.from(d).sort();
-    return { mean, sd: Math.sqrt(ss / Math.max(1, n - 1)), p5: quantile(sorted, 0.05), p50: quantile(sorted, 0.5), p95: quantile(sorted, 0.95), min: sorted[0], max: sorted[n - 1], sorted };
+    return {
+      mean,
+      sd: Math.sqrt(ss / Math.max(1, n - 1)),
+      p5: quantile(sorted, 0.05),
+      p50: quantile(sorted, 0.5),
+      p95: quantile(sorted, 0.95),
+      min: sorted[0],
+      max: sorted[n - 1],
+      sorted,
+    };
   });
   const lo = Math.min(...stats.map((s) => s.min));
   const hi = Math.max(...stats.map((s) => s.max));

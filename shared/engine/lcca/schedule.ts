@@ -34,7 +34,11 @@ export type SchedulePlan = {
   repeatAtEndOfLife: boolean;
 };
 
-export type RatedActivity = { year: number; template: ActivityTemplate; kind: 'initial' | 'rehabilitation' | 'maintenance' };
+export type RatedActivity = {
+  year: number;
+  template: ActivityTemplate;
+  kind: 'initial' | 'rehabilitation' | 'maintenance';
+};
 
 export function expandSchedule(plan: SchedulePlan, analysisPeriodYears: number): RatedActivity[] {
   const out: RatedActivity[] = [];
@@ -51,7 +55,9 @@ export function expandSchedule(plan: SchedulePlan, analysisPeriodYears: number):
     }
     year += life;
     if (!plan.repeatAtEndOfLife || year >= analysisPeriodYears) break;
-    current = plan.rehabilitation.length ? plan.rehabilitation[Math.min(k, plan.rehabilitation.length - 1)] : plan.initial;
+    current = plan.rehabilitation.length
+      ? plan.rehabilitation[Math.min(k, plan.rehabilitation.length - 1)]
+      : plan.initial;
     k++;
   }
   return out.sort((a, b) => a.year - b.year);

@@ -1,7 +1,8 @@
 // The brief's plain-words paragraph, shared by the print page and the PDF.
 import type { PlanResult } from './run-plan';
 
-const money = (v: number) => (Math.abs(v) >= 1e6 ? `$${(v / 1e6).toFixed(2)}M` : `$${Math.round(v).toLocaleString('en-US')}`);
+const money = (v: number) =>
+  Math.abs(v) >= 1e6 ? `$${(v / 1e6).toFixed(2)}M` : `$${Math.round(v).toLocaleString('en-US')}`;
 const int = (v: number) => Math.round(v).toLocaleString('en-US');
 
 export function briefSummary(r: PlanResult, agencyName: string) {

@@ -83,7 +83,12 @@ function applicable(t: PlanTreatment, s: PlanSegment, pci: number, calendarYear:
  * lane-miles (and traffic, if chosen), counted over the horizon and on past
  * it until the treatment's life ends, so late work is not undervalued.
  */
-export function buildCandidates(segments: PlanSegment[], treatments: PlanTreatment[], curves: (key: string) => Curve, settings: PlanSettings) {
+export function buildCandidates(
+  segments: PlanSegment[],
+  treatments: PlanTreatment[],
+  curves: (key: string) => Curve,
+  settings: PlanSettings,
+) {
   const H = settings.budgets.length;
   const optSegments: OptSegment[] = [];
   const meta: { segment: PlanSegment; options: { treatment: PlanTreatment; year: number; cost: number }[] }[] = [];
@@ -104,7 +109,9 @@ export function buildCandidates(segments: PlanSegment[], treatments: PlanTreatme
         if (benefit <= 0) continue;
         const cost = treatmentCost(t, s);
         // Length × PCI gained in each plan year: the option's share of a network-PCI floor.
-        const floorGains = Array.from({ length: H }, (_, k) => (k < withT.length ? Math.max(0, withT[k] - none[k]) * s.lengthMi : 0));
+        const floorGains = Array.from({ length: H }, (_, k) =>
+          k < withT.length ? Math.max(0, withT[k] - none[k]) * s.lengthMi : 0,
+        );
         options.push({ id: `${s.ref}:${t.id}:${y}`, benefit, costs: [{ year: y, cost }], floorGains });
         m.push({ treatment: t, year: y, cost });
       }
@@ -118,7 +125,9 @@ export function buildCandidates(segments: PlanSegment[], treatments: PlanTreatme
     const length = segments.reduce((a, s) => a + s.lengthMi, 0);
     const base = new Array(H).fill(0);
     for (const s of segments) doNothing(curves(s.familyKey), s.pci, H).forEach((v, y) => (base[y] += v * s.lengthMi));
-    instance.floors = base.map((b, y) => ({ year: y, rhs: settings.minNetworkPci! * length - b })).filter((f) => f.rhs > 0);
+    instance.floors = base
+      .map((b, y) => ({ year: y, rhs: settings.minNetworkPci! * length - b }))
+      .filter((f) => f.rhs > 0);
   }
   return { instance, meta };
 }
@@ -211,7 +220,8 @@ export function simulate(
       const band = conditionBand(path[y]);
       if (band) years[y].laneMilesByBand[band.id] += s.laneMiles;
       const treatedBy = c && c.year <= y;
-      if (!treatedBy && path[y] < settings.needsWorkBelow) years[y].backlog += cheapestFor(s, path[y], settings.startYear + y);
+      if (!treatedBy && path[y] < settings.needsWorkBelow)
+        years[y].backlog += cheapestFor(s, path[y], settings.startYear + y);
     }
   }
   for (const y of years) {

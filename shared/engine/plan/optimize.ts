@@ -52,7 +52,9 @@ function solution(inst: Instance, method: Method, pick: (number | -1)[], bound: 
   const b = Math.max(bound, benefit);
   return {
     method,
-    chosen: pick.flatMap((j, i) => (j < 0 ? [] : [{ segmentId: inst.segments[i].id, optionId: inst.segments[i].options[j].id }])),
+    chosen: pick.flatMap((j, i) =>
+      j < 0 ? [] : [{ segmentId: inst.segments[i].id, optionId: inst.segments[i].options[j].id }],
+    ),
     totalBenefit: benefit,
     spentByYear: spent,
     bound: b,
@@ -63,7 +65,15 @@ function solution(inst: Instance, method: Method, pick: (number | -1)[], bound: 
 
 /** Options that can never be afforded, or bring no benefit, are dropped up front. */
 function usable(inst: Instance) {
-  return inst.segments.map((s) => s.options.map((o, j) => ({ o, j })).filter(({ o }) => o.benefit > 0 && o.costs.every((c) => c.year >= 0 && c.year < inst.budgets.length && c.cost <= inst.budgets[c.year] + EPS)));
+  return inst.segments.map((s) =>
+    s.options
+      .map((o, j) => ({ o, j }))
+      .filter(
+        ({ o }) =>
+          o.benefit > 0 &&
+          o.costs.every((c) => c.year >= 0 && c.year < inst.budgets.length && c.cost <= inst.budgets[c.year] + EPS),
+      ),
+  );
 }
 
 // ---- Lagrangian relaxation of the budget rows ------------------------------
@@ -94,7 +104,8 @@ function lagrangian(inst: Instance, opts: ReturnType<typeof usable>, lambda: num
 function repairAndFill(inst: Instance, opts: ReturnType<typeof usable>, start: (number | -1)[], lambda: number[]) {
   const pick = [...start];
   const { spent } = spending(inst, pick);
-  const price = (o: OptOption) => o.costs.reduce((s, c) => s + c.cost * (lambda[c.year] + 1 / Math.max(1, inst.budgets[c.year])), 0);
+  const price = (o: OptOption) =>
+    o.costs.reduce((s, c) => s + c.cost * (lambda[c.year] + 1 / Math.max(1, inst.budgets[c.year])), 0);
   const over = () => spent.some((s, y) => s > inst.budgets[y] + EPS);
   if (over()) {
     const order = pick
@@ -141,7 +152,10 @@ function repairAndFill(inst: Instance, opts: ReturnType<typeof usable>, start: (
 }
 
 /** Fast near-optimal method: subgradient on the Lagrangian dual, with a repair-and-fill heuristic. */
-export function solveFast(inst: Instance, opts: { iterations?: number; onProgress?: (f: number) => void } = {}): Solution {
+export function solveFast(
+  inst: Instance,
+  opts: { iterations?: number; onProgress?: (f: number) => void } = {},
+): Solution {
   const list = usable(inst);
   const Y = inst.budgets.length;
   const iterations = opts.iterations ?? 150;
@@ -149,10 +163,11 @@ export function solveFast(inst: Instance, opts: { iterations?: number; onProgres
   // Start the multipliers at the benefit-to-cost ratio money buys on average.
   let totalB = 0;
   let totalC = 0;
-  for (const l of list) for (const { o } of l) {
-    totalB += o.benefit;
-    totalC += o.costs.reduce((s, c) => s + c.cost, 0);
-  }
+  for (const l of list)
+    for (const { o } of l) {
+      totalB += o.benefit;
+      totalC += o.costs.reduce((s, c) => s + c.cost, 0);
+    }
   lambda = lambda.map(() => (totalC > 0 ? (0.5 * totalB) / totalC : 0));
   let bestBound = Infinity;
   let bestPick: (number | -1)[] = list.map(() => -1);
@@ -181,7 +196,13 @@ export function solveFast(inst: Instance, opts: { iterations?: number; onProgres
     if (it % 20 === 19) step *= 0.6;
     opts.onProgress?.((it + 1) / iterations);
   }
-  return solution(inst, 'fast', bestPick, Number.isFinite(bestBound) ? bestBound : bestValue, 'near-optimal (Lagrangian bound)');
+  return solution(
+    inst,
+    'fast',
+    bestPick,
+    Number.isFinite(bestBound) ? bestBound : bestValue,
+    'near-optimal (Lagrangian bound)',
+  );
 }
 
 /** Baseline: segments in priority order (worst first), each takes its best option that still fits. */
@@ -248,7 +269,9 @@ export function solveBruteForce(inst: Instance): Solution {
 // ---- Exact: mixed-integer programme solved by HiGHS -------------------------
 
 /** The part of the `highs` package this module uses (passed in, so the engine does no loading itself). */
-export type Highs = { solve: (lp: string, options?: never) => { Status: string; ObjectiveValue: number; Columns: Record<string, object> } };
+export type Highs = {
+  solve: (lp: string, options?: never) => { Status: string; ObjectiveValue: number; Columns: Record<string, object> };
+};
 
 /** Writes the model in CPLEX LP format, one binary per (segment, option). */
 export function toLp(inst: Instance) {
@@ -292,7 +315,8 @@ export function toLp(inst: Instance) {
       }
     });
     if (terms.length === 0) {
-      if (f.rhs > 0) throw new Error(`the minimum network PCI cannot be reached in year ${f.year + 1}: no work can lift it`);
+      if (f.rhs > 0)
+        throw new Error(`the minimum network PCI cannot be reached in year ${f.year + 1}: no work can lift it`);
       continue;
     }
     lines.push(` f${f.year}:`);
@@ -305,18 +329,47 @@ export function toLp(inst: Instance) {
   return { lp: lines.join('\n'), list };
 }
 
-export function solveExact(inst: Instance, highs: Highs, opts: { timeLimitSeconds?: number; gap?: number } = {}): Solution {
+export function solveExact(
+  inst: Instance,
+  highs: Highs,
+  opts: { timeLimitSeconds?: number; gap?: number } = {},
+): Solution {
   const { lp, list } = toLp(inst);
-  if (list.every((l) => l.length === 0)) return solution(inst, 'exact', inst.segments.map(() => -1), 0, 'optimal (nothing affordable)');
-  const res = highs.solve(lp, { output_flag: false, time_limit: opts.timeLimitSeconds ?? 60, mip_rel_gap: opts.gap ?? 1e-6, presolve: 'on' } as never);
-  if (res.Status === 'Infeasible') throw new Error('no choice of work meets every year’s budget and the minimum network PCI; raise the budgets or lower the minimum (Find the budget helps)');
-  if (res.Status !== 'Optimal' && res.Status !== 'Time limit reached') throw new Error(`HiGHS ended with status: ${res.Status}`);
+  if (list.every((l) => l.length === 0))
+    return solution(
+      inst,
+      'exact',
+      inst.segments.map(() => -1),
+      0,
+      'optimal (nothing affordable)',
+    );
+  const res = highs.solve(lp, {
+    output_flag: false,
+    time_limit: opts.timeLimitSeconds ?? 60,
+    mip_rel_gap: opts.gap ?? 1e-6,
+    presolve: 'on',
+  } as never);
+  if (res.Status === 'Infeasible')
+    throw new Error(
+      'no choice of work meets every year’s budget and the minimum network PCI; raise the budgets or lower the minimum (Find the budget helps)',
+    );
+  if (res.Status !== 'Optimal' && res.Status !== 'Time limit reached')
+    throw new Error(`HiGHS ended with status: ${res.Status}`);
   const pick: (number | -1)[] = list.map((l, i) => {
-    for (const { j } of l) if (((res.Columns[`x${i}_${j}`] as { Primal?: number } | undefined)?.Primal ?? 0) > 0.5) return j;
+    for (const { j } of l)
+      if (((res.Columns[`x${i}_${j}`] as { Primal?: number } | undefined)?.Primal ?? 0) > 0.5) return j;
     return -1;
   });
   const optimal = res.Status === 'Optimal';
   // At a time limit the Lagrangian dual gives a valid bound on the optimum.
-  const bound = optimal ? spending(inst, pick).benefit : Math.min(solveFastBound(inst, list), solveFast(inst, { iterations: 60 }).bound);
-  return solution(inst, 'exact', pick, bound, optimal ? 'optimal (HiGHS)' : 'time limit reached (HiGHS); bound from the Lagrangian dual');
+  const bound = optimal
+    ? spending(inst, pick).benefit
+    : Math.min(solveFastBound(inst, list), solveFast(inst, { iterations: 60 }).bound);
+  return solution(
+    inst,
+    'exact',
+    pick,
+    bound,
+    optimal ? 'optimal (HiGHS)' : 'time limit reached (HiGHS); bound from the Lagrangian dual',
+  );
 }

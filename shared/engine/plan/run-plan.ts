@@ -32,7 +32,8 @@ function chosenMap(inst: Instance, meta: ReturnType<typeof buildCandidates>['met
 }
 
 export function curveFn(input: PlanInput) {
-  return (key: string) => input.curves[key] ?? input.curves[`default|${key.split('|')[0]}`] ?? input.curves['default|other'];
+  return (key: string) =>
+    input.curves[key] ?? input.curves[`default|${key.split('|')[0]}`] ?? input.curves['default|other'];
 }
 
 export function candidates(input: PlanInput) {
@@ -48,20 +49,36 @@ export function runPlan(input: PlanInput, highs: Highs | null, onProgress?: (f: 
   if (input.method === 'exact') {
     if (!highs) throw new Error('the exact method needs the HiGHS solver');
     solution = solveExact(instance, highs, { timeLimitSeconds: input.timeLimitSeconds ?? 60, gap: 1e-4 });
-  } else if (input.method === 'fast') solution = solveFast(instance, { onProgress: (f) => onProgress?.(0.1 + 0.7 * f) });
+  } else if (input.method === 'fast')
+    solution = solveFast(instance, { onProgress: (f) => onProgress?.(0.1 + 0.7 * f) });
   else solution = solveRanking(instance);
   onProgress?.(0.85);
   const baseline = input.method === 'ranking' ? solution : solveRanking(instance);
   const sim = simulate(input.segments, input.treatments, curves, input.settings, chosenMap(instance, meta, solution));
-  const baseSim = input.method === 'ranking' ? sim : simulate(input.segments, input.treatments, curves, input.settings, chosenMap(instance, meta, baseline));
+  const baseSim =
+    input.method === 'ranking'
+      ? sim
+      : simulate(input.segments, input.treatments, curves, input.settings, chosenMap(instance, meta, baseline));
   const last = sim.years[sim.years.length - 1];
-  const floorMissed = input.minNetworkPci === null ? [] : sim.years.filter((y) => y.networkPci < input.minNetworkPci! - 1e-9).map((y) => y.calendarYear);
+  const floorMissed =
+    input.minNetworkPci === null
+      ? []
+      : sim.years.filter((y) => y.networkPci < input.minNetworkPci! - 1e-9).map((y) => y.calendarYear);
   return {
     planName: input.planName,
     method: input.method,
     candidates: { segments: instance.segments.filter((s) => s.options.length > 0).length, options },
-    solution: { totalBenefit: solution.totalBenefit, bound: solution.bound, gap: solution.gap, status: solution.status },
-    baseline: { totalBenefit: baseline.totalBenefit, finalPci: baseSim.years[baseSim.years.length - 1].networkPci, years: baseSim.years.map((y) => ({ calendarYear: y.calendarYear, networkPci: y.networkPci, spent: y.spent })) },
+    solution: {
+      totalBenefit: solution.totalBenefit,
+      bound: solution.bound,
+      gap: solution.gap,
+      status: solution.status,
+    },
+    baseline: {
+      totalBenefit: baseline.totalBenefit,
+      finalPci: baseSim.years[baseSim.years.length - 1].networkPci,
+      years: baseSim.years.map((y) => ({ calendarYear: y.calendarYear, networkPci: y.networkPci, spent: y.spent })),
+    },
     years: sim.years,
     work: sim.work,
     summary: {
@@ -91,11 +108,21 @@ export function budgetSearch(input: PlanInput, targetPci: number, onProgress?: (
     const { instance, meta } = buildCandidates(input.segments, input.treatments, curves, settings);
     const s = solveFast(instance, { iterations: 80 });
     const sim = simulate(input.segments, input.treatments, curves, settings, chosenMap(instance, meta, s));
-    return { budget: b, finalPci: sim.years[H - 1].networkPci, minPci: Math.min(...sim.years.map((y) => y.networkPci)) };
+    return {
+      budget: b,
+      finalPci: sim.years[H - 1].networkPci,
+      minPci: Math.min(...sim.years.map((y) => y.networkPci)),
+    };
   };
   // Upper end: enough to do every segment's dearest option in one year.
-  const { instance } = buildCandidates(input.segments, input.treatments, curves, { ...input.settings, budgets: new Array(H).fill(Number.MAX_SAFE_INTEGER) });
-  const maxNeed = instance.segments.reduce((s, x) => s + Math.max(0, ...x.options.map((o) => o.costs.reduce((t, c) => t + c.cost, 0))), 0);
+  const { instance } = buildCandidates(input.segments, input.treatments, curves, {
+    ...input.settings,
+    budgets: new Array(H).fill(Number.MAX_SAFE_INTEGER),
+  });
+  const maxNeed = instance.segments.reduce(
+    (s, x) => s + Math.max(0, ...x.options.map((o) => o.costs.reduce((t, c) => t + c.cost, 0))),
+    0,
+  );
   const points: { budget: number; finalPci: number; minPci: number }[] = [];
   const levels = 8;
   for (let i = 0; i <= levels; i++) {

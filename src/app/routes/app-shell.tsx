@@ -72,9 +72,7 @@ export function AppShell() {
           </button>
         </div>
       </aside>
-      <main className="min-w-0 flex-1 px-8 py-6 print:p-0">
-        {allowed ? <Outlet /> : <NotFoundPage inline />}
-      </main>
+      <main className="min-w-0 flex-1 px-8 py-6 print:p-0">{allowed ? <Outlet /> : <NotFoundPage inline />}</main>
     </div>
   );
 }

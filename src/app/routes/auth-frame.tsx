@@ -15,7 +15,9 @@ export function AuthFrame({ title, children }: { title: string; children: ReactN
             ))}
           </div>
         </div>
-        <div className="text-xs text-white/50">Planning estimates only; agency specifications and licensed engineering judgement govern.</div>
+        <div className="text-xs text-white/50">
+          Planning estimates only; agency specifications and licensed engineering judgement govern.
+        </div>
       </div>
       <div className="flex flex-1 items-center justify-center p-8">
         <div className="w-full max-w-sm">

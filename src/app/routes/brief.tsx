@@ -17,24 +17,44 @@ function WorkMap({ agencyId, years }: { agencyId: string; years: Map<number, num
   let minY = Infinity;
   let maxX = -Infinity;
   let maxY = -Infinity;
-  const lines = (g: GeoJSON.LineString | GeoJSON.MultiLineString) => (g.type === 'LineString' ? [g.coordinates] : g.coordinates);
-  for (const f of fc.features) for (const l of lines(f.geometry)) for (const [x, y] of l) {
-    minX = Math.min(minX, x);
-    maxX = Math.max(maxX, x);
-    minY = Math.min(minY, y);
-    maxY = Math.max(maxY, y);
-  }
+  const lines = (g: GeoJSON.LineString | GeoJSON.MultiLineString) =>
+    g.type === 'LineString' ? [g.coordinates] : g.coordinates;
+  for (const f of fc.features)
+    for (const l of lines(f.geometry))
+      for (const [x, y] of l) {
+        minX = Math.min(minX, x);
+        maxX = Math.max(maxX, x);
+        minY = Math.min(minY, y);
+        maxY = Math.max(maxY, y);
+      }
   const k = Math.cos((((minY + maxY) / 2) * Math.PI) / 180);
   const W = 700;
   const H = Math.max(200, Math.min(520, (W * (maxY - minY)) / ((maxX - minX) * k || 1)));
   const s = Math.min(W / ((maxX - minX) * k || 1), H / (maxY - minY || 1));
-  const d = (l: number[][]) => l.map(([x, y], i) => `${i ? 'L' : 'M'}${((x - minX) * k * s).toFixed(1)},${(H - (y - minY) * s).toFixed(1)}`).join('');
+  const d = (l: number[][]) =>
+    l
+      .map(([x, y], i) => `${i ? 'L' : 'M'}${((x - minX) * k * s).toFixed(1)},${(H - (y - minY) * s).toFixed(1)}`)
+      .join('');
   const color = (id: number) => (years.get(id) === 0 ? '#0f766e' : years.get(id) === 1 ? '#d6b25e' : '#d3cdbf');
-  const sorted = [...fc.features].sort((a, b) => (years.has(a.properties.id) ? 1 : 0) - (years.has(b.properties.id) ? 1 : 0));
+  const sorted = [...fc.features].sort(
+    (a, b) => (years.has(a.properties.id) ? 1 : 0) - (years.has(b.properties.id) ? 1 : 0),
+  );
   return (
-    <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label="Map of the first two years' work" data-testid="brief-map">
+    <svg
+      viewBox={`0 0 ${W} ${H}`}
+      className="w-full"
+      role="img"
+      aria-label="Map of the first two years' work"
+      data-testid="brief-map"
+    >
       {sorted.map((f) => (
-        <path key={f.properties.id} d={lines(f.geometry).map(d).join('')} fill="none" stroke={color(f.properties.id)} strokeWidth={years.has(f.properties.id) ? 2.4 : 0.6} />
+        <path
+          key={f.properties.id}
+          d={lines(f.geometry).map(d).join('')}
+          fill="none"
+          stroke={color(f.properties.id)}
+          strokeWidth={years.has(f.properties.id) ? 2.4 : 0.6}
+        />
       ))}
     </svg>
   );
@@ -57,30 +77,88 @@ export function BriefPage() {
   return (
     <article className="mx-auto max-w-3xl bg-white p-8 text-asphalt print:max-w-none print:p-0" data-testid="brief">
       <div className="no-print mb-4 flex gap-3 text-sm">
-        <Link to=".." relative="path" className="text-accent hover:underline">← Plan</Link>
-        <button type="button" className="text-accent hover:underline" onClick={() => window.print()}>Print</button>
-        <a className="text-accent hover:underline" href={`/api/agencies/${agencyId}/plans/${planId}/brief.pdf`}>PDF</a>
+        <Link to=".." relative="path" className="text-accent hover:underline">
+          ← Plan
+        </Link>
+        <button type="button" className="text-accent hover:underline" onClick={() => window.print()}>
+          Print
+        </button>
+        <a className="text-accent hover:underline" href={`/api/agencies/${agencyId}/plans/${planId}/brief.pdf`}>
+          PDF
+        </a>
       </div>
-      <h1 className="text-2xl font-black">{agencyName}: {plan.data.name}</h1>
-      <p className="text-sm text-asphalt-muted">Paving plan {first.calendarYear}–{last.calendarYear} · {plan.data.status} · {new Date().toISOString().slice(0, 10)}</p>
+      <h1 className="text-2xl font-black">
+        {agencyName}: {plan.data.name}
+      </h1>
+      <p className="text-sm text-asphalt-muted">
+        Paving plan {first.calendarYear}–{last.calendarYear} · {plan.data.status} ·{' '}
+        {new Date().toISOString().slice(0, 10)}
+      </p>
       <h2 className="mt-5 text-lg font-bold">Summary</h2>
       <p className="text-sm leading-relaxed">{briefSummary(r, agencyName)}</p>
       <h2 className="mt-5 text-lg font-bold">Network condition</h2>
-      <LineChart x={x} label="Network PCI by year" series={[{ label: 'this plan', color: '#0f766e', values: r.years.map((y) => y.networkPci) }, { label: 'worst-first', color: '#8c8574', dashed: true, values: r.baseline.years.map((y) => y.networkPci) }, { label: 'no work', color: '#7f1d1d', dashed: true, values: r.years.map((y) => y.networkPciDoNothing) }]} />
+      <LineChart
+        x={x}
+        label="Network PCI by year"
+        series={[
+          { label: 'this plan', color: '#0f766e', values: r.years.map((y) => y.networkPci) },
+          { label: 'worst-first', color: '#8c8574', dashed: true, values: r.baseline.years.map((y) => y.networkPci) },
+          { label: 'no work', color: '#7f1d1d', dashed: true, values: r.years.map((y) => y.networkPciDoNothing) },
+        ]}
+      />
       <h2 className="mt-5 text-lg font-bold">Lane-miles by condition band</h2>
-      <StackedBars x={x} label="Lane-miles by condition band" format={(v) => fmtInt(v)} stacks={CONDITION_BANDS.slice().reverse().map((b) => ({ label: b.label, color: b.color, values: r.years.map((y) => y.laneMilesByBand[b.id] ?? 0) }))} height={150} />
-      <p className="text-xs">{CONDITION_BANDS.map((b) => `${b.label} (PCI ${b.min}–${b.max}): ${fmtInt(first.laneMilesByBand[b.id])} → ${fmtInt(last.laneMilesByBand[b.id])} lane-mi`).join(' · ')}</p>
+      <StackedBars
+        x={x}
+        label="Lane-miles by condition band"
+        format={(v) => fmtInt(v)}
+        stacks={CONDITION_BANDS.slice()
+          .reverse()
+          .map((b) => ({ label: b.label, color: b.color, values: r.years.map((y) => y.laneMilesByBand[b.id] ?? 0) }))}
+        height={150}
+      />
+      <p className="text-xs">
+        {CONDITION_BANDS.map(
+          (b) =>
+            `${b.label} (PCI ${b.min}–${b.max}): ${fmtInt(first.laneMilesByBand[b.id])} → ${fmtInt(last.laneMilesByBand[b.id])} lane-mi`,
+        ).join(' · ')}
+      </p>
       <h2 className="mt-5 text-lg font-bold">Backlog</h2>
-      <StackedBars x={x} label="Backlog by year" format={(v) => fmtMoney(v)} stacks={[{ label: 'backlog', color: '#b45309', values: r.years.map((y) => y.backlog) }]} height={120} />
+      <StackedBars
+        x={x}
+        label="Backlog by year"
+        format={(v) => fmtMoney(v)}
+        stacks={[{ label: 'backlog', color: '#b45309', values: r.years.map((y) => y.backlog) }]}
+        height={120}
+      />
       <h2 className="mt-5 text-lg font-bold print:break-before-page">Map of the first two years’ work</h2>
       <WorkMap agencyId={agencyId} years={years} />
-      <p className="text-xs">Teal: {first.calendarYear} work. Sand: {first.calendarYear + 1} work. Grey: other roads.</p>
+      <p className="text-xs">
+        Teal: {first.calendarYear} work. Sand: {first.calendarYear + 1} work. Grey: other roads.
+      </p>
       <h2 className="mt-5 text-lg font-bold">Work list, first two years</h2>
       <table className="num w-full text-xs">
-        <thead className="text-left uppercase text-asphalt-muted"><tr><th>Year</th><th>Segment</th><th>Road</th><th>Treatment</th><th className="text-right">Tons</th><th className="text-right">SY</th><th className="text-right">Cost</th></tr></thead>
+        <thead className="text-left uppercase text-asphalt-muted">
+          <tr>
+            <th>Year</th>
+            <th>Segment</th>
+            <th>Road</th>
+            <th>Treatment</th>
+            <th className="text-right">Tons</th>
+            <th className="text-right">SY</th>
+            <th className="text-right">Cost</th>
+          </tr>
+        </thead>
         <tbody>
           {work12.map((w) => (
-            <tr key={`${w.ref}-${w.year}`} className="border-t border-asphalt-line/60"><td>{w.calendarYear}</td><td>{w.segmentId}</td><td>{w.roadName}</td><td>{w.treatment}</td><td className="text-right">{w.tons ? fmtInt(w.tons) : '—'}</td><td className="text-right">{fmtInt(w.areaSy)}</td><td className="text-right">{fmtMoney(w.cost)}</td></tr>
+            <tr key={`${w.ref}-${w.year}`} className="border-t border-asphalt-line/60">
+              <td>{w.calendarYear}</td>
+              <td>{w.segmentId}</td>
+              <td>{w.roadName}</td>
+              <td>{w.treatment}</td>
+              <td className="text-right">{w.tons ? fmtInt(w.tons) : '—'}</td>
+              <td className="text-right">{fmtInt(w.areaSy)}</td>
+              <td className="text-right">{fmtMoney(w.cost)}</td>
+            </tr>
           ))}
         </tbody>
       </table>

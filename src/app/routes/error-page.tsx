@@ -10,8 +10,8 @@ export function ErrorPage() {
       <div className="max-w-md" role="alert">
         <h1 className="text-2xl font-bold">Something went wrong</h1>
         <p className="mt-2 text-sm text-asphalt-muted">
-          This screen hit an error. Your data is safe; reload the page, and if it keeps happening tell your administrator what you
-          were doing.
+          This screen hit an error. Your data is safe; reload the page, and if it keeps happening tell your
+          administrator what you were doing.
         </p>
         <Link to="/" className="mt-4 inline-block text-sm font-semibold text-accent hover:underline">
           Back to your network

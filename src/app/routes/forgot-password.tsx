@@ -23,7 +23,11 @@ export function ForgotPasswordPage() {
           <Field label="E-mail" hint="We send a single-use link that expires after one hour.">
             <TextInput type="email" required value={email} onChange={(e) => setEmail(e.target.value)} />
           </Field>
-          {reset.error && <p role="alert" className="text-sm text-band-failed">{reset.error.message}</p>}
+          {reset.error && (
+            <p role="alert" className="text-sm text-band-failed">
+              {reset.error.message}
+            </p>
+          )}
           <Button type="submit" className="w-full" disabled={reset.isPending}>
             Send reset link
           </Button>

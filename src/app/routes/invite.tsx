@@ -16,8 +16,12 @@ export function InvitePage() {
   if (info.error || !info.data)
     return (
       <AuthFrame title="Invitation">
-        <p className="text-sm" role="alert">{info.error?.message ?? 'This invitation cannot be opened.'}</p>
-        <Link to="/sign-in" className="mt-4 block text-sm text-accent hover:underline">Go to sign in</Link>
+        <p className="text-sm" role="alert">
+          {info.error?.message ?? 'This invitation cannot be opened.'}
+        </p>
+        <Link to="/sign-in" className="mt-4 block text-sm text-accent hover:underline">
+          Go to sign in
+        </Link>
       </AuthFrame>
     );
   const inv = info.data;
@@ -33,7 +37,8 @@ export function InvitePage() {
   return (
     <AuthFrame title={`Join ${inv.agencyName}`}>
       <p className="mb-4 text-sm text-asphalt-muted">
-        Invitation for <strong className="text-asphalt">{inv.email}</strong> as <strong className="text-asphalt">{inv.role}</strong>.
+        Invitation for <strong className="text-asphalt">{inv.email}</strong> as{' '}
+        <strong className="text-asphalt">{inv.role}</strong>.
       </p>
       <form onSubmit={submit} className="space-y-4">
         {!inv.hasAccount && (
@@ -43,11 +48,23 @@ export function InvitePage() {
         )}
         <Field
           label={inv.hasAccount ? 'Your existing password' : 'Choose a password'}
-          hint={inv.hasAccount ? 'You already have a Wearcourse account; confirm it to join.' : 'At least 10 characters.'}
+          hint={
+            inv.hasAccount ? 'You already have a Wearcourse account; confirm it to join.' : 'At least 10 characters.'
+          }
         >
-          <TextInput type="password" required minLength={inv.hasAccount ? 1 : 10} value={password} onChange={(e) => setPassword(e.target.value)} />
+          <TextInput
+            type="password"
+            required
+            minLength={inv.hasAccount ? 1 : 10}
+            value={password}
+            onChange={(e) => setPassword(e.target.value)}
+          />
         </Field>
-        {accept.error && <p role="alert" className="text-sm text-band-failed">{accept.error.message}</p>}
+        {accept.error && (
+          <p role="alert" className="text-sm text-band-failed">
+            {accept.error.message}
+          </p>
+        )}
         <Button type="submit" className="w-full" disabled={accept.isPending}>
           Accept and join
         </Button>

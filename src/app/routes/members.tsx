@@ -44,22 +44,40 @@ export function MembersPage() {
       <PageHeader title="Members" caption="People with access to this agency, and their roles." />
       <Card title="Invite someone">
         <form onSubmit={submit} className="flex flex-wrap items-end gap-3">
-          <div className="w-72"><Field label="E-mail"><TextInput type="email" required value={email} onChange={(e) => setEmail(e.target.value)} /></Field></div>
+          <div className="w-72">
+            <Field label="E-mail">
+              <TextInput type="email" required value={email} onChange={(e) => setEmail(e.target.value)} />
+            </Field>
+          </div>
           <div className="w-40">
             <Field label="Role">
               <Select aria-label="Role" value={role} onChange={(e) => setRole(e.target.value as Role)}>
-                {ROLES.map((r) => <option key={r} value={r}>{r}</option>)}
+                {ROLES.map((r) => (
+                  <option key={r} value={r}>
+                    {r}
+                  </option>
+                ))}
               </Select>
             </Field>
           </div>
-          <Button type="submit" disabled={invite.isPending}>Send invitation</Button>
-          <p className="w-full text-xs text-asphalt-muted">A {role} can see and do: {ROLE_HELP[role]}. The link is valid for seven days.</p>
+          <Button type="submit" disabled={invite.isPending}>
+            Send invitation
+          </Button>
+          <p className="w-full text-xs text-asphalt-muted">
+            A {role} can see and do: {ROLE_HELP[role]}. The link is valid for seven days.
+          </p>
         </form>
       </Card>
       <Card title="Members">
         <table className="w-full text-sm">
           <thead className="text-left text-xs uppercase tracking-wide text-asphalt-muted">
-            <tr><th className="py-1">Name</th><th>E-mail</th><th>Role</th><th>Since</th><th /></tr>
+            <tr>
+              <th className="py-1">Name</th>
+              <th>E-mail</th>
+              <th>Role</th>
+              <th>Since</th>
+              <th />
+            </tr>
           </thead>
           <tbody>
             {members.data?.members.map((m) => (
@@ -67,15 +85,36 @@ export function MembersPage() {
                 <td className="py-1.5">{m.name}</td>
                 <td>{m.email}</td>
                 <td>
-                  <Select aria-label={`Role of ${m.email}`} className="w-32" value={m.role} disabled={m.userId === me?.user.id}
-                    onChange={(e) => changeRole.mutate({ userId: m.userId, role: e.target.value as Role }, { onError, onSuccess: () => toast.success('Role changed') })}>
-                    {ROLES.map((r) => <option key={r} value={r}>{r}</option>)}
+                  <Select
+                    aria-label={`Role of ${m.email}`}
+                    className="w-32"
+                    value={m.role}
+                    disabled={m.userId === me?.user.id}
+                    onChange={(e) =>
+                      changeRole.mutate(
+                        { userId: m.userId, role: e.target.value as Role },
+                        { onError, onSuccess: () => toast.success('Role changed') },
+                      )
+                    }
+                  >
+                    {ROLES.map((r) => (
+                      <option key={r} value={r}>
+                        {r}
+                      </option>
+                    ))}
                   </Select>
                 </td>
                 <td className="num">{fmtDate(m.since)}</td>
                 <td className="text-right">
                   {m.userId !== me?.user.id && (
-                    <Button variant="ghost" onClick={() => { if (confirm(`Remove ${m.email} from this agency?`)) remove.mutate(m.userId, { onError }); }}>Remove</Button>
+                    <Button
+                      variant="ghost"
+                      onClick={() => {
+                        if (confirm(`Remove ${m.email} from this agency?`)) remove.mutate(m.userId, { onError });
+                      }}
+                    >
+                      Remove
+                    </Button>
                   )}
                 </td>
               </tr>
@@ -88,8 +127,12 @@ export function MembersPage() {
           <ul className="divide-y divide-asphalt-line/60 text-sm">
             {members.data.invitations.map((i) => (
               <li key={i.id} className="flex items-center justify-between py-1.5">
-                <span>{i.email} · {i.role} · expires {fmtDate(i.expiresAt)}</span>
-                <Button variant="ghost" onClick={() => revoke.mutate(i.id, { onError })}>Withdraw</Button>
+                <span>
+                  {i.email} · {i.role} · expires {fmtDate(i.expiresAt)}
+                </span>
+                <Button variant="ghost" onClick={() => revoke.mutate(i.id, { onError })}>
+                  Withdraw
+                </Button>
               </li>
             ))}
           </ul>

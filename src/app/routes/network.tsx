@@ -12,16 +12,22 @@ import { useAgency } from '../use-agency';
 
 function LatestPlan({ agencyId }: { agencyId: string }) {
   const plans = usePlans(agencyId);
-  const published = plans.data?.items.filter((p) => p.status === 'published').sort((a, b) => (b.publishedAt ?? '').localeCompare(a.publishedAt ?? ''))[0];
+  const published = plans.data?.items
+    .filter((p) => p.status === 'published')
+    .sort((a, b) => (b.publishedAt ?? '').localeCompare(a.publishedAt ?? ''))[0];
   const result = useQuery({ ...planResultQueryOptions(agencyId, published?.id ?? ''), enabled: !!published });
   const r = result.data?.latest?.result;
   if (!published) return <p className="text-sm text-asphalt-muted">No plan is published yet.</p>;
   return (
     <div className="text-sm" data-testid="latest-plan">
-      <Link to={`../plans/${published.id}`} className="font-semibold text-accent hover:underline">{published.name}</Link>
+      <Link to={`../plans/${published.id}`} className="font-semibold text-accent hover:underline">
+        {published.name}
+      </Link>
       {r && (
         <p className="mt-1">
-          {r.years[0].calendarYear}–{r.years[r.years.length - 1].calendarYear}: {fmtMoney(r.summary.totalSpent)} on {r.summary.segmentsTreated} segments; network PCI {r.summary.startPci.toFixed(0)} → {r.summary.finalPci.toFixed(0)} (no work: {r.summary.finalPciDoNothing.toFixed(0)}).
+          {r.years[0].calendarYear}–{r.years[r.years.length - 1].calendarYear}: {fmtMoney(r.summary.totalSpent)} on{' '}
+          {r.summary.segmentsTreated} segments; network PCI {r.summary.startPci.toFixed(0)} →{' '}
+          {r.summary.finalPci.toFixed(0)} (no work: {r.summary.finalPciDoNothing.toFixed(0)}).
         </p>
       )}
     </div>
@@ -29,13 +35,21 @@ function LatestPlan({ agencyId }: { agencyId: string }) {
 }
 
 function RecentActivity({ agencyId }: { agencyId: string }) {
-  const q = useQuery({ queryKey: ['audit', agencyId, 'recent'], queryFn: () => api<{ items: { id: number; at: string; action: string; entityId: string | null; userName: string | null }[] }>(`/api/agencies/${agencyId}/audit?limit=6`) });
+  const q = useQuery({
+    queryKey: ['audit', agencyId, 'recent'],
+    queryFn: () =>
+      api<{ items: { id: number; at: string; action: string; entityId: string | null; userName: string | null }[] }>(
+        `/api/agencies/${agencyId}/audit?limit=6`,
+      ),
+  });
   if (!q.data?.items.length) return <p className="text-sm text-asphalt-muted">Nothing yet.</p>;
   return (
     <ul className="space-y-1 text-sm">
       {q.data.items.map((a) => (
         <li key={a.id} className="flex justify-between gap-2">
-          <span>{a.userName ?? 'someone'}: {a.action.replace(/\./g, ' ')}</span>
+          <span>
+            {a.userName ?? 'someone'}: {a.action.replace(/\./g, ' ')}
+          </span>
           <span className="num text-xs text-asphalt-muted">{a.at.slice(0, 10)}</span>
         </li>
       ))}
@@ -59,25 +73,45 @@ export function NetworkPage() {
       <PageHeader title={`${n.agencyName} network`} caption={caption} />
       {n.segments === 0 ? (
         <EmptyState>
-          No segments yet — import a spreadsheet or GIS file under <Link to="../imports" className="text-accent underline">Imports</Link>.
+          No segments yet — import a spreadsheet or GIS file under{' '}
+          <Link to="../imports" className="text-accent underline">
+            Imports
+          </Link>
+          .
         </EmptyState>
       ) : (
         <div className="space-y-5">
           <div className="grid grid-cols-2 gap-4 md:grid-cols-4">
-            <Card><Stat label="Segments" value={fmtInt(n.segments)} /></Card>
-            <Card><Stat label="Centreline" value={fmt1(n.centrelineMiles)} unit="mi" /></Card>
-            <Card><Stat label="Lanes" value={fmt1(n.laneMiles)} unit="lane-mi" /></Card>
-            <Card><Stat label="Network PCI (length-weighted)" value={fmt1(n.weightedPci)} /></Card>
+            <Card>
+              <Stat label="Segments" value={fmtInt(n.segments)} />
+            </Card>
+            <Card>
+              <Stat label="Centreline" value={fmt1(n.centrelineMiles)} unit="mi" />
+            </Card>
+            <Card>
+              <Stat label="Lanes" value={fmt1(n.laneMiles)} unit="lane-mi" />
+            </Card>
+            <Card>
+              <Stat label="Network PCI (length-weighted)" value={fmt1(n.weightedPci)} />
+            </Card>
           </div>
           <Card title="Lane-miles by condition band">
             <ConditionBar byBand={n.laneMilesByBand} />
-            <p className="mt-3 text-xs text-asphalt-muted">Bands group the ASTM D6433 PCI rating scale into five for council use. Unpaved roads carry no PCI.</p>
+            <p className="mt-3 text-xs text-asphalt-muted">
+              Bands group the ASTM D6433 PCI rating scale into five for council use. Unpaved roads carry no PCI.
+            </p>
           </Card>
           <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
             <LazyNetworkMap agencyId={agencyId} features={geo.data} height={340} />
             <div className="space-y-4">
-              <Card title="Latest published plan"><LatestPlan agencyId={agencyId} /></Card>
-              {membership?.role === 'admin' && <Card title="Recent activity"><RecentActivity agencyId={agencyId} /></Card>}
+              <Card title="Latest published plan">
+                <LatestPlan agencyId={agencyId} />
+              </Card>
+              {membership?.role === 'admin' && (
+                <Card title="Recent activity">
+                  <RecentActivity agencyId={agencyId} />
+                </Card>
+              )}
             </div>
           </div>
         </div>

@@ -25,9 +25,20 @@ export function ResetPasswordPage() {
       ) : (
         <form onSubmit={submit} className="space-y-4">
           <Field label="New password" hint="At least 10 characters; a short sentence works well.">
-            <TextInput type="password" autoComplete="new-password" required minLength={10} value={password} onChange={(e) => setPassword(e.target.value)} />
+            <TextInput
+              type="password"
+              autoComplete="new-password"
+              required
+              minLength={10}
+              value={password}
+              onChange={(e) => setPassword(e.target.value)}
+            />
           </Field>
-          {reset.error && <p role="alert" className="text-sm text-band-failed">{reset.error.message}</p>}
+          {reset.error && (
+            <p role="alert" className="text-sm text-band-failed">
+              {reset.error.message}
+            </p>
+          )}
           <Button type="submit" className="w-full" disabled={reset.isPending}>
             Set password
           </Button>

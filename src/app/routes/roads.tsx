@@ -18,7 +18,14 @@ export function RoadsPage() {
   const { agencyId, membership } = useAgency();
   const navigate = useNavigate();
   const [params, setParams] = useSearchParams();
-  const filters = useMemo(() => Object.fromEntries(FILTER_KEYS.map((k) => [k, params.get(k) ?? undefined])) as Record<(typeof FILTER_KEYS)[number], string | undefined>, [params]);
+  const filters = useMemo(
+    () =>
+      Object.fromEntries(FILTER_KEYS.map((k) => [k, params.get(k) ?? undefined])) as Record<
+        (typeof FILTER_KEYS)[number],
+        string | undefined
+      >,
+    [params],
+  );
   const [sort, setSort] = useState({ id: 'segmentId', desc: false });
   const [selected, setSelected] = useState<Set<number>>(new Set());
   const summary = useSegments(agencyId, { ...filters, limit: 1 });
@@ -55,33 +62,95 @@ export function RoadsPage() {
         }
         actions={
           <>
-            <a className="rounded border border-asphalt-line bg-white px-3 py-1.5 text-sm font-semibold hover:border-asphalt-muted" href={exportHref('csv')}>Export CSV</a>
-            <a className="rounded border border-asphalt-line bg-white px-3 py-1.5 text-sm font-semibold hover:border-asphalt-muted" href={exportHref('xlsx')}>Export XLSX</a>
+            <a
+              className="rounded border border-asphalt-line bg-white px-3 py-1.5 text-sm font-semibold hover:border-asphalt-muted"
+              href={exportHref('csv')}
+            >
+              Export CSV
+            </a>
+            <a
+              className="rounded border border-asphalt-line bg-white px-3 py-1.5 text-sm font-semibold hover:border-asphalt-muted"
+              href={exportHref('xlsx')}
+            >
+              Export XLSX
+            </a>
           </>
         }
       />
       <div className="mb-3 flex flex-wrap items-center gap-2" data-testid="filter-bar">
-        <TextInput aria-label="Road name or segment id" placeholder="Road name or segment id" className="max-w-[14rem]" value={filters.q ?? ''} onChange={(e) => setFilter('q', e.target.value)} />
-        <Select aria-label="Functional class" className="max-w-[11rem]" value={filters.class ?? ''} onChange={(e) => setFilter('class', e.target.value)}>
+        <TextInput
+          aria-label="Road name or segment id"
+          placeholder="Road name or segment id"
+          className="max-w-[14rem]"
+          value={filters.q ?? ''}
+          onChange={(e) => setFilter('q', e.target.value)}
+        />
+        <Select
+          aria-label="Functional class"
+          className="max-w-[11rem]"
+          value={filters.class ?? ''}
+          onChange={(e) => setFilter('class', e.target.value)}
+        >
           <option value="">All classes</option>
-          {FUNCTIONAL_CLASSES.map((c) => <option key={c} value={c}>{CLASS_LABELS[c]}</option>)}
+          {FUNCTIONAL_CLASSES.map((c) => (
+            <option key={c} value={c}>
+              {CLASS_LABELS[c]}
+            </option>
+          ))}
         </Select>
-        <Select aria-label="Surface" className="max-w-[9rem]" value={filters.surface ?? ''} onChange={(e) => setFilter('surface', e.target.value)}>
+        <Select
+          aria-label="Surface"
+          className="max-w-[9rem]"
+          value={filters.surface ?? ''}
+          onChange={(e) => setFilter('surface', e.target.value)}
+        >
           <option value="">All surfaces</option>
-          {SURFACES.map((c) => <option key={c} value={c}>{SURFACE_LABELS[c]}</option>)}
+          {SURFACES.map((c) => (
+            <option key={c} value={c}>
+              {SURFACE_LABELS[c]}
+            </option>
+          ))}
         </Select>
-        <Select aria-label="Condition band" className="max-w-[11rem]" value={filters.band ?? ''} onChange={(e) => setFilter('band', e.target.value)}>
+        <Select
+          aria-label="Condition band"
+          className="max-w-[11rem]"
+          value={filters.band ?? ''}
+          onChange={(e) => setFilter('band', e.target.value)}
+        >
           <option value="">All conditions</option>
-          {CONDITION_BANDS.map((b) => <option key={b.id} value={b.id}>{b.label} (PCI {b.min}–{b.max})</option>)}
+          {CONDITION_BANDS.map((b) => (
+            <option key={b.id} value={b.id}>
+              {b.label} (PCI {b.min}–{b.max})
+            </option>
+          ))}
           <option value="none">No PCI</option>
         </Select>
-        <TextInput aria-label="District" placeholder="District" className="max-w-[9rem]" value={filters.district ?? ''} onChange={(e) => setFilter('district', e.target.value)} />
-        {FILTER_KEYS.some((k) => filters[k]) && <Button variant="ghost" onClick={() => setParams(new URLSearchParams(), { replace: true })}>Clear filters</Button>}
+        <TextInput
+          aria-label="District"
+          placeholder="District"
+          className="max-w-[9rem]"
+          value={filters.district ?? ''}
+          onChange={(e) => setFilter('district', e.target.value)}
+        />
+        {FILTER_KEYS.some((k) => filters[k]) && (
+          <Button variant="ghost" onClick={() => setParams(new URLSearchParams(), { replace: true })}>
+            Clear filters
+          </Button>
+        )}
         <div className="ml-auto flex items-center gap-2 text-sm">
-          <span className="num text-asphalt-muted" data-testid="selection-count">{selected.size} selected</span>
-          {selected.size > 0 && <Button variant="ghost" onClick={() => setSelected(new Set())}>Clear</Button>}
+          <span className="num text-asphalt-muted" data-testid="selection-count">
+            {selected.size} selected
+          </span>
+          {selected.size > 0 && (
+            <Button variant="ghost" onClick={() => setSelected(new Set())}>
+              Clear
+            </Button>
+          )}
           {canEdit && (
-            <Button disabled={selected.size === 0} onClick={() => navigate(`../compare?segments=${[...selected].join(',')}`)}>
+            <Button
+              disabled={selected.size === 0}
+              onClick={() => navigate(`../compare?segments=${[...selected].join(',')}`)}
+            >
               Compare alternatives for selection
             </Button>
           )}
@@ -91,7 +160,16 @@ export function RoadsPage() {
         <EmptyState>No segments yet — import a spreadsheet or GIS file under Imports.</EmptyState>
       ) : (
         <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-          <SegmentTable agencyId={agencyId} filters={filters} sort={sort} onSort={setSort} canEdit={canEdit} selected={selected} onToggle={toggle} onOpen={(id) => navigate(`${id}`)} />
+          <SegmentTable
+            agencyId={agencyId}
+            filters={filters}
+            sort={sort}
+            onSort={setSort}
+            canEdit={canEdit}
+            selected={selected}
+            onToggle={toggle}
+            onOpen={(id) => navigate(`${id}`)}
+          />
           <LazyNetworkMap
             agencyId={agencyId}
             features={geo.data}
@@ -101,7 +179,12 @@ export function RoadsPage() {
           />
         </div>
       )}
-      {canEdit && <p className="mt-2 text-xs text-asphalt-muted">Double-click a cell to edit it. Click a road on the map for its details; shift-click or draw a box to select several.</p>}
+      {canEdit && (
+        <p className="mt-2 text-xs text-asphalt-muted">
+          Double-click a cell to edit it. Click a road on the map for its details; shift-click or draw a box to select
+          several.
+        </p>
+      )}
     </div>
   );
 }

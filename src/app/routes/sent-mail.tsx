@@ -10,9 +10,16 @@ export function SentMailPage() {
   const [open, setOpen] = useState<number | null>(null);
   return (
     <div>
-      <PageHeader title="Sent mail" caption="While no SMTP server is configured, Wearcourse keeps its outgoing mail here instead of sending it." />
-      {mail.data && !mail.data.enabled && <EmptyState>Mail goes through the configured SMTP server; nothing is kept here.</EmptyState>}
-      {mail.data?.enabled && mail.data.items.length === 0 && <EmptyState>No mail yet. Invitations and plan notices will appear here.</EmptyState>}
+      <PageHeader
+        title="Sent mail"
+        caption="While no SMTP server is configured, Wearcourse keeps its outgoing mail here instead of sending it."
+      />
+      {mail.data && !mail.data.enabled && (
+        <EmptyState>Mail goes through the configured SMTP server; nothing is kept here.</EmptyState>
+      )}
+      {mail.data?.enabled && mail.data.items.length === 0 && (
+        <EmptyState>No mail yet. Invitations and plan notices will appear here.</EmptyState>
+      )}
       <div className="space-y-2">
         {mail.data?.items.map((m) => (
           <Card key={m.id}>
@@ -23,7 +30,11 @@ export function SentMailPage() {
               </div>
               <div className="text-xs text-asphalt-muted">to {m.toAddress}</div>
             </button>
-            {open === m.id && <pre className="mt-3 whitespace-pre-wrap font-sans text-sm" data-testid="mail-body">{linkify(m.textBody)}</pre>}
+            {open === m.id && (
+              <pre className="mt-3 whitespace-pre-wrap font-sans text-sm" data-testid="mail-body">
+                {linkify(m.textBody)}
+              </pre>
+            )}
           </Card>
         ))}
       </div>
@@ -34,7 +45,9 @@ export function SentMailPage() {
 function linkify(text: string) {
   return text.split(/(https?:\/\/\S+)/g).map((part, i) =>
     /^https?:\/\//.test(part) ? (
-      <a key={i} href={part} className="text-accent underline">{part}</a>
+      <a key={i} href={part} className="text-accent underline">
+        {part}
+      </a>
     ) : (
       part
     ),

@@ -30,10 +30,22 @@ export function SignInPage() {
     <AuthFrame title="Sign in">
       <form onSubmit={submit} className="space-y-4">
         <Field label="E-mail">
-          <TextInput type="email" autoComplete="username" required value={email} onChange={(e) => setEmail(e.target.value)} />
+          <TextInput
+            type="email"
+            autoComplete="username"
+            required
+            value={email}
+            onChange={(e) => setEmail(e.target.value)}
+          />
         </Field>
         <Field label="Password">
-          <TextInput type="password" autoComplete="current-password" required value={password} onChange={(e) => setPassword(e.target.value)} />
+          <TextInput
+            type="password"
+            autoComplete="current-password"
+            required
+            value={password}
+            onChange={(e) => setPassword(e.target.value)}
+          />
         </Field>
         {signIn.error && (
           <p role="alert" className="text-sm text-band-failed">

@@ -9,7 +9,11 @@ const styles: Record<Variant, string> = {
   danger: 'bg-white text-band-failed border border-band-failed/40 hover:bg-band-failed/5 disabled:opacity-50',
 };
 
-export function Button({ variant = 'primary', className = '', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
+export function Button({
+  variant = 'primary',
+  className = '',
+  ...props
+}: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
   return (
     <button
       type="button"

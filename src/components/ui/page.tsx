@@ -34,7 +34,11 @@ export function Stat({ label, value, unit }: { label: string; value: string; uni
 }
 
 export function EmptyState({ children }: { children: ReactNode }) {
-  return <div className="rounded border border-dashed border-asphalt-line bg-white/60 p-6 text-sm text-asphalt-muted">{children}</div>;
+  return (
+    <div className="rounded border border-dashed border-asphalt-line bg-white/60 p-6 text-sm text-asphalt-muted">
+      {children}
+    </div>
+  );
 }
 
 export function Caution({ children }: { children: ReactNode }) {

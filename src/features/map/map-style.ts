@@ -11,7 +11,13 @@ export const pciColor = [
   'case',
   ['<', ['get', 'p'], 0],
   NO_DATA_COLOR,
-  ['step', ['get', 'p'], ...CONDITION_BANDS.slice().reverse().flatMap((b, i) => (i === 0 ? [b.color] : [b.min, b.color]))],
+  [
+    'step',
+    ['get', 'p'],
+    ...CONDITION_BANDS.slice()
+      .reverse()
+      .flatMap((b, i) => (i === 0 ? [b.color] : [b.min, b.color])),
+  ],
 ] as unknown as string;
 
 /** Line width by functional class, growing with zoom. */
@@ -42,7 +48,12 @@ export function networkStyle(): StyleSpecification {
       { id: 'background', type: 'background', paint: { 'background-color': '#f1eee6' } },
       { id: 'states-line', type: 'line', source: 'states', paint: { 'line-color': '#b9b2a2', 'line-width': 1 } },
       { id: 'extent-fill', type: 'fill', source: 'extent', paint: { 'fill-color': '#ffffff', 'fill-opacity': 0.6 } },
-      { id: 'extent-line', type: 'line', source: 'extent', paint: { 'line-color': '#8c8574', 'line-width': 1.2, 'line-dasharray': [3, 2] } },
+      {
+        id: 'extent-line',
+        type: 'line',
+        source: 'extent',
+        paint: { 'line-color': '#8c8574', 'line-width': 1.2, 'line-dasharray': [3, 2] },
+      },
       {
         id: 'segments-casing',
         type: 'line',

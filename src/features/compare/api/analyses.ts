@@ -6,23 +6,34 @@ import { api } from '@/lib/api-client';
 import type { StudyRun } from './study-runs';
 
 export const analysesQueryOptions = (agencyId: string) =>
-  queryOptions({ queryKey: ['analyses', agencyId, 'list'], queryFn: () => api<z.infer<typeof AnalysisListSchema>>(`/api/agencies/${agencyId}/analyses`) });
+  queryOptions({
+    queryKey: ['analyses', agencyId, 'list'],
+    queryFn: () => api<z.infer<typeof AnalysisListSchema>>(`/api/agencies/${agencyId}/analyses`),
+  });
 
 export const useAnalyses = (agencyId: string) => useQuery(analysesQueryOptions(agencyId));
 
 export type SavedAnalysis = { id: string; name: string; input: StudyInput; result: StudyResult | null };
 
 export const analysisQueryOptions = (agencyId: string, id: string | null) =>
-  queryOptions({ queryKey: ['analyses', agencyId, 'detail', id], queryFn: () => api<SavedAnalysis>(`/api/agencies/${agencyId}/analyses/${id}`), enabled: !!id });
+  queryOptions({
+    queryKey: ['analyses', agencyId, 'detail', id],
+    queryFn: () => api<SavedAnalysis>(`/api/agencies/${agencyId}/analyses/${id}`),
+    enabled: !!id,
+  });
 
 export const useAnalysis = (agencyId: string, id: string | null) => useQuery(analysisQueryOptions(agencyId, id));
 
 export function useSaveAnalysis(agencyId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (v: { name: string; runId: string }) => api<{ id: string }>(`/api/agencies/${agencyId}/analyses`, { method: 'POST', json: v }),
+    mutationFn: (v: { name: string; runId: string }) =>
+      api<{ id: string }>(`/api/agencies/${agencyId}/analyses`, { method: 'POST', json: v }),
     onSuccess: () => qc.invalidateQueries({ queryKey: analysesQueryOptions(agencyId).queryKey }),
   });
 }
 
-export const useRerunAnalysis = (agencyId: string) => useMutation({ mutationFn: (id: string) => api<StudyRun>(`/api/agencies/${agencyId}/analyses/${id}/rerun`, { method: 'POST' }) });
+export const useRerunAnalysis = (agencyId: string) =>
+  useMutation({
+    mutationFn: (id: string) => api<StudyRun>(`/api/agencies/${agencyId}/analyses/${id}/rerun`, { method: 'POST' }),
+  });

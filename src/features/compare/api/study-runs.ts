@@ -5,7 +5,8 @@ import { api } from '@/lib/api-client';
 
 export type StudyRun = Omit<RunStateView, 'result'> & { result?: StudyResult };
 
-export const startStudy = (agencyId: string, req: StudyRequest) => api<StudyRun>(`/api/agencies/${agencyId}/analyses/runs`, { method: 'POST', json: req });
+export const startStudy = (agencyId: string, req: StudyRequest) =>
+  api<StudyRun>(`/api/agencies/${agencyId}/analyses/runs`, { method: 'POST', json: req });
 
 export const studyRunQueryOptions = (agencyId: string, runId: string | null) =>
   queryOptions({
@@ -18,12 +19,14 @@ export const studyRunQueryOptions = (agencyId: string, runId: string | null) =>
 
 export const useStudyRun = (agencyId: string, runId: string | null) => useQuery(studyRunQueryOptions(agencyId, runId));
 
-export const useStartStudy = (agencyId: string) => useMutation({ mutationFn: (req: StudyRequest) => startStudy(agencyId, req) });
+export const useStartStudy = (agencyId: string) =>
+  useMutation({ mutationFn: (req: StudyRequest) => startStudy(agencyId, req) });
 
 export function useCancelStudy(agencyId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (runId: string) => api<StudyRun>(`/api/agencies/${agencyId}/analyses/runs/${runId}`, { method: 'DELETE' }),
+    mutationFn: (runId: string) =>
+      api<StudyRun>(`/api/agencies/${agencyId}/analyses/runs/${runId}`, { method: 'DELETE' }),
     onSuccess: (r) => qc.setQueryData(studyRunQueryOptions(agencyId, r.id).queryKey, r),
   });
 }

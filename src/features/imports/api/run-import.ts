@@ -25,10 +25,19 @@ export async function runImport(agencyId: string, r: ImportRequest): Promise<{ s
   if (r.lengthUnit) form.set('lengthUnit', r.lengthUnit);
   if (r.widthUnit) form.set('widthUnit', r.widthUnit);
   form.set('file', r.file);
-  const res = await fetch(`/api/agencies/${agencyId}/imports`, { method: 'POST', body: form, credentials: 'same-origin' });
+  const res = await fetch(`/api/agencies/${agencyId}/imports`, {
+    method: 'POST',
+    body: form,
+    credentials: 'same-origin',
+  });
   const body = await res.json().catch(() => ({}));
   if (res.status === 200 || res.status === 422) return { status: res.status, report: body as ImportReport };
-  throw new ApiError(res.status, body?.error?.code ?? 'http_error', body?.error?.message ?? `Upload failed (${res.status})`, body?.error?.issues);
+  throw new ApiError(
+    res.status,
+    body?.error?.code ?? 'http_error',
+    body?.error?.message ?? `Upload failed (${res.status})`,
+    body?.error?.issues,
+  );
 }
 
 export function useRunImport(agencyId: string) {

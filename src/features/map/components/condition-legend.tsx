@@ -3,12 +3,17 @@ import { CONDITION_BANDS, NO_DATA_COLOR } from '@shared/condition';
 /** Map legend: every colour carries its PCI range in numbers. */
 export function ConditionLegend() {
   return (
-    <div className="absolute bottom-2 left-2 rounded border border-asphalt-line bg-white/95 px-2 py-1.5 text-[11px] shadow-sm" data-testid="map-legend">
+    <div
+      className="absolute bottom-2 left-2 rounded border border-asphalt-line bg-white/95 px-2 py-1.5 text-[11px] shadow-sm"
+      data-testid="map-legend"
+    >
       <div className="mb-0.5 font-bold">PCI</div>
       {CONDITION_BANDS.map((b) => (
         <div key={b.id} className="flex items-center gap-1.5">
           <span className="inline-block h-1.5 w-4 rounded" style={{ background: b.color }} />
-          <span className="num w-12">{b.min}–{b.max}</span>
+          <span className="num w-12">
+            {b.min}–{b.max}
+          </span>
           <span className="text-asphalt-muted">{b.label}</span>
         </div>
       ))}

@@ -5,7 +5,16 @@ const NetworkMap = lazy(() => import('./network-map').then((m) => ({ default: m.
 
 export function LazyNetworkMap(props: ComponentProps<typeof NetworkMap>) {
   return (
-    <Suspense fallback={<div className="flex items-center justify-center rounded border border-asphalt-line bg-white text-sm text-asphalt-muted" style={{ height: props.height ?? 520 }}>Loading the map…</div>}>
+    <Suspense
+      fallback={
+        <div
+          className="flex items-center justify-center rounded border border-asphalt-line bg-white text-sm text-asphalt-muted"
+          style={{ height: props.height ?? 520 }}
+        >
+          Loading the map…
+        </div>
+      }
+    >
       <NetworkMap {...props} />
     </Suspense>
   );

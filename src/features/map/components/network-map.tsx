@@ -27,11 +27,32 @@ type Props = {
   yearLabels?: string[];
 };
 
-export const YEAR_COLORS = ['#0b3954', '#1d5c86', '#3f7fb0', '#6aa1cf', '#9cc3e6', '#5b4a8a', '#7d6bb0', '#a08fd0', '#c4b6ea', '#8a5a8f'];
+export const YEAR_COLORS = [
+  '#0b3954',
+  '#1d5c86',
+  '#3f7fb0',
+  '#6aa1cf',
+  '#9cc3e6',
+  '#5b4a8a',
+  '#7d6bb0',
+  '#a08fd0',
+  '#c4b6ea',
+  '#8a5a8f',
+];
 
 type PopupInfo = { lng: number; lat: number; id: number; s: string; r: string; p: number; c: string };
 
-export function NetworkMap({ agencyId, features, selected, onSelect, highlight, height = 520, compact = false, plannedYear, yearLabels }: Props) {
+export function NetworkMap({
+  agencyId,
+  features,
+  selected,
+  onSelect,
+  highlight,
+  height = 520,
+  compact = false,
+  plannedYear,
+  yearLabels,
+}: Props) {
   const ref = useRef<MapRef>(null);
   const [loaded, setLoaded] = useState(false);
   const [popup, setPopup] = useState<PopupInfo | null>(null);
@@ -59,7 +80,9 @@ export function NetworkMap({ agencyId, features, selected, onSelect, highlight, 
   useEffect(() => {
     const map = ref.current?.getMap();
     if (!map || !loaded) return;
-    (map.getSource('highlight') as maplibregl.GeoJSONSource).setData(highlight ? { type: 'Feature', properties: {}, geometry: highlight } : EMPTY_FC);
+    (map.getSource('highlight') as maplibregl.GeoJSONSource).setData(
+      highlight ? { type: 'Feature', properties: {}, geometry: highlight } : EMPTY_FC,
+    );
     if (highlight && compact) {
       const b = turfBbox(highlight) as [number, number, number, number];
       map.fitBounds(b, { padding: 60, duration: 0, maxZoom: 15 });
@@ -72,7 +95,8 @@ export function NetworkMap({ agencyId, features, selected, onSelect, highlight, 
   useEffect(() => {
     const map = ref.current?.getMap();
     if (!map || !loaded || !features) return;
-    for (const id of shown.current) if (!selected?.has(id)) map.setFeatureState({ source: 'segments', id }, { selected: false });
+    for (const id of shown.current)
+      if (!selected?.has(id)) map.setFeatureState({ source: 'segments', id }, { selected: false });
     for (const id of selected ?? []) map.setFeatureState({ source: 'segments', id }, { selected: true });
     shown.current = new Set(selected ?? []);
   }, [selected, loaded, features]);
@@ -85,7 +109,8 @@ export function NetworkMap({ agencyId, features, selected, onSelect, highlight, 
       map.setPaintProperty('segments-line', 'line-color', pciColor as never);
       return;
     }
-    for (const f of features.features) map.setFeatureState({ source: 'segments', id: f.properties.id }, { py: plannedYear.get(f.properties.id) ?? -1 });
+    for (const f of features.features)
+      map.setFeatureState({ source: 'segments', id: f.properties.id }, { py: plannedYear.get(f.properties.id) ?? -1 });
     const match: unknown[] = ['match', ['feature-state', 'py']];
     YEAR_COLORS.forEach((c, i) => match.push(i, c));
     match.push('#d3cdbf');
@@ -119,7 +144,11 @@ export function NetworkMap({ agencyId, features, selected, onSelect, highlight, 
   };
 
   return (
-    <div className="relative overflow-hidden rounded border border-asphalt-line" style={{ height }} data-testid="network-map">
+    <div
+      className="relative overflow-hidden rounded border border-asphalt-line"
+      style={{ height }}
+      data-testid="network-map"
+    >
       <MapView
         ref={ref}
         mapLib={maplibregl}
@@ -178,7 +207,13 @@ export function NetworkMap({ agencyId, features, selected, onSelect, highlight, 
         <NavigationControl position="top-right" showCompass={false} />
         <ScaleControl position="bottom-right" unit="imperial" />
         {popup && (
-          <Popup longitude={popup.lng} latitude={popup.lat} onClose={() => setPopup(null)} closeOnClick={false} maxWidth="260px">
+          <Popup
+            longitude={popup.lng}
+            latitude={popup.lat}
+            onClose={() => setPopup(null)}
+            closeOnClick={false}
+            maxWidth="260px"
+          >
             <div className="text-xs" data-testid="map-popup">
               <div className="font-bold">{popup.r}</div>
               <div className="text-asphalt-muted">
@@ -186,9 +221,14 @@ export function NetworkMap({ agencyId, features, selected, onSelect, highlight, 
               </div>
               <div className="mt-1">
                 PCI <span className="num font-semibold">{popup.p < 0 ? '—' : popup.p}</span>
-                {popup.p >= 0 && <span className="text-asphalt-muted"> ({conditionBand(popup.p)?.label.toLowerCase()})</span>}
+                {popup.p >= 0 && (
+                  <span className="text-asphalt-muted"> ({conditionBand(popup.p)?.label.toLowerCase()})</span>
+                )}
               </div>
-              <Link to={`/a/${agencyId}/roads/${popup.id}`} className="mt-1 inline-block font-semibold text-accent hover:underline">
+              <Link
+                to={`/a/${agencyId}/roads/${popup.id}`}
+                className="mt-1 inline-block font-semibold text-accent hover:underline"
+              >
                 Open segment
               </Link>
             </div>
@@ -198,7 +238,12 @@ export function NetworkMap({ agencyId, features, selected, onSelect, highlight, 
       {box && (
         <div
           className="pointer-events-none absolute border-2 border-accent bg-accent/10"
-          style={{ left: Math.min(box.x0, box.x1), top: Math.min(box.y0, box.y1), width: Math.abs(box.x1 - box.x0), height: Math.abs(box.y1 - box.y0) }}
+          style={{
+            left: Math.min(box.x0, box.x1),
+            top: Math.min(box.y0, box.y1),
+            width: Math.abs(box.x1 - box.x0),
+            height: Math.abs(box.y1 - box.y0),
+          }}
         />
       )}
       {!compact && (
@@ -216,15 +261,24 @@ export function NetworkMap({ agencyId, features, selected, onSelect, highlight, 
       )}
       {!compact && !plannedYear && <ConditionLegend />}
       {plannedYear && (
-        <div className="absolute bottom-2 left-2 rounded border border-asphalt-line bg-white/95 px-2 py-1.5 text-[11px] shadow-sm" data-testid="year-legend">
+        <div
+          className="absolute bottom-2 left-2 rounded border border-asphalt-line bg-white/95 px-2 py-1.5 text-[11px] shadow-sm"
+          data-testid="year-legend"
+        >
           <div className="mb-0.5 font-bold">Planned work</div>
           {(yearLabels ?? []).map((label, i) => (
             <div key={label} className="flex items-center gap-1.5">
-              <span className="inline-block h-1.5 w-4 rounded" style={{ background: YEAR_COLORS[i % YEAR_COLORS.length] }} />
+              <span
+                className="inline-block h-1.5 w-4 rounded"
+                style={{ background: YEAR_COLORS[i % YEAR_COLORS.length] }}
+              />
               <span className="num">{label}</span>
             </div>
           ))}
-          <div className="flex items-center gap-1.5"><span className="inline-block h-1.5 w-4 rounded" style={{ background: '#d3cdbf' }} />no work planned</div>
+          <div className="flex items-center gap-1.5">
+            <span className="inline-block h-1.5 w-4 rounded" style={{ background: '#d3cdbf' }} />
+            no work planned
+          </div>
         </div>
       )}
     </div>

@@ -17,10 +17,14 @@ function useMembersMutation<V>(agencyId: string, fn: (v: V) => Promise<unknown>)
 }
 
 export const useInvite = (agencyId: string) =>
-  useMembersMutation(agencyId, (body: InviteBody) => api(`/api/agencies/${agencyId}/invitations`, { method: 'POST', json: body }));
+  useMembersMutation(agencyId, (body: InviteBody) =>
+    api(`/api/agencies/${agencyId}/invitations`, { method: 'POST', json: body }),
+  );
 
 export const useRevokeInvitation = (agencyId: string) =>
-  useMembersMutation(agencyId, (id: string) => api(`/api/agencies/${agencyId}/invitations/${id}`, { method: 'DELETE' }));
+  useMembersMutation(agencyId, (id: string) =>
+    api(`/api/agencies/${agencyId}/invitations/${id}`, { method: 'DELETE' }),
+  );
 
 export const useChangeRole = (agencyId: string) =>
   useMembersMutation(agencyId, (v: { userId: string; role: Role }) =>
@@ -28,4 +32,6 @@ export const useChangeRole = (agencyId: string) =>
   );
 
 export const useRemoveMember = (agencyId: string) =>
-  useMembersMutation(agencyId, (userId: string) => api(`/api/agencies/${agencyId}/members/${userId}`, { method: 'DELETE' }));
+  useMembersMutation(agencyId, (userId: string) =>
+    api(`/api/agencies/${agencyId}/members/${userId}`, { method: 'DELETE' }),
+  );

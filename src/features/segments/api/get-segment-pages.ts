@@ -15,4 +15,5 @@ export const segmentPagesQueryOptions = (agencyId: string, f: SegmentFilters) =>
     },
   });
 
-export const useSegmentPages = (agencyId: string, f: SegmentFilters) => useInfiniteQuery(segmentPagesQueryOptions(agencyId, f));
+export const useSegmentPages = (agencyId: string, f: SegmentFilters) =>
+  useInfiniteQuery(segmentPagesQueryOptions(agencyId, f));

@@ -5,7 +5,8 @@ import { api } from '@/lib/api-client';
 
 export type SegmentDetail = z.infer<typeof SegmentDetailSchema> & { geometry: GeoJSON.Geometry | null };
 
-export const getSegment = (agencyId: string, id: number) => api<SegmentDetail>(`/api/agencies/${agencyId}/segments/${id}`);
+export const getSegment = (agencyId: string, id: number) =>
+  api<SegmentDetail>(`/api/agencies/${agencyId}/segments/${id}`);
 
 export const segmentQueryOptions = (agencyId: string, id: number) =>
   queryOptions({ queryKey: ['segments', agencyId, 'detail', id], queryFn: () => getSegment(agencyId, id) });

@@ -11,7 +11,10 @@ import type { SegmentFilters } from '../api/get-segments';
 import { useSegmentPages } from '../api/get-segment-pages';
 import { useUpdateSegment } from '../api/update-segment';
 
-type EditKind = { type: 'text' } | { type: 'number'; integer?: boolean } | { type: 'choice'; options: readonly string[]; labels: Record<string, string> };
+type EditKind =
+  | { type: 'text' }
+  | { type: 'number'; integer?: boolean }
+  | { type: 'choice'; options: readonly string[]; labels: Record<string, string> };
 
 // Columns an engineer may change in place (double-click a cell).
 const EDITABLE: Partial<Record<keyof Segment, EditKind>> = {
@@ -49,7 +52,13 @@ export function SegmentTable({ agencyId, filters, sort, onSort, canEdit, selecte
       { id: 'select', header: '', size: 34, enableSorting: false },
       { accessorKey: 'segmentId', header: 'Segment', size: 110 },
       { accessorKey: 'roadName', header: 'Road', size: 180 },
-      { id: 'fromTo', header: 'From – to', size: 190, enableSorting: false, accessorFn: (s) => `${s.fromDesc ?? ''} – ${s.toDesc ?? ''}` },
+      {
+        id: 'fromTo',
+        header: 'From – to',
+        size: 190,
+        enableSorting: false,
+        accessorFn: (s) => `${s.fromDesc ?? ''} – ${s.toDesc ?? ''}`,
+      },
       { accessorKey: 'lengthMi', header: 'Length (mi)', size: 90, meta: { num: true } },
       { accessorKey: 'widthFt', header: 'Width (ft)', size: 80, enableSorting: false, meta: { num: true } },
       { accessorKey: 'lanes', header: 'Lanes', size: 60, enableSorting: false, meta: { num: true } },
@@ -74,12 +83,18 @@ export function SegmentTable({ agencyId, filters, sort, onSort, canEdit, selecte
   });
 
   const scroller = useRef<HTMLDivElement>(null);
-  const virtual = useVirtualizer({ count: total, getScrollElement: () => scroller.current, estimateSize: () => ROW_H, overscan: 20 });
+  const virtual = useVirtualizer({
+    count: total,
+    getScrollElement: () => scroller.current,
+    estimateSize: () => ROW_H,
+    overscan: 20,
+  });
   const items = virtual.getVirtualItems();
   const last = items.at(-1);
   // Fetch the next page as the scroll nears the end of what is loaded.
   useEffect(() => {
-    if (last && last.index >= rows.length - 50 && pages.hasNextPage && !pages.isFetchingNextPage) void pages.fetchNextPage();
+    if (last && last.index >= rows.length - 50 && pages.hasNextPage && !pages.isFetchingNextPage)
+      void pages.fetchNextPage();
   }, [last, rows.length, pages]);
 
   const gridTemplate = table
@@ -95,7 +110,10 @@ export function SegmentTable({ agencyId, filters, sort, onSort, canEdit, selecte
     if (value === s[key] || (kind.type === 'number' && Number.isNaN(value))) return;
     update.mutate(
       { id: s.id, patch: { [key]: value } as SegmentUpdate },
-      { onSuccess: () => toast.success(`${s.segmentId}: ${String(key)} saved`), onError: (e) => toast.error(e.message) },
+      {
+        onSuccess: () => toast.success(`${s.segmentId}: ${String(key)} saved`),
+        onError: (e) => toast.error(e.message),
+      },
     );
   };
 
@@ -105,9 +123,18 @@ export function SegmentTable({ agencyId, filters, sort, onSort, canEdit, selecte
       const kind = EDITABLE[k]!;
       if (kind.type === 'choice')
         return (
-          <select autoFocus aria-label={`Edit ${key}`} className="w-full rounded border border-accent px-1 text-sm" defaultValue={String(s[k])} onBlur={(e) => save(s, k, e.target.value)} onChange={(e) => save(s, k, e.target.value)}>
+          <select
+            autoFocus
+            aria-label={`Edit ${key}`}
+            className="w-full rounded border border-accent px-1 text-sm"
+            defaultValue={String(s[k])}
+            onBlur={(e) => save(s, k, e.target.value)}
+            onChange={(e) => save(s, k, e.target.value)}
+          >
             {kind.options.map((o) => (
-              <option key={o} value={o}>{kind.labels[o]}</option>
+              <option key={o} value={o}>
+                {kind.labels[o]}
+              </option>
             ))}
           </select>
         );
@@ -127,7 +154,15 @@ export function SegmentTable({ agencyId, filters, sort, onSort, canEdit, selecte
     }
     switch (key) {
       case 'select':
-        return <input type="checkbox" aria-label={`Select ${s.segmentId}`} checked={selected.has(s.id)} onChange={() => onToggle(s.id)} onClick={(e) => e.stopPropagation()} />;
+        return (
+          <input
+            type="checkbox"
+            aria-label={`Select ${s.segmentId}`}
+            checked={selected.has(s.id)}
+            onChange={() => onToggle(s.id)}
+            onClick={(e) => e.stopPropagation()}
+          />
+        );
       case 'segmentId':
         return (
           <button type="button" className="font-semibold text-accent hover:underline" onClick={() => onOpen(s.id)}>
@@ -135,7 +170,11 @@ export function SegmentTable({ agencyId, filters, sort, onSort, canEdit, selecte
           </button>
         );
       case 'fromTo':
-        return <span className="text-asphalt-muted">{s.fromDesc} – {s.toDesc}</span>;
+        return (
+          <span className="text-asphalt-muted">
+            {s.fromDesc} – {s.toDesc}
+          </span>
+        );
       case 'lengthMi':
         return fmt2(s.lengthMi);
       case 'widthFt':
@@ -161,17 +200,29 @@ export function SegmentTable({ agencyId, filters, sort, onSort, canEdit, selecte
   };
 
   return (
-    <div className="num overflow-hidden rounded border border-asphalt-line bg-white text-sm" data-testid="segment-table" data-total={total}>
+    <div
+      className="num overflow-hidden rounded border border-asphalt-line bg-white text-sm"
+      data-testid="segment-table"
+      data-total={total}
+    >
       <div className="overflow-x-auto">
         <div style={{ minWidth: table.getTotalSize() }}>
-          <div className="grid border-b border-asphalt-line bg-paper text-xs font-bold uppercase tracking-wide text-asphalt-muted" style={{ gridTemplateColumns: gridTemplate }} role="row">
+          <div
+            className="grid border-b border-asphalt-line bg-paper text-xs font-bold uppercase tracking-wide text-asphalt-muted"
+            style={{ gridTemplateColumns: gridTemplate }}
+            role="row"
+          >
             {table.getHeaderGroups()[0].headers.map((h) => {
               const num = (h.column.columnDef.meta as { num?: boolean } | undefined)?.num;
               const sorted = h.column.getIsSorted();
               return (
                 <div key={h.id} role="columnheader" className={`truncate px-2 py-2 ${num ? 'text-right' : ''}`}>
                   {h.column.getCanSort() ? (
-                    <button type="button" className="uppercase hover:text-asphalt" onClick={h.column.getToggleSortingHandler()}>
+                    <button
+                      type="button"
+                      className="uppercase hover:text-asphalt"
+                      onClick={h.column.getToggleSortingHandler()}
+                    >
                       {flexRender(h.column.columnDef.header, h.getContext())}
                       {sorted ? (sorted === 'desc' ? ' ↓' : ' ↑') : ''}
                     </button>
@@ -194,23 +245,25 @@ export function SegmentTable({ agencyId, filters, sort, onSort, canEdit, selecte
                     className={`absolute left-0 grid w-full items-center border-b border-asphalt-line/50 ${s && selected.has(s.id) ? 'bg-accent-light' : vi.index % 2 ? 'bg-paper/40' : ''}`}
                     style={{ top: vi.start, height: ROW_H, gridTemplateColumns: gridTemplate }}
                   >
-                    {s
-                      ? table.getVisibleLeafColumns().map((c) => {
-                          const num = (c.columnDef.meta as { num?: boolean } | undefined)?.num;
-                          const editable = canEdit && EDITABLE[c.id as keyof Segment];
-                          return (
-                            <div
-                              key={c.id}
-                              role="cell"
-                              className={`truncate px-2 ${num ? 'text-right' : ''} ${editable ? 'cursor-text' : ''}`}
-                              onDoubleClick={() => editable && setEditing({ id: s.id, key: c.id as keyof Segment })}
-                              title={editable ? 'Double-click to edit' : undefined}
-                            >
-                              {cell(s, c.id)}
-                            </div>
-                          );
-                        })
-                      : <div className="px-2 text-asphalt-muted">Loading…</div>}
+                    {s ? (
+                      table.getVisibleLeafColumns().map((c) => {
+                        const num = (c.columnDef.meta as { num?: boolean } | undefined)?.num;
+                        const editable = canEdit && EDITABLE[c.id as keyof Segment];
+                        return (
+                          <div
+                            key={c.id}
+                            role="cell"
+                            className={`truncate px-2 ${num ? 'text-right' : ''} ${editable ? 'cursor-text' : ''}`}
+                            onDoubleClick={() => editable && setEditing({ id: s.id, key: c.id as keyof Segment })}
+                            title={editable ? 'Double-click to edit' : undefined}
+                          >
+                            {cell(s, c.id)}
+                          </div>
+                        );
+                      })
+                    ) : (
+                      <div className="px-2 text-asphalt-muted">Loading…</div>
+                    )}
                   </div>
                 );
               })}
