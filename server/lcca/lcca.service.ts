@@ -73,6 +73,8 @@ function resolveGroup(deps: Deps, agencyId: string, g: Group): Group {
       truckPct: r.truckPct,
       functionalClass: r.functionalClass as FunctionalClass,
       pci: r.pci,
+      lengthMi: r.lengthMi,
+      name: r.fromDesc && r.toDesc ? `${r.roadName}, ${r.fromDesc} to ${r.toDesc}` : r.roadName,
     })),
   };
 }

@@ -137,17 +137,29 @@ export const GroupSchema = z.object({
         truckPct: z.number().nullable(),
         functionalClass: FunctionalClassSchema,
         pci: z.number().nullable(),
+        /** Centreline length, for the group's length-weighted PCI (older saved comparisons lack it). */
+        lengthMi: z.number().min(0).max(1e4).optional(),
+        /** Road name and limits, to show which roads a saved comparison holds. */
+        name: z.string().max(200).optional(),
       }),
     )
     .max(50_000),
 });
 export type Group = z.infer<typeof GroupSchema>;
 
-export const RangeOverrideSchema = z.object({
-  low: z.number(),
-  high: z.number(),
-  distribution: z.enum(['triangular', 'uniform', 'fixed']).default('triangular'),
-});
+/**
+ * The low and high of one uncertain input (keys as in the result's sensitivity
+ * rows: rate, mix:<id>, treatment:<id>, alt:<i>:life:<j>). The range must hold
+ * the value the comparison uses; the engine refuses one that does not, naming
+ * the field (shared/engine/lcca/study.ts).
+ */
+export const RangeOverrideSchema = z
+  .object({
+    low: z.number(),
+    high: z.number(),
+    distribution: z.enum(['triangular', 'uniform', 'fixed']).default('triangular'),
+  })
+  .refine((r) => r.low <= r.high, { message: 'low is above high', path: ['low'] });
 
 export const StudyInputSchema = z.object({
   economics: EconomicsSchema,

@@ -252,6 +252,23 @@ describe('catalog-based comparisons', () => {
     expect(res.body.error.message).toMatch(/1–2 in/);
   });
 
+  it('a risk range that leaves out the base value answers 400 naming the field (low 80 / high 120 around a price of $76.50)', async () => {
+    const req = {
+      ...request(),
+      risk: { iterations: 500, seed: 1, ranges: { [`mix:${mix('Dense-graded 12.5 mm')}`]: { low: 80, high: 120 } } },
+    };
+    const res = await eng.post(`/api/agencies/${t.ids.brannock}/analyses/runs`).send(req);
+    expect(res.status).toBe(400);
+    expect(res.body.error.issues[0].path).toBe(`risk.ranges.mix:${mix('Dense-graded 12.5 mm')}.low`);
+    expect(res.body.error.message).toMatch(
+      /low 80 is above the value the comparison uses, 76.5, for Dense-graded 12.5 mm price/,
+    );
+    const reversed = { ...req, risk: { ...req.risk, ranges: { rate: { low: 0.05, high: 0.01 } } } };
+    const res2 = await eng.post(`/api/agencies/${t.ids.brannock}/analyses/runs`).send(reversed);
+    expect(res2.status).toBe(400);
+    expect(res2.body.error.issues.map((i: { path: string }) => i.path)).toContain('body.risk.ranges.rate.low');
+  });
+
   it('one alternative is not a comparison', async () => {
     const req = request();
     req.alternatives = req.alternatives.slice(0, 1);

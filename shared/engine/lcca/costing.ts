@@ -18,6 +18,8 @@ export type ResolvedTreatment = {
   lines: RateLine[];
   tonsPerSy: number;
   thicknessIn: number | null;
+  /** Depth milled before the lift, in inches (0 when the treatment mills nothing; null without a lift). */
+  millDepthIn: number | null;
   serviceLifeYears: number;
   /** How the life was set: from the treatment, from the mix and lift, or typed in. */
   lifeSource: 'treatment' | 'mix-and-lift' | 'entered';
@@ -32,6 +34,32 @@ export type ResolvedTreatment = {
 export function lifeAtThickness(mix: Mix, thicknessIn: number) {
   const raw = mix.refLifeYears * (thicknessIn / mix.refLiftIn);
   return Math.min(mix.refLifeYears * 1.5, Math.max(mix.refLifeYears * 0.5, raw));
+}
+
+const fmtIn = (v: number) => String(Number(v.toFixed(2)));
+
+/**
+ * Milling depth follows the lift: a treatment that mills keeps the grade change
+ * its catalog entry describes (lift − milling), so a lift ½ in thinner mills
+ * ½ in less. Mill-and-overlay inlays (2 in milled, 2 in laid) therefore mill
+ * exactly the lift. A planning rule; the agency's plans set the real depth.
+ */
+export function millDepthFor(t: Treatment, thicknessIn: number) {
+  if (t.millDepthIn <= 0) return 0;
+  const ref = t.defaultThicknessIn ?? thicknessIn;
+  return Math.max(0, t.millDepthIn + (thicknessIn - ref));
+}
+
+/** The cost item that prices the milling: a per-SY item of a milling treatment whose label says so. */
+const isMillingItem = (t: Treatment, item: Treatment['costItems'][number]) =>
+  t.millDepthIn > 0 && item.basis === 'per_sy' && /\bmill/i.test(item.label);
+
+/** "Mill and overlay — Rubber-modified, 1.5 in lift, 1.5 in milled": the catalog name loses a thickness that no longer holds. */
+function overlayLabel(t: Treatment, mix: Mix, thicknessIn: number, millDepthIn: number) {
+  const changed = t.defaultThicknessIn !== null && thicknessIn !== t.defaultThicknessIn;
+  const name = changed ? t.name.replace(/\s*\(\d+(\.\d+)?\s*in\)/, '') : t.name;
+  const mill = t.millDepthIn > 0 ? `, ${fmtIn(millDepthIn)} in milled` : '';
+  return `${name} — ${mix.name}, ${fmtIn(thicknessIn)} in${mill}`;
 }
 
 export type PriceOverrides = { mixPricePerTon?: Record<string, number>; treatmentFactor?: Record<string, number> };
@@ -57,12 +85,18 @@ export function resolveTreatment(
       note: `${(tonsPerSy * 1000).toFixed(1)} tons per 1,000 SY`,
     });
   }
-  for (const item of t.costItems)
-    lines.push({
-      label: item.label,
-      basis: item.basis,
-      rate: item.basis === 'percent' ? item.amount : item.amount * factor,
-    });
+  const millDepthIn = thicknessIn ? millDepthFor(t, thicknessIn) : null;
+  for (const item of t.costItems) {
+    const rate = item.basis === 'percent' ? item.amount : item.amount * factor;
+    if (millDepthIn !== null && isMillingItem(t, item) && millDepthIn !== t.millDepthIn) {
+      lines.push({
+        label: item.label.replace(/\d+(\.\d+)?\s*in\b/, `${fmtIn(millDepthIn)} in`),
+        basis: item.basis,
+        rate: (rate * millDepthIn) / t.millDepthIn,
+        note: `milling follows the lift: priced in proportion to depth from $${rate.toFixed(2)}/SY at ${fmtIn(t.millDepthIn)} in`,
+      });
+    } else lines.push({ label: item.label, basis: item.basis, rate });
+  }
   if (econ.trafficControlPerDay > 0) {
     lines.push({
       label: `Traffic control, $${econ.trafficControlPerDay}/day at ${t.productionSyPerDay.toLocaleString('en-US')} SY/day`,
@@ -89,7 +123,7 @@ export function resolveTreatment(
     serviceLifeYears = mix && thicknessIn ? lifeAtThickness(mix, thicknessIn) : 1;
     lifeSource = 'mix-and-lift';
   }
-  const label = mix && thicknessIn ? `${t.name} — ${mix.name}, ${thicknessIn} in` : t.name;
+  const label = mix && thicknessIn ? overlayLabel(t, mix, thicknessIn, millDepthIn ?? 0) : t.name;
   return {
     label,
     rates: {
@@ -101,6 +135,7 @@ export function resolveTreatment(
     lines,
     tonsPerSy,
     thicknessIn,
+    millDepthIn,
     serviceLifeYears,
     lifeSource,
     mix,

@@ -14,6 +14,12 @@ export type Activity = {
   userCost?: number;
   /** False for routine maintenance that carries no remaining-life credit. Default true. */
   salvage?: boolean;
+  /**
+   * When the activity's life ends, exactly, if it does not simply run from its
+   * booking year (a fractional life chained from an earlier one, booked at the
+   * end of the year in which it falls). Default: year + serviceLifeYears.
+   */
+  lifeEndsAt?: number;
 };
 
 export type CashFlow = { year: number; cost: number; userCost: number; presentValue: number; label?: string };
@@ -31,19 +37,24 @@ export type AlternativeResult = {
   cashFlows: CashFlow[];
 };
 
-/** Remaining service life value at year N of the last activity whose life runs past N. */
+const endOfLife = (a: Activity) => a.lifeEndsAt ?? a.year + a.serviceLifeYears;
+
+/**
+ * Remaining service life value at year N of the last activity whose life runs
+ * past N: its cost × (life left at N) / (its service life), FHWA-SA-98-079.
+ * The fraction is exact for fractional lives (no rounding to whole years).
+ */
 export function remainingLife(activities: Activity[], analysisPeriodYears: number) {
   let index: number | null = null;
   for (let i = 0; i < activities.length; i++) {
     const a = activities[i];
     if (a.salvage === false || a.serviceLifeYears <= 0) continue;
-    if (a.year + a.serviceLifeYears > analysisPeriodYears && (index === null || a.year >= activities[index].year))
-      index = i;
+    if (endOfLife(a) > analysisPeriodYears && (index === null || a.year >= activities[index].year)) index = i;
   }
-  if (index === null) return { value: 0, index };
+  if (index === null) return { value: 0, index, fraction: 0 };
   const a = activities[index];
-  const fraction = (a.year + a.serviceLifeYears - analysisPeriodYears) / a.serviceLifeYears;
-  return { value: a.cost * fraction, index };
+  const fraction = Math.min(1, (endOfLife(a) - analysisPeriodYears) / a.serviceLifeYears);
+  return { value: a.cost * fraction, index, fraction };
 }
 
 export function evaluateAlternative(

@@ -17,6 +17,7 @@ function activitiesFor(rated: RatedActivity[], q: { areaSy: number; laneMiles: n
     serviceLifeYears: a.template.serviceLifeYears,
     salvage: a.template.salvage ?? true,
     label: a.template.label,
+    lifeEndsAt: a.lifeEndsAt,
   }));
 }
 

@@ -90,6 +90,8 @@ export type McResult = {
   seed: number;
   stats: McStats[];
   probabilityCheapest: number[];
+  /** Probability of being the cheapest among `among` alternatives only (0 for the others); absent without it. */
+  probabilityCheapestAmong?: number[];
   histogram: { edges: number[]; counts: number[][] };
   /** Sorted draws per alternative, thinned to at most 200 points for a CDF plot. */
   cdf: number[][];
@@ -106,7 +108,14 @@ function quantile(sorted: Float64Array, p: number) {
 export function monteCarlo(
   inputs: ModelInput[],
   model: Model,
-  opts: { iterations: number; seed: number; bins?: number; onProgress?: (done: number) => void },
+  opts: {
+    iterations: number;
+    seed: number;
+    bins?: number;
+    onProgress?: (done: number) => void;
+    /** A subset (e.g. the alternatives that give the same service) to count the cheapest within as well. */
+    among?: number[];
+  },
 ): McResult {
   const u = rng(opts.seed);
   const base = baseValues(inputs);
@@ -114,6 +123,8 @@ export function monteCarlo(
   const nAlt = model(base).length;
   const draws = Array.from({ length: nAlt }, () => new Float64Array(opts.iterations));
   const cheapest = new Array(nAlt).fill(0);
+  const among = opts.among?.length ? opts.among : null;
+  const cheapestAmong = new Array(nAlt).fill(0);
   for (let it = 0; it < opts.iterations; it++) {
     const values = { ...base };
     for (const inp of random) values[inp.key] = sample(inp.distribution!, u);
@@ -124,6 +135,11 @@ export function monteCarlo(
       if (npv[a] < npv[best]) best = a;
     }
     cheapest[best]++;
+    if (among) {
+      let b = among[0];
+      for (const a of among) if (npv[a] < npv[b]) b = a;
+      cheapestAmong[b]++;
+    }
     if (opts.onProgress && it % 500 === 499) opts.onProgress(it + 1);
   }
   const stats = draws.map((d) => {
@@ -166,6 +182,7 @@ export function monteCarlo(
     seed: opts.seed,
     stats: stats.map(({ sorted: _s, ...rest }) => rest),
     probabilityCheapest: cheapest.map((c) => c / opts.iterations),
+    ...(among ? { probabilityCheapestAmong: cheapestAmong.map((c) => c / opts.iterations) } : {}),
     histogram: { edges, counts },
     cdf,
   };
