@@ -2,7 +2,7 @@
 // paper. Headings are also bookmarks, so a reader (and a test) can find them.
 import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
-import { CONDITION_BANDS } from '../../shared/condition';
+import { BAND_MAPPING_NOTE, CONDITION_BANDS } from '../../shared/condition';
 import { BRIEF_CAUTIONS, briefMethod, briefSummary } from '../../shared/engine/plan/brief-text';
 import type { PlanResult } from '../../shared/engine/plan/run-plan';
 
@@ -162,6 +162,7 @@ export async function briefPdf(args: {
     ).join(' · '),
     { width: W },
   );
+  doc.fillColor(MUTED).text(BAND_MAPPING_NOTE, { width: W });
 
   heading('Backlog');
   const maxB = Math.max(1, ...r.years.map((y) => y.backlog));

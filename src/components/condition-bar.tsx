@@ -1,4 +1,4 @@
-import { CONDITION_BANDS, NO_DATA_COLOR } from '@shared/condition';
+import { BAND_MAPPING_NOTE, CONDITION_BANDS, NO_DATA_COLOR } from '@shared/condition';
 import { fmtInt } from '@/lib/format';
 
 /** Lane-miles by condition band as one horizontal bar; the legend always carries numbers. */
@@ -34,6 +34,7 @@ export function ConditionBar({ byBand }: { byBand: { band: string; laneMiles: nu
           </li>
         ))}
       </ul>
+      <p className="mt-1 text-[11px] text-asphalt-muted">{BAND_MAPPING_NOTE}</p>
     </div>
   );
 }

@@ -1,5 +1,5 @@
 import { Link, useParams } from 'react-router-dom';
-import { CONDITION_BANDS } from '@shared/condition';
+import { BAND_MAPPING_NOTE, CONDITION_BANDS } from '@shared/condition';
 import { BRIEF_CAUTIONS, briefMethod, briefSummary } from '@shared/engine/plan/brief-text';
 import { LineChart, StackedBars } from '@/components/charts';
 import { useSegmentsGeoJson } from '@/features/map/api/get-segments-geojson';
@@ -122,6 +122,7 @@ export function BriefPage() {
             `${b.label} (PCI ${b.min}–${b.max}): ${fmtInt(first.laneMilesByBand[b.id])} → ${fmtInt(last.laneMilesByBand[b.id])} lane-mi`,
         ).join(' · ')}
       </p>
+      <p className="text-xs">{BAND_MAPPING_NOTE}</p>
       <h2 className="mt-5 text-lg font-bold">Backlog</h2>
       <StackedBars
         x={x}

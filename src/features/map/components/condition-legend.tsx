@@ -15,6 +15,7 @@ export function ConditionLegend() {
             {b.min}–{b.max}
           </span>
           <span className="text-asphalt-muted">{b.label}</span>
+          <span className="text-[10px] text-asphalt-muted/80">(ASTM {b.standard.join(' + ')})</span>
         </div>
       ))}
       <div className="flex items-center gap-1.5">
