@@ -45,6 +45,19 @@ describe('the answer first', () => {
     expect(service[0]).toMatchObject({ alternativeIndex: chip, alternative: 'Chip seal cycle' });
   });
 
+  it('nor does a treatment the catalog does not give to the class of most of the roads (chip seal on arterials)', () => {
+    const group = {
+      ...oneMile,
+      segments: oneMile.segments.map((s) => ({ ...s, pci: 60, functionalClass: 'minor_arterial' as const })),
+    };
+    const r = runStudy(studyInput(three, { group }), { monteCarlo: false });
+    expect(r.alternatives[2].service).toMatchObject({ equal: false, reason: 'class', outsideClassShare: 1 });
+    expect(r.answer.winner).not.toBe(2);
+    expect(r.cautions.find((c) => c.kind === 'service')?.message).toMatch(
+      /does not give Chip seal to the functional class of 100 %/,
+    );
+  });
+
   it('the chance of being cheapest is counted among the alternatives that give the same service', () => {
     const r = runStudy(studyInput(three, { group: atPci(42), risk: { iterations: 400, seed: 3, ranges: {} } }));
     const among = r.monteCarlo!.probabilityCheapestAmong!;

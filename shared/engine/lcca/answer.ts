@@ -11,7 +11,14 @@ export type AnswerAlternative = {
   firstCost: number;
   initial: { serviceLifeYears: number };
   cashFlows: { kind?: string }[];
-  service?: { equal: boolean; groupPci: number | null; pciMin: number; pciMax: number; treatment: string };
+  service?: {
+    equal: boolean;
+    groupPci: number | null;
+    pciMin: number;
+    pciMax: number;
+    treatment: string;
+    reason?: 'pci' | 'class';
+  };
 };
 
 export type AnswerInput = {
@@ -36,6 +43,11 @@ export type Answer = {
   leftOut: number[];
   /** The runner-up's cost less the winner's, by part: first cost, later work, remaining-life credit, user costs. */
   parts: Part[];
+  /** The answer itself: who wins, by how much, why. */
+  headline: string;
+  /** What follows it: how sure, and what was left out and why. */
+  details: string[];
+  /** headline and details in one paragraph. */
   sentence: string;
 };
 
@@ -52,7 +64,7 @@ function phrase(part: Part, w: AnswerAlternative, r: AnswerAlternative, n: numbe
       const kw = treatments(w);
       const kr = treatments(r);
       if (favour && kw < kr)
-        return `its ${years(w.initial.serviceLifeYears)}-year life needs ${kw} treatment${kw === 1 ? '' : 's'} in ${n} years against ${kr} for ${r.name}`;
+        return `its ${years(w.initial.serviceLifeYears)}-year life needs ${kw} treatment${kw === 1 ? '' : 's'} in ${n} years, not ${kr}`;
       return favour
         ? `its later work costs ${d} less in present value`
         : `the ${d} more its later work costs in present value`;
@@ -76,15 +88,17 @@ export function answerFor(r: AnswerInput): Answer {
   const pciOf = alts.find((a) => a.service?.groupPci != null)?.service?.groupPci;
   const pci = pciOf == null ? null : Math.round(pciOf);
   let sentence: string;
+  const details: string[] = [];
   let parts: Part[] = [];
   let margin = 0;
 
+  const these = pci === null ? 'these roads' : `these roads (PCI ${pci})`;
   if (winner === null) {
     const c = alts[cheapest];
-    sentence = `None of the alternatives is one the catalog gives to roads at PCI ${pci}; of them, ${c.name} costs least, ${money(c.presentValue)} in present value over ${n} years at ${rate} (real). Choose a treatment meant for roads in this condition.`;
+    sentence = `None of the alternatives is one the catalog gives to ${these}; of them, ${c.name} costs least, ${money(c.presentValue)} in present value over ${n} years at ${rate} (real). Choose a treatment meant for roads like these.`;
   } else if (runnerUp === null) {
     const w = alts[winner];
-    sentence = `${w.name} is the only alternative meant for roads at PCI ${pci}: ${money(w.presentValue)} in present value over ${n} years at ${rate} (real).`;
+    sentence = `${w.name} is the only alternative the catalog gives to ${these}: ${money(w.presentValue)} in present value over ${n} years at ${rate} (real).`;
   } else {
     const w = alts[winner];
     const ru = alts[runnerUp];
@@ -113,14 +127,34 @@ export function answerFor(r: AnswerInput): Answer {
     const prob = leftOut.length ? mc?.probabilityCheapestAmong : mc?.probabilityCheapest;
     if (mc && prob) {
       const p = Math.round(prob[winner] * 100);
-      sentence += ` It is the cheapest${leftOut.length ? ' of those that give the same service' : ''} in ${p} % of ${mc.iterations.toLocaleString('en-US')} simulated futures.`;
+      details.push(
+        `It is the cheapest${leftOut.length ? ' of those that give the same service' : ''} in ${p} % of ${mc.iterations.toLocaleString('en-US')} simulated futures.`,
+      );
     }
   }
   for (const i of leftOut) {
     if (winner === null) break;
     const a = alts[i];
     if (a.presentValue >= alts[winner].presentValue) continue;
-    sentence += ` ${a.name} would cost ${money(alts[winner].presentValue - a.presentValue)} less, but ${a.service!.treatment} is for roads at PCI ${a.service!.pciMin}–${a.service!.pciMax}, so it does not give the same service here.`;
+    const sv = a.service!;
+    const rule =
+      sv.reason === 'class'
+        ? `the catalog does not give ${sv.treatment} to roads of this class`
+        : `${sv.treatment} is for roads at PCI ${sv.pciMin}–${sv.pciMax}`;
+    details.push(
+      `${a.name} would cost ${money(alts[winner].presentValue - a.presentValue)} less, but ${rule}, so it does not give the same service here.`,
+    );
   }
-  return { winner, runnerUp, margin, cheapest, leftOut, parts, sentence };
+  const headline = sentence;
+  return {
+    winner,
+    runnerUp,
+    margin,
+    cheapest,
+    leftOut,
+    parts,
+    headline,
+    details,
+    sentence: [headline, ...details].join(' '),
+  };
 }

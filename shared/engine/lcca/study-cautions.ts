@@ -21,12 +21,20 @@ export type StudyCaution = {
 };
 
 export type ServiceCheck = {
-  /** False when the group's PCI is outside the PCI range the catalog gives the initial treatment. */
+  /**
+   * False when the group's PCI is outside the PCI range the catalog gives the
+   * initial treatment, or when the catalog does not give it to the functional
+   * class of most of the group's length.
+   */
   equal: boolean;
   groupPci: number | null;
   pciMin: number;
   pciMax: number;
   treatment: string;
+  /** Why not, in words, when not equal. */
+  reason?: 'pci' | 'class';
+  /** Share of the group's length whose functional class the treatment is not given to. */
+  outsideClassShare?: number;
 };
 
 export const fmtYears = (v: number) => Number(v.toFixed(2)).toLocaleString('en-US');
@@ -47,11 +55,18 @@ export function groupPci(group: Group): number | null {
 /** Equal service: the initial treatment is one the catalog gives to roads in this condition. */
 export function serviceChecks(input: StudyInput, look: Lookup): ServiceCheck[] {
   const pci = groupPci(input.group);
+  const length = input.group.segments.reduce((s, x) => s + (x.lengthMi ?? 1), 0);
   return input.alternatives.map((a) => {
     const t = look.treatment(a.initial.treatmentId)!;
     const { pciMin, pciMax } = t.applicability;
-    const equal = pci === null || (Math.round(pci) >= pciMin && Math.round(pci) <= pciMax);
-    return { equal, groupPci: pci, pciMin, pciMax, treatment: t.name };
+    const pciOk = pci === null || (Math.round(pci) >= pciMin && Math.round(pci) <= pciMax);
+    const outside = input.group.segments
+      .filter((x) => !t.applicability.classes.includes(x.functionalClass as never))
+      .reduce((s, x) => s + (x.lengthMi ?? 1), 0);
+    const outsideClassShare = length > 0 ? outside / length : 0;
+    const equal = pciOk && outsideClassShare <= 0.5;
+    const reason = !pciOk ? ('pci' as const) : !equal ? ('class' as const) : undefined;
+    return { equal, groupPci: pci, pciMin, pciMax, treatment: t.name, reason, outsideClassShare };
   });
 }
 
@@ -75,12 +90,16 @@ export function studyCautions(
     const base = { alternative: a.name, alternativeIndex: i };
     const t = look.treatment(a.initial.treatmentId)!;
     const sv = service[i];
-    if (!sv.equal && sv.groupPci !== null) {
+    if (!sv.equal) {
+      const why =
+        sv.reason === 'pci'
+          ? `${t.name} is for roads at PCI ${sv.pciMin}–${sv.pciMax} by the catalog's rules, and these roads average PCI ${Math.round(sv.groupPci ?? 0)}`
+          : `The catalog does not give ${t.name} to the functional class of ${Math.round((sv.outsideClassShare ?? 0) * 100)} % of these roads' length`;
       cautions.push({
         ...base,
         kind: 'service',
         subject: t.name,
-        message: `${t.name} is for roads at PCI ${sv.pciMin}–${sv.pciMax} by the catalog's rules, and these roads average PCI ${Math.round(sv.groupPci)}: it does not give the same service as an alternative that suits them${anyEqual ? ', so it is left out of the answer' : ''}. A cheap cycle that cannot repair the road only looks cheaper.`,
+        message: `${why}: it does not give the same service as an alternative that suits them${anyEqual ? ', so it is left out of the answer' : ''}. A cheap cycle that cannot repair the road only looks cheaper.`,
       });
     }
     if ((OVERLAY_KINDS as readonly string[]).includes(t.kind) && alt.initial.thicknessIn) {

@@ -1,7 +1,9 @@
 import type { Catalog } from '@shared/schemas/catalog';
 import { OVERLAY_KINDS } from '@shared/schemas/catalog';
+import { millDepthFor } from '@shared/engine/lcca/costing';
 import type { AlternativeSpec, Step } from '@shared/schemas/lcca';
 import { Select, TextInput } from '@/components/ui/field';
+import { autoName } from '../lib/default-alternatives';
 import { ALT_COLORS } from './charts';
 
 type Props = {
@@ -87,6 +89,12 @@ function StepEditor({
                 onChange({ ...step, mixId, thicknessIn: e.target.value === '' ? null : Number(e.target.value) })
               }
             />
+            {t && t.millDepthIn > 0 && (
+              <span className="mt-0.5 block text-xs text-asphalt-muted" data-testid={`${testId}-mill`}>
+                mills {Number(millDepthFor(t, step.thicknessIn ?? t.defaultThicknessIn ?? 0).toFixed(2))} in first
+                (follows the lift)
+              </span>
+            )}
           </label>
         </>
       )}
@@ -141,7 +149,13 @@ export function AlternativeCard({ index, spec, catalog, onChange, onRemove }: Pr
         testId={`alt-${index}-initial`}
         step={spec.initial}
         catalog={catalog}
-        onChange={(initial) => onChange({ ...spec, initial })}
+        onChange={(initial) =>
+          onChange({
+            ...spec,
+            initial,
+            name: spec.name === autoName(catalog, spec.initial) ? autoName(catalog, initial) : spec.name,
+          })
+        }
       />
       <div className="mt-2 space-y-1 text-sm">
         <label className="flex items-center gap-2">

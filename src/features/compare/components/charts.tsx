@@ -1,4 +1,4 @@
-import { scaleBand, scaleLinear } from 'd3-scale';
+import { scaleLinear } from 'd3-scale';
 import { fmtMoney } from '@/lib/format';
 
 const money = (v: number) =>
@@ -70,85 +70,6 @@ export function CashFlowChart({
     </svg>
   );
 }
-
-/** Tornado: for each input, the swing of one alternative's NPV between the input's low and high. */
-export function TornadoChart({
-  rows,
-  alt,
-  base,
-  width = 560,
-}: {
-  rows: { label: string; low: number; high: number; npvAtLow: number[]; npvAtHigh: number[] }[];
-  alt: number;
-  base: number;
-  width?: number;
-}) {
-  const shown = rows.slice(0, 10);
-  const h = 22 * shown.length + 24;
-  const lo = Math.min(base, ...shown.map((r) => Math.min(r.npvAtLow[alt], r.npvAtHigh[alt])));
-  const hi = Math.max(base, ...shown.map((r) => Math.max(r.npvAtLow[alt], r.npvAtHigh[alt])));
-  const x = scaleLinear()
-    .domain([lo, hi])
-    .range([220, width - 70])
-    .nice();
-  const yb = scaleBand()
-    .domain(shown.map((_, i) => String(i)))
-    .range([4, h - 20])
-    .padding(0.25);
-  return (
-    <svg viewBox={`0 0 ${width} ${h}`} className="w-full" role="img" aria-label="Tornado chart" data-testid="tornado">
-      {shown.map((r, i) => {
-        const a = r.npvAtLow[alt];
-        const b = r.npvAtHigh[alt];
-        return (
-          <g key={r.label}>
-            <text
-              x={214}
-              y={(yb(String(i)) ?? 0) + yb.bandwidth() / 2 + 3}
-              textAnchor="end"
-              className="fill-asphalt text-[10px]"
-            >
-              {r.label.length > 38 ? `${r.label.slice(0, 37)}…` : r.label}
-            </text>
-            <rect
-              x={Math.min(x(a), x(base))}
-              width={Math.abs(x(a) - x(base))}
-              y={yb(String(i))}
-              height={yb.bandwidth()}
-              fill="#7c6f57"
-            >
-              <title>{`${r.label} at ${fmtNum(r.low)}: ${money(a)}`}</title>
-            </rect>
-            <rect
-              x={Math.min(x(b), x(base))}
-              width={Math.abs(x(b) - x(base))}
-              y={yb(String(i))}
-              height={yb.bandwidth()}
-              fill="#0f766e"
-            >
-              <title>{`${r.label} at ${fmtNum(r.high)}: ${money(b)}`}</title>
-            </rect>
-            <text
-              x={Math.max(x(a), x(b)) + 4}
-              y={(yb(String(i)) ?? 0) + yb.bandwidth() / 2 + 3}
-              className="num fill-asphalt-muted text-[9px]"
-            >
-              {money(Math.abs(b - a))}
-            </text>
-          </g>
-        );
-      })}
-      <line x1={x(base)} x2={x(base)} y1={0} y2={h - 18} stroke="#1f2328" strokeDasharray="2 2" />
-      {x.ticks(4).map((t) => (
-        <text key={t} x={x(t)} y={h - 4} textAnchor="middle" className="num fill-asphalt-muted text-[9px]">
-          {money(t)}
-        </text>
-      ))}
-    </svg>
-  );
-}
-
-const fmtNum = (v: number) => (Math.abs(v) < 1 ? `${(v * 100).toFixed(1)} %` : v.toFixed(v < 100 ? 1 : 0));
 
 /** Monte Carlo: the distribution of each alternative's NPV on shared bins, as outlines. */
 export function McHistogram({
