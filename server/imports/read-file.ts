@@ -4,24 +4,38 @@
 import ExcelJS from 'exceljs';
 import JSZip from 'jszip';
 import Papa from 'papaparse';
+import { unescapeFormula } from '../csv';
 import { HttpError } from '../http/errors';
+import { boundedUnzip } from './bounded-unzip';
 
 export type Cell = string | number | null;
 export type Geometry = { type: string; coordinates: unknown };
-export type RawRow = { row: number; values: Record<string, Cell>; geometry?: Geometry | null };
+export type RawRow = {
+  row: number;
+  values: Record<string, Cell>;
+  geometry?: Geometry | null;
+  /** Cells that could not be read as a value (column → reason), e.g. a nested GeoJSON property. */
+  unreadable?: Record<string, string>;
+};
 export type FileFormat = 'csv' | 'xlsx' | 'geojson' | 'shapefile';
 export type RawTable = {
   format: FileFormat;
   columns: string[];
   rows: RawRow[];
-  /** CRS named by the file itself (GeoJSON `crs` member, shapefile .prj). */
+  /** EPSG code named by the file itself (a GeoJSON `crs` member). */
   crsHint: string | null;
+  /** The shapefile's .prj text (WKT); its coordinates are left as they are in the file. */
+  prj: string | null;
   hasGeometry: boolean;
 };
 
 export const MAX_ROWS = 100_000;
-/** A workbook may expand to at most this much when unzipped (a zip bomb is refused before it is inflated). */
+/**
+ * A workbook or zipped shapefile may expand to at most this much when unzipped. A zip
+ * that declares more is refused before inflating; one that lies is stopped at the cap.
+ */
 export const MAX_WORKBOOK_EXPANDED_BYTES = 200 * 1024 * 1024;
+export const MAX_SHAPEFILE_EXPANDED_BYTES = 200 * 1024 * 1024;
 
 const fileError = (message: string) => new HttpError(400, 'bad_file', message);
 
@@ -56,12 +70,46 @@ export function zipExpandedBytes(zip: JSZip) {
   return total;
 }
 
+/**
+ * The quick refusal: a zip that itself declares more than the cap is refused before
+ * anything is inflated. The declared sizes can lie; boundedUnzip holds the real cap.
+ */
+export async function refuseDeclaredOver(
+  buf: Buffer,
+  o: { maxBytes: number; what: string; advice: string; notAZip: string },
+) {
+  const { maxBytes, what, advice } = o;
+  let zip: JSZip;
+  try {
+    zip = await JSZip.loadAsync(buf);
+  } catch {
+    throw fileError(o.notAZip);
+  }
+  const expanded = zipExpandedBytes(zip);
+  if (expanded > maxBytes)
+    throw fileError(
+      `${what} expands to ${Math.round(expanded / 1024 / 1024)} MB when unzipped, more than the ${Math.round(maxBytes / 1024 / 1024)} MB limit; ${advice}`,
+    );
+}
+
+const DELIMITERS = [',', ';', '\t', '|'];
+
+/**
+ * The separator is read off the header row (the one most used outside quotes):
+ * guessing from all rows is misled by decimal commas ("0,125") in a file separated by semicolons.
+ */
+function delimiterOf(text: string): { delimiter: string } | { delimitersToGuess: string[] } {
+  const header = (text.match(/^[^\r\n]*/)?.[0] ?? '').replace(/"[^"]*"/g, '');
+  const counts = DELIMITERS.map((d) => [d, header.split(d).length - 1] as const).sort((a, b) => b[1] - a[1]);
+  return counts[0][1] > 0 ? { delimiter: counts[0][0] } : { delimitersToGuess: DELIMITERS };
+}
+
 export function readCsv(buf: Buffer): RawTable {
   let text = buf.toString('utf8');
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1); // BOM from spreadsheet exports
   if (text.includes('\u0000')) throw fileError('This file is binary, not CSV text.');
   if (text.trim() === '') throw fileError('The file is empty.');
-  const parsed = Papa.parse<string[]>(text, { skipEmptyLines: false, delimitersToGuess: [',', ';', '\t', '|'] });
+  const parsed = Papa.parse<string[]>(text, { skipEmptyLines: false, ...delimiterOf(text) });
   const data = parsed.data;
   const header = (data[0] ?? []).map((h) => String(h).trim());
   // Every import needs several columns: one column means the separator was not understood.
@@ -80,7 +128,7 @@ export function readCsv(buf: Buffer): RawTable {
     const values: Record<string, Cell> = {};
     header.forEach((h, j) => {
       const v = line[j];
-      values[h] = v === undefined || String(v).trim() === '' ? null : String(v).trim();
+      values[h] = v === undefined || String(v).trim() === '' ? null : unescapeFormula(String(v).trim());
     });
     if (line.length > header.length && line.slice(header.length).some((v) => String(v).trim() !== '')) {
       values.__extra = `${line.length} values for ${header.length} columns`;
@@ -88,13 +136,13 @@ export function readCsv(buf: Buffer): RawTable {
     rows.push({ row: i + 1, values });
   }
   if (rows.length === 0) throw fileError('The file has a header row but no data rows.');
-  return { format: 'csv', columns: header, rows, crsHint: null, hasGeometry: false };
+  return { format: 'csv', columns: header, rows, crsHint: null, prj: null, hasGeometry: false };
 }
 
 function cellValue(v: ExcelJS.CellValue): Cell {
   if (v === null || v === undefined) return null;
   if (typeof v === 'number') return v;
-  if (typeof v === 'string') return v.trim() === '' ? null : v.trim();
+  if (typeof v === 'string') return v.trim() === '' ? null : unescapeFormula(v.trim());
   if (typeof v === 'boolean') return String(v);
   if (v instanceof Date) return v.toISOString().slice(0, 10);
   if (typeof v === 'object') {
@@ -114,22 +162,22 @@ function cellValue(v: ExcelJS.CellValue): Cell {
 
 export async function readXlsx(buf: Buffer): Promise<RawTable> {
   if (buf.subarray(0, 2).toString('latin1') !== 'PK') throw fileError('This file is not an Excel workbook (.xlsx).');
-  let zip: JSZip;
-  try {
-    zip = await JSZip.loadAsync(buf);
-  } catch {
-    throw fileError('This file is not a readable Excel workbook (.xlsx).');
-  }
-  const expanded = zipExpandedBytes(zip);
-  if (expanded > MAX_WORKBOOK_EXPANDED_BYTES) {
-    throw fileError(
-      `This workbook expands to ${Math.round(expanded / 1024 / 1024)} MB when unzipped, more than the ${MAX_WORKBOOK_EXPANDED_BYTES / 1024 / 1024} MB limit; save it as CSV or split it.`,
-    );
-  }
-  if (!zip.file('[Content_Types].xml')) throw fileError('This zip is not an Excel workbook (.xlsx).');
+  await refuseDeclaredOver(buf, {
+    maxBytes: MAX_WORKBOOK_EXPANDED_BYTES,
+    what: 'This workbook',
+    advice: 'save it as CSV or split it.',
+    notAZip: 'This file is not a readable Excel workbook (.xlsx).',
+  });
+  // Inflate under the hard cap first; ExcelJS then reads only what was inflated here
+  // (re-packed without compression), never the original zip.
+  const parts = await boundedUnzip(buf, { maxBytes: MAX_WORKBOOK_EXPANDED_BYTES, what: 'This workbook' });
+  if (!parts.has('[Content_Types].xml')) throw fileError('This zip is not an Excel workbook (.xlsx).');
+  const stored = new JSZip();
+  for (const [name, bytes] of parts) stored.file(name, bytes);
   const wb = new ExcelJS.Workbook();
   try {
-    await wb.xlsx.load(buf as unknown as ArrayBuffer);
+    const repacked = await stored.generateAsync({ type: 'nodebuffer', compression: 'STORE' });
+    await wb.xlsx.load(repacked as unknown as ArrayBuffer);
   } catch {
     throw fileError('This file is not a readable Excel workbook (.xlsx).');
   }
@@ -159,7 +207,7 @@ export async function readXlsx(buf: Buffer): Promise<RawTable> {
   });
   checkColumns(header);
   if (rows.length === 0) throw fileError('The sheet has a header row but no data rows.');
-  return { format: 'xlsx', columns: header, rows, crsHint: null, hasGeometry: false };
+  return { format: 'xlsx', columns: header, rows, crsHint: null, prj: null, hasGeometry: false };
 }
 
 type GeoFeature = { type?: string; properties?: Record<string, unknown> | null; geometry?: Geometry | null };
@@ -172,7 +220,14 @@ function crsFromGeoJson(doc: { crs?: { properties?: { name?: string } } }): stri
   return m[1] === '4326' || /CRS84/i.test(name) ? null : `EPSG:${m[1]}`;
 }
 
-export function tableFromFeatures(features: GeoFeature[], format: FileFormat, crsHint: string | null): RawTable {
+const NESTED = 'is a nested object or list; only text, numbers and true/false are read';
+
+export function tableFromFeatures(
+  features: GeoFeature[],
+  format: FileFormat,
+  crsHint: string | null,
+  prj: string | null = null,
+): RawTable {
   if (features.length === 0) throw fileError('The file has no features.');
   if (features.length > MAX_ROWS)
     throw fileError(`The file has more than ${MAX_ROWS.toLocaleString('en-US')} features; split it.`);
@@ -180,17 +235,23 @@ export function tableFromFeatures(features: GeoFeature[], format: FileFormat, cr
   const seen = new Set<string>();
   const rows: RawRow[] = features.map((f, i) => {
     const values: Record<string, Cell> = {};
+    let unreadable: Record<string, string> | undefined;
     const props = f && typeof f === 'object' && f.properties && typeof f.properties === 'object' ? f.properties : {};
     for (const [k, v] of Object.entries(props)) {
       if (!seen.has(k)) {
         seen.add(k);
         columns.push(k);
       }
-      values[k] = v === null || v === undefined || v === '' ? null : typeof v === 'number' ? v : String(v).trim();
+      // Objects and arrays are never turned into text: String() of a deeply nested list recurses.
+      if (v !== null && typeof v === 'object') {
+        values[k] = null;
+        unreadable = { ...unreadable, [k]: NESTED };
+      } else
+        values[k] = v === null || v === undefined || v === '' ? null : typeof v === 'number' ? v : String(v).trim();
     }
-    return { row: i + 1, values, geometry: f?.geometry ?? null };
+    return { row: i + 1, values, geometry: f?.geometry ?? null, unreadable };
   });
-  return { format, columns, rows, crsHint, hasGeometry: true };
+  return { format, columns, rows, crsHint, prj, hasGeometry: true };
 }
 
 export function readGeoJson(buf: Buffer): RawTable {
@@ -212,20 +273,41 @@ export function readGeoJson(buf: Buffer): RawTable {
 }
 
 export async function readShapefileZip(buf: Buffer): Promise<RawTable> {
-  const { default: shp } = await import('shpjs');
-  let result: unknown;
+  const { parseShp, parseDbf, combine } = await import('shpjs');
+  await refuseDeclaredOver(buf, {
+    maxBytes: MAX_SHAPEFILE_EXPANDED_BYTES,
+    what: 'This zipped shapefile',
+    advice: 'zip fewer layers.',
+    notAZip: 'This file is not a readable zip of a shapefile (.shp, .dbf, .prj).',
+  });
+  const parts = await boundedUnzip(buf, {
+    maxBytes: MAX_SHAPEFILE_EXPANDED_BYTES,
+    what: 'This zipped shapefile',
+    want: (n) => !n.includes('__MACOSX') && /\.(shp|dbf|prj|cpg)$/i.test(n),
+  });
+  const byExt = (base: string, ext: string) =>
+    [...parts.entries()].find(([n]) => n.slice(0, -4) === base && n.slice(-4).toLowerCase() === ext)?.[1];
+  const layers = [...parts.keys()].filter((n) => n.toLowerCase().endsWith('.shp')).map((n) => n.slice(0, -4));
+  if (!layers.length) throw fileError('This zip does not hold a shapefile (.shp, .dbf, .prj).');
+  const prjs = new Set(layers.map((l) => byExt(l, '.prj')?.toString('utf8').trim() ?? ''));
+  if (prjs.size > 1)
+    throw fileError('The layers in this zip use different coordinate systems (.prj files); zip one layer at a time.');
+  const prj = [...prjs][0] || null;
+  const features: GeoFeature[] = [];
   try {
-    // shpjs reads the .shp/.dbf/.prj inside the zip and reprojects to WGS84 from the .prj.
-    result = await shp(buf as unknown as ArrayBuffer);
+    for (const layer of layers) {
+      // No .prj handed to shpjs: the coordinates stay as in the file and are reprojected
+      // once, by the importer, from whichever coordinate system wins (the chosen one or the .prj).
+      const shapes = parseShp(byExt(layer, '.shp')!);
+      const dbf = byExt(layer, '.dbf');
+      const cpg = byExt(layer, '.cpg');
+      const collection = combine([shapes, dbf ? parseDbf(dbf, cpg) : undefined]) as { features: GeoFeature[] };
+      features.push(...collection.features);
+    }
   } catch (err) {
     throw fileError(`This zip does not hold a readable shapefile (.shp, .dbf, .prj): ${(err as Error).message}`);
   }
-  const collections = (Array.isArray(result) ? result : [result]) as { features: GeoFeature[] }[];
-  return tableFromFeatures(
-    collections.flatMap((c) => c.features ?? []),
-    'shapefile',
-    null,
-  );
+  return tableFromFeatures(features, 'shapefile', null, prj);
 }
 
 export async function readTable(fileName: string, buf: Buffer): Promise<RawTable> {
