@@ -16,8 +16,13 @@ export const FORMULA_LEADING = /^(?![-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$)[=+\-@\t
 
 export type CsvCell = string | number | boolean | null | undefined;
 
+/** RFC 4180 CSV: CRLF line ends, the last line ended too. */
 export function toCsv(fields: string[], rows: CsvCell[][]): string {
-  return `${Papa.unparse({ fields, data: rows.map((r) => r.map((c) => c ?? '')) }, { escapeFormulae: FORMULA_LEADING })}\n`;
+  const body = Papa.unparse(
+    { fields, data: rows.map((r) => r.map((c) => c ?? '')) },
+    { escapeFormulae: FORMULA_LEADING, newline: '\r\n' },
+  );
+  return `${body}\r\n`;
 }
 
 /** A cell written by toCsv with the formula guard → the text as it was. */

@@ -20,15 +20,19 @@ export type UnzipOptions = {
   want?: (name: string) => boolean;
   /** How the refusal names the file: "This workbook", "The archive"… */
   what: string;
+  /** A lower cap for single entries (by name), e.g. a manifest that must stay small. */
+  maxEntryBytes?: (name: string) => number;
 };
 
 const mb = (n: number) => `${Math.round(n / 1024 / 1024)} MB`;
 
-function tooBig(o: UnzipOptions) {
+function tooBig(o: UnzipOptions, entry?: { name: string; max: number }) {
   return new HttpError(
     400,
     'bad_file',
-    `${o.what} expands to more than ${mb(o.maxBytes)} when unzipped; it was refused (nothing was read). Split it or save a smaller file.`,
+    entry
+      ? `${o.what} was refused (nothing was read): its part ${entry.name.slice(0, 80)} expands to more than ${entry.max < 1024 * 1024 ? `${Math.round(entry.max / 1024)} KB` : mb(entry.max)}.`
+      : `${o.what} expands to more than ${mb(o.maxBytes)} when unzipped; it was refused (nothing was read). Split it or save a smaller file.`,
   );
 }
 
@@ -37,24 +41,29 @@ export async function boundedUnzip(buf: Buffer, o: UnzipOptions): Promise<Map<st
   const out = new Map<string, Buffer>();
   let left = o.maxBytes;
   let count = 0;
+  let entry: { name: string; max: number } | undefined;
+  // The budget for the entry being read: what is left in all, or its own cap when lower.
+  const budget = () => Math.min(left, entry?.max ?? left);
   // Called by but-unzip for deflated entries only (stored ones come back as they are).
   const inflate = async (raw: Uint8Array) => {
     try {
-      return await inflateRaw(raw, { maxOutputLength: Math.max(1, left) });
+      return await inflateRaw(raw, { maxOutputLength: Math.max(1, budget()) });
     } catch (err) {
-      if ((err as { code?: string }).code === 'ERR_BUFFER_TOO_LARGE') throw tooBig(o);
+      if ((err as { code?: string }).code === 'ERR_BUFFER_TOO_LARGE')
+        throw tooBig(o, entry && entry.max < left ? entry : undefined);
       throw err;
     }
   };
   try {
-    for (const entry of iter(buf, inflate)) {
+    for (const item of iter(buf, inflate)) {
       if (++count > MAX_ZIP_ENTRIES) throw new HttpError(400, 'bad_file', `${o.what} holds more than 10,000 files.`);
-      if (entry.filename.endsWith('/')) continue;
-      if (o.want && !o.want(entry.filename)) continue;
-      const bytes = await entry.read();
-      if (bytes.length > left) throw tooBig(o);
+      if (item.filename.endsWith('/')) continue;
+      if (o.want && !o.want(item.filename)) continue;
+      entry = o.maxEntryBytes ? { name: item.filename, max: o.maxEntryBytes(item.filename) } : undefined;
+      const bytes = await item.read();
+      if (bytes.length > budget()) throw tooBig(o, entry && entry.max < left ? entry : undefined);
       left -= bytes.length;
-      out.set(entry.filename, Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
+      out.set(item.filename, Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
     }
   } catch (err) {
     if (err instanceof HttpError) throw err;
