@@ -89,6 +89,7 @@ export const LengthUnitSchema = z.enum(['mi', 'km', 'ft', 'm']);
 export const WidthUnitSchema = z.enum(['ft', 'm']);
 
 export const ImportModeSchema = z.enum(['all-or-nothing', 'skip-invalid']);
+export type ImportMode = z.infer<typeof ImportModeSchema>;
 
 const jsonField = <T extends z.ZodTypeAny>(inner: T) =>
   z.preprocess((v) => {
