@@ -72,7 +72,10 @@ export function createApp(deps: Deps) {
     pp.initialize(),
     pp.session(),
     express.json({ limit: JSON_LIMIT }),
-    originCheck(() => deps.config.appUrl),
+    originCheck(
+      () => deps.config.appUrl,
+      () => deps.config.allowedOrigins,
+    ),
   );
 
   const routes = createApiRoutes();

@@ -16,6 +16,9 @@ const EnvSchema = z.object({
   TRUST_PROXY: z.enum(['0', '1']).default('0'),
   SIGNIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   SEED_DEMO: z.enum(['0', '1']).default('1'),
+  ALLOWED_ORIGINS: z.string().optional(),
+  ALLOW_RESTORE_BY_ANY_USER: z.enum(['0', '1']).default('0'),
+  RESTORE_RATE_LIMIT: z.coerce.number().int().min(1).default(5),
 });
 
 export type AppConfig = {
@@ -33,6 +36,12 @@ export type AppConfig = {
   trustProxy: boolean;
   signInRateLimit: number;
   seedDemo: boolean;
+  /** Origins besides APP_URL's that may send state-changing requests (comma-separated in ALLOWED_ORIGINS). */
+  allowedOrigins: string[];
+  /** Off by default: only someone who is already an admin of an agency may restore an archive. */
+  restoreByAnyUser: boolean;
+  /** Restores per user per hour. */
+  restoreRateLimit: number;
 };
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
@@ -60,5 +69,18 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     trustProxy: e.TRUST_PROXY === '1',
     signInRateLimit: e.SIGNIN_RATE_LIMIT,
     seedDemo: e.SEED_DEMO === '1',
+    allowedOrigins: (e.ALLOWED_ORIGINS ?? '')
+      .split(',')
+      .map((o) => o.trim())
+      .filter(Boolean)
+      .map((o) => {
+        try {
+          return new URL(o).origin;
+        } catch {
+          throw new Error(`Invalid configuration:\n  ALLOWED_ORIGINS: "${o}" is not a URL`);
+        }
+      }),
+    restoreByAnyUser: e.ALLOW_RESTORE_BY_ANY_USER === '1',
+    restoreRateLimit: e.RESTORE_RATE_LIMIT,
   };
 }

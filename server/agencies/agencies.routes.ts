@@ -1,21 +1,50 @@
-import { eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
+import rateLimit from 'express-rate-limit';
+import type { RequestHandler } from 'express';
 import { z } from 'zod';
 import { AgencyParamsSchema } from '../../shared/schemas/common';
 import { recordAudit } from '../audit';
 import type { Deps } from '../deps';
-import { agencies } from '../db/schema';
-import type { ApiRoutes } from '../http/api';
+import { agencies, memberships } from '../db/schema';
+import type { ApiRoutes, SessionUser } from '../http/api';
 import multer from 'multer';
 import { HttpError } from '../http/errors';
 import { agencyById } from './agencies.repo';
 import { exportAgency, restoreAgency } from './agency-archive';
+import { AgencyNameSchema } from './archive-schemas';
 
+export const MAX_ARCHIVE_UPLOAD_BYTES = 200 * 1024 * 1024;
 const archiveUpload = multer({
   storage: multer.memoryStorage(),
-  limits: { fileSize: 200 * 1024 * 1024, files: 1 },
+  limits: { fileSize: MAX_ARCHIVE_UPLOAD_BYTES, files: 1, fields: 4, parts: 6 },
 }).single('file');
 
-const AgencySettingsSchema = z.object({ name: z.string().trim().min(2).max(120), units: z.enum(['us', 'metric']) });
+const AgencySettingsSchema = z.object({ name: AgencyNameSchema, units: z.enum(['us', 'metric']) });
+
+/**
+ * Restoring creates an agency: only someone who is already an admin of one may do it,
+ * unless the operator opens it to every signed-in user (ALLOW_RESTORE_BY_ANY_USER=1).
+ * Checked before the upload is read.
+ */
+function mayRestore(deps: Deps): RequestHandler {
+  return (req, _res, next) => {
+    if (deps.config.restoreByAnyUser) return next();
+    const user = req.user as SessionUser;
+    const admin = deps.db
+      .select({ id: memberships.id })
+      .from(memberships)
+      .where(and(eq(memberships.userId, user.id), eq(memberships.role, 'admin')))
+      .get();
+    if (admin) return next();
+    next(
+      new HttpError(
+        403,
+        'forbidden',
+        'Only an admin of an agency may restore an agency archive; ask an admin, or the operator (ALLOW_RESTORE_BY_ANY_USER).',
+      ),
+    );
+  };
+}
 
 export function agencyRoutes(api: ApiRoutes, deps: Deps) {
   const view = (id: string) => {
@@ -89,11 +118,26 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
     path: '/api/agencies/restore',
     tag: 'Agency',
     summary:
-      'Restore an agency export into a new agency, with the caller as its admin (multipart: file, optional name)',
+      'Restore an agency export into a new agency, with the caller as its admin (multipart: file, optional name). Only admins of an agency may restore (unless the operator allows everyone); every file is checked and nothing is written unless all of it is sound.',
     access: { kind: 'signed-in' },
-    body: z.object({ name: z.string().trim().min(2).max(120).optional() }),
+    body: z.object({ name: AgencyNameSchema.optional() }),
     status: 201,
     before: [
+      mayRestore(deps),
+      rateLimit({
+        windowMs: 60 * 60 * 1000,
+        limit: deps.config.restoreRateLimit,
+        standardHeaders: 'draft-8',
+        legacyHeaders: false,
+        keyGenerator: (req) => `restore|${(req.user as SessionUser).id}`,
+        handler: (_req, res) =>
+          res.status(429).json({
+            error: {
+              code: 'rate_limited',
+              message: `At most ${deps.config.restoreRateLimit} restores an hour; try again later.`,
+            },
+          }),
+      }),
       (req, res, next) => {
         if (!req.is('multipart/form-data'))
           return next(
@@ -103,9 +147,12 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
               'Send the archive as multipart/form-data with the field "file"',
             ),
           );
-        archiveUpload(req, res, (err: unknown) =>
-          err ? next(new HttpError(400, 'bad_upload', `Upload refused: ${(err as Error).message}`)) : next(),
-        );
+        archiveUpload(req, res, (err: unknown) => {
+          if (!err) return next();
+          if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE')
+            return next(new HttpError(413, 'file_too_large', 'The archive is larger than the 200 MB limit'));
+          next(new HttpError(400, 'bad_upload', `Upload refused: ${(err as Error).message}`));
+        });
       },
     ],
     handler: async ({ user, body, req }) => {

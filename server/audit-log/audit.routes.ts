@@ -1,10 +1,10 @@
 import { and, desc, eq, gte, like, lte, sql, type SQL } from 'drizzle-orm';
-import Papa from 'papaparse';
 import { z } from 'zod';
 import { AgencyParamsSchema } from '../../shared/schemas/common';
 import type { Deps } from '../deps';
 import { auditLog, users } from '../db/schema';
 import type { ApiRoutes } from '../http/api';
+import { auditCsv } from './audit.export';
 
 const AuditQuerySchema = z.object({
   action: z.string().trim().max(60).optional(),
@@ -68,9 +68,7 @@ export function auditRoutes(api: ApiRoutes, deps: Deps) {
       const { items } = query(deps, agency!.id, q, true);
       res.setHeader('Content-Type', 'text/csv; charset=utf-8');
       res.setHeader('Content-Disposition', 'attachment; filename="activity.csv"');
-      res.send(
-        `${Papa.unparse({ fields: ['at', 'user', 'action', 'entity', 'entity_id', 'detail'], data: items.map((i) => [i.at, i.userEmail ?? '', i.action, i.entity, i.entityId ?? '', i.detail ? JSON.stringify(i.detail) : '']) })}\n`,
-      );
+      res.send(auditCsv(items));
     },
   });
 }

@@ -13,15 +13,22 @@ import { OkSchema } from '../../shared/schemas/common';
 import type { ApiRoutes } from '../http/api';
 import type { Deps } from '../deps';
 import * as service from './auth.service';
+import { normalizeEmail } from './emails';
 import { authenticateLocal, logIn, logOut } from './passport';
 
 export function authRoutes(api: ApiRoutes, deps: Deps, pp: PassportStatic) {
-  const limiter = (limit: number, keyOf: (body: Record<string, unknown>) => string) =>
+  const limiter = (
+    limit: number,
+    keyOf: (body: Record<string, unknown>) => string,
+    opts: { skipSuccessfulRequests?: boolean } = {},
+  ) =>
     rateLimit({
       windowMs: 15 * 60 * 1000,
       limit,
-      standardHeaders: 'draft-8',
+      // draft-7 headers: draft-8's policy header carries a hash of the key (the e-mail).
+      standardHeaders: 'draft-7',
       legacyHeaders: false,
+      ...opts,
       // Keyed by address and account, so one office behind one address is not locked out together.
       keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${keyOf((req.body ?? {}) as Record<string, unknown>)}`,
       handler: (_req, res) =>
@@ -29,8 +36,11 @@ export function authRoutes(api: ApiRoutes, deps: Deps, pp: PassportStatic) {
           .status(429)
           .json({ error: { code: 'rate_limited', message: 'Too many attempts. Wait 15 minutes and try again.' } }),
     });
-  const byEmail = (b: Record<string, unknown>) => String(b.email ?? '').toLowerCase();
-  const signInLimit = limiter(deps.config.signInRateLimit, byEmail);
+  // The same normalisation as the account look-up (EmailSchema: trim, lower case), so
+  // " User@x" does not get a fresh budget of its own.
+  const byEmail = (b: Record<string, unknown>) => normalizeEmail(b.email);
+  // Only failed sign-ins count: someone who signs in and out all day is never locked out.
+  const signInLimit = limiter(deps.config.signInRateLimit, byEmail, { skipSuccessfulRequests: true });
   const resetLimit = limiter(deps.config.signInRateLimit, byEmail);
 
   api.add({
@@ -82,8 +92,12 @@ export function authRoutes(api: ApiRoutes, deps: Deps, pp: PassportStatic) {
     body: ForgotPasswordBodySchema,
     response: OkSchema,
     before: [resetLimit],
-    handler: async ({ body }) => {
-      await service.requestPasswordReset(deps, body.email);
+    handler: ({ body }) => {
+      // Answered before the account is even looked up: the answer takes the same time and
+      // says the same thing whether or not the account exists. The mail goes out after.
+      setImmediate(() => {
+        service.requestPasswordReset(deps, body.email).catch((err) => console.error('password reset mail:', err));
+      });
       return { ok: true };
     },
   });

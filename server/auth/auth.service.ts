@@ -1,5 +1,5 @@
 import { and, eq, gt, isNull, sql } from 'drizzle-orm';
-import type { Role } from '../../shared/schemas/common';
+import { ROLE_RANK, type Role } from '../../shared/schemas/common';
 import { membershipsOf } from '../agencies/agencies.repo';
 import { recordAudit } from '../audit';
 import type { Deps } from '../deps';
@@ -57,6 +57,11 @@ export async function resetPassword(deps: Deps, token: string, password: string)
       .where(and(eq(passwordResets.id, row.id), isNull(passwordResets.usedAt)))
       .run();
     if (used.changes !== 1) throw new HttpError(400, 'invalid_token', 'This reset link has already been used.');
+    // Any other link still out for this account stops working: only the newest use counts.
+    tx.update(passwordResets)
+      .set({ usedAt: now })
+      .where(and(eq(passwordResets.userId, row.userId), isNull(passwordResets.usedAt)))
+      .run();
     tx.update(users)
       .set({ passwordHash, sessionVersion: sql`${users.sessionVersion} + 1` })
       .where(eq(users.id, row.userId))
@@ -137,9 +142,17 @@ export async function acceptInvitation(
       .run();
     if (taken.changes !== 1) throw new HttpError(404, 'invalid_token', 'This invitation has already been used.');
     if (newUser) tx.insert(users).values(newUser).run();
+    // An invitation grants access; it never lowers a role someone already has. A stale
+    // viewer invitation accepted by the agency's only admin leaves them admin.
+    const current = tx
+      .select({ role: memberships.role })
+      .from(memberships)
+      .where(and(eq(memberships.agencyId, inv.agencyId), eq(memberships.userId, userId)))
+      .get();
+    const role = current && ROLE_RANK[current.role] >= ROLE_RANK[inv.role] ? current.role : inv.role;
     tx.insert(memberships)
-      .values({ agencyId: inv.agencyId, userId, role: inv.role })
-      .onConflictDoUpdate({ target: [memberships.agencyId, memberships.userId], set: { role: inv.role } })
+      .values({ agencyId: inv.agencyId, userId, role })
+      .onConflictDoUpdate({ target: [memberships.agencyId, memberships.userId], set: { role } })
       .run();
     recordAudit(tx, {
       agencyId: inv.agencyId,
@@ -147,7 +160,7 @@ export async function acceptInvitation(
       action: 'membership.join',
       entity: 'membership',
       entityId: userId,
-      detail: { role: inv.role, email: inv.email },
+      detail: { role, invitedAs: inv.role, email: inv.email, before: current?.role ?? null },
     });
   });
   const u = deps.db.select().from(users).where(eq(users.id, userId)).get()!;

@@ -7,6 +7,7 @@ import { users } from '../db/schema';
 import { statement } from '../db/statements';
 import type { SessionUser } from '../http/api';
 import { HttpError } from '../http/errors';
+import { normalizeEmail } from './emails';
 import { hashPassword, verifyPassword } from './passwords';
 
 let dummyHash: Promise<string> | null = null;
@@ -18,7 +19,11 @@ export function createPassport(deps: Deps): PassportStatic {
   const pp = new passport.Passport() as unknown as PassportStatic;
   pp.use(
     new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true }, (email, password, done) => {
-      const row = deps.db.select().from(users).where(eq(users.email, email.trim().toLowerCase())).get();
+      const row = deps.db
+        .select()
+        .from(users)
+        .where(eq(users.email, normalizeEmail(email)))
+        .get();
       const fail = () => done(null, false, { message: 'Wrong e-mail or password' });
       if (!row) {
         // Spend comparable time so a missing account is not revealed by timing.

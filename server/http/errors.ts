@@ -26,6 +26,33 @@ export function zodIssues(err: ZodError, prefix = '') {
   }));
 }
 
+// SQLite's own refusals that are the server's condition, not a bug: said in words, with
+// the status a client can act on. Nothing was written (the statement's transaction rolled back).
+const SQLITE_CONDITIONS: Record<string, { status: number; code: string; message: string }> = {
+  SQLITE_FULL: {
+    status: 507,
+    code: 'storage_full',
+    message:
+      'The server’s disk is full, so nothing was saved. Tell whoever runs Wearcourse; try again once space is freed.',
+  },
+  SQLITE_BUSY: {
+    status: 503,
+    code: 'busy',
+    message: 'The database is busy with other work; nothing was saved. Try again in a moment.',
+  },
+  SQLITE_READONLY: {
+    status: 503,
+    code: 'read_only',
+    message: 'The database is read-only on this server, so nothing was saved. Tell whoever runs Wearcourse.',
+  },
+};
+
+const sqliteCondition = (err: unknown) => {
+  const code = err && typeof err === 'object' && 'code' in err ? String(err.code) : '';
+  // better-sqlite3 names extended codes too (SQLITE_BUSY_SNAPSHOT, SQLITE_READONLY_DBMOVED…).
+  return SQLITE_CONDITIONS[code] ?? SQLITE_CONDITIONS[code.split('_').slice(0, 2).join('_')] ?? null;
+};
+
 // The one error handler: stable JSON shape, never a stack trace to the client.
 export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
   let status = 500;
@@ -53,6 +80,11 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
       'encoding.unsupported': 'Unsupported content encoding',
     };
     body = { error: { code: String(err.type), message: messages[String(err.type)] ?? 'Malformed request' } };
+  } else if (sqliteCondition(err)) {
+    const c = sqliteCondition(err)!;
+    console.error(`${c.code}:`, (err as Error).message);
+    status = c.status;
+    body = { error: { code: c.code, message: c.message } };
   } else {
     console.error(err);
   }

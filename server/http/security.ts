@@ -29,25 +29,45 @@ export function securityHeaders(secure: boolean): RequestHandler {
 }
 
 const UNSAFE = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
+const LOOPBACK_NAMES = new Set(['localhost', '127.0.0.1', '[::1]']);
+
+/**
+ * The origins allowed to send state-changing requests: APP_URL's and the configured
+ * ALLOWED_ORIGINS. Never "whatever Host the request names": under DNS rebinding an
+ * attacker's name resolves to this server and the browser sends Host and Origin alike.
+ * A loopback APP_URL (http://localhost:3000) also accepts 127.0.0.1 and [::1] on the
+ * same port — IP literals cannot be rebound.
+ */
+export function allowedOrigins(appUrl: string, extra: string[]): Set<string> {
+  const app = new URL(appUrl);
+  const out = new Set([app.origin, ...extra]);
+  if (LOOPBACK_NAMES.has(app.hostname))
+    for (const h of LOOPBACK_NAMES) out.add(`${app.protocol}//${h}${app.port ? `:${app.port}` : ''}`);
+  return out;
+}
 
 // CSRF defence for cookie sessions: a state-changing request must say where it
-// comes from, and that must be this server (or the configured public URL).
-export function originCheck(appUrl: () => string): RequestHandler {
+// comes from (Origin, or Referer when a client sends no Origin), and that must be
+// one of the allowed origins.
+export function originCheck(appUrl: () => string, extra: () => string[] = () => []): RequestHandler {
+  let cached: { key: string; set: Set<string> } | null = null;
   return (req, res, next) => {
     if (!UNSAFE.has(req.method)) return next();
-    const allowed = new URL(appUrl()).host;
+    const key = `${appUrl()}|${extra().join(',')}`;
+    if (cached?.key !== key) cached = { key, set: allowedOrigins(appUrl(), extra()) };
     const source = req.get('origin') ?? req.get('referer');
-    let host: string | null = null;
+    let origin: string | null = null;
     try {
-      host = source && source !== 'null' ? new URL(source).host : null;
+      origin = source && source !== 'null' ? new URL(source).origin : null;
     } catch {
-      host = null;
+      origin = null;
     }
-    if (host && (host === allowed || host === req.get('host'))) return next();
+    if (origin && cached.set.has(origin)) return next();
     res.status(403).json({
       error: {
         code: 'bad_origin',
-        message: 'Cross-site or origin-less request refused; send an Origin header for this server',
+        message:
+          'Cross-site or origin-less request refused; send an Origin header of this server (its public address, APP_URL)',
       },
     });
   };

@@ -5,16 +5,17 @@ import { importMappings, imports, segments, surveys, users } from '../db/schema'
 
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
-export function savedMapping(db: Db, agencyId: string, kind: string): Record<string, string> | null {
+export function savedMapping(db: Db, agencyId: string, kind: string): unknown {
   const row = db
     .select({ mapping: importMappings.mapping })
     .from(importMappings)
     .where(and(eq(importMappings.agencyId, agencyId), eq(importMappings.kind, kind)))
     .get();
-  return row ? (JSON.parse(row.mapping) as Record<string, string>) : null;
+  return row ? JSON.parse(row.mapping) : null;
 }
 
-export function saveMapping(tx: Tx, agencyId: string, kind: string, mapping: Record<string, string>) {
+/** A column mapping (kind segments / surveys) or a value matching (kind segments-values). */
+export function saveMapping(tx: Tx, agencyId: string, kind: string, mapping: unknown) {
   tx.insert(importMappings)
     .values({ agencyId, kind, mapping: JSON.stringify(mapping) })
     .onConflictDoUpdate({

@@ -1,6 +1,13 @@
 // Guesses which of the file's columns holds each of our fields, from header
 // names. A saved mapping for the agency wins where its columns exist.
-import { SEGMENT_FIELDS, SURVEY_FIELDS, type SegmentField, type SurveyField } from '../../shared/schemas/imports';
+import {
+  EXPORT_HEADERS,
+  FIELD_LABELS,
+  SEGMENT_FIELDS,
+  SURVEY_FIELDS,
+  type SegmentField,
+  type SurveyField,
+} from '../../shared/schemas/imports';
 
 type Field = SegmentField | SurveyField;
 
@@ -64,6 +71,44 @@ export function fieldsFor(kind: 'segments' | 'surveys'): readonly Field[] {
   return kind === 'segments' ? SEGMENT_FIELDS : SURVEY_FIELDS;
 }
 
+// Unit words a header may end with, longest first so "kilometer" is never read as "meter"
+// and "mi" never as "m". Every spelling here is tested (tests/api/import-units.test.ts).
+export const LENGTH_UNIT_WORDS: [string, 'mi' | 'km' | 'ft' | 'm'][] = [
+  ['kilometres', 'km'],
+  ['kilometers', 'km'],
+  ['kilometre', 'km'],
+  ['kilometer', 'km'],
+  ['miles', 'mi'],
+  ['metres', 'm'],
+  ['meters', 'm'],
+  ['metre', 'm'],
+  ['meter', 'm'],
+  ['mile', 'mi'],
+  ['feet', 'ft'],
+  ['foot', 'ft'],
+  ['kms', 'km'],
+  ['km', 'km'],
+  ['mi', 'mi'],
+  ['ft', 'ft'],
+  ['m', 'm'],
+];
+export const WIDTH_UNIT_WORDS = LENGTH_UNIT_WORDS.filter(([, u]) => u === 'ft' || u === 'm') as [string, 'ft' | 'm'][];
+
+const LENGTH_WORDS = /^(segment|seg)?(length|len)(in)?$/;
+const WIDTH_WORDS = /^(pavement|pave|surface|road)?(width|wid)(in)?$/;
+
+/** The unit a header names ("length_kilometer" → km), or null when it names none. */
+function unitOf<U extends string>(header: string, units: [string, U][], base: RegExp): U | null {
+  const h = norm(header);
+  for (const [word, unit] of units) {
+    if (!h.endsWith(word)) continue;
+    const rest = h.slice(0, -word.length);
+    // A bare unit ("Miles", "km") or a length/width word before it; nothing else ("lengthnum" is no metre).
+    if (rest === '' || base.test(rest)) return unit;
+  }
+  return null;
+}
+
 export function guessMapping(
   columns: string[],
   kind: 'segments' | 'surveys',
@@ -79,13 +124,17 @@ export function guessMapping(
       used.add(fromSaved);
       continue;
     }
-    for (const candidate of [norm(field), ...SYNONYMS[field]]) {
-      const col = byNorm.get(candidate);
-      if (col && !used.has(col)) {
-        mapping[field] = col;
-        used.add(col);
-        break;
-      }
+    const own = [norm(field), norm(FIELD_LABELS[field])];
+    if (field in EXPORT_HEADERS) own.push(norm(EXPORT_HEADERS[field as SegmentField]));
+    let col = [...own, ...SYNONYMS[field]].map((c) => byNorm.get(c)).find((c) => c && !used.has(c));
+    // "Length (km)", "length_kilometer", "Width in metres"…
+    if (!col && field === 'length_mi')
+      col = columns.find((c) => !used.has(c) && unitOf(c, LENGTH_UNIT_WORDS, LENGTH_WORDS) !== null);
+    if (!col && field === 'width_ft')
+      col = columns.find((c) => !used.has(c) && unitOf(c, WIDTH_UNIT_WORDS, WIDTH_WORDS) !== null);
+    if (col) {
+      mapping[field] = col;
+      used.add(col);
     }
   }
   return mapping;
@@ -93,16 +142,8 @@ export function guessMapping(
 
 /** Units named in the header ("length_km", "Width (m)"), when the user chose none. */
 export function unitsFromHeaders(mapping: Record<string, string>) {
-  const len = norm(mapping.length_mi ?? '');
-  const wid = norm(mapping.width_ft ?? '');
-  const metres = /met(re|er)s?$/;
-  const length = /(km|kilometres|kilometers)$/.test(len)
-    ? 'km'
-    : /(ft|feet)$/.test(len)
-      ? 'ft'
-      : len === 'lengthm' || metres.test(len)
-        ? 'm'
-        : 'mi';
-  const width = wid === 'widthm' || metres.test(wid) ? 'm' : 'ft';
-  return { length: length as 'mi' | 'km' | 'ft' | 'm', width: width as 'ft' | 'm' };
+  return {
+    length: (mapping.length_mi && unitOf(mapping.length_mi, LENGTH_UNIT_WORDS, LENGTH_WORDS)) || 'mi',
+    width: (mapping.width_ft && unitOf(mapping.width_ft, WIDTH_UNIT_WORDS, WIDTH_WORDS)) || 'ft',
+  } as { length: 'mi' | 'km' | 'ft' | 'm'; width: 'ft' | 'm' };
 }

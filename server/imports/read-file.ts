@@ -4,26 +4,22 @@
 import ExcelJS from 'exceljs';
 import JSZip from 'jszip';
 import Papa from 'papaparse';
-import { HttpError } from '../http/errors';
+import { unescapeFormula } from '../csv';
+import { boundedUnzip } from './bounded-unzip';
+import {
+  type Cell,
+  type FileFormat,
+  fileError,
+  MAX_ROWS,
+  MAX_WORKBOOK_EXPANDED_BYTES,
+  type RawRow,
+  type RawTable,
+  refuseDeclaredOver,
+} from './raw-table';
+import { readGeoJson, readShapefileZip } from './read-gis';
 
-export type Cell = string | number | null;
-export type Geometry = { type: string; coordinates: unknown };
-export type RawRow = { row: number; values: Record<string, Cell>; geometry?: Geometry | null };
-export type FileFormat = 'csv' | 'xlsx' | 'geojson' | 'shapefile';
-export type RawTable = {
-  format: FileFormat;
-  columns: string[];
-  rows: RawRow[];
-  /** CRS named by the file itself (GeoJSON `crs` member, shapefile .prj). */
-  crsHint: string | null;
-  hasGeometry: boolean;
-};
-
-export const MAX_ROWS = 100_000;
-/** A workbook may expand to at most this much when unzipped (a zip bomb is refused before it is inflated). */
-export const MAX_WORKBOOK_EXPANDED_BYTES = 200 * 1024 * 1024;
-
-const fileError = (message: string) => new HttpError(400, 'bad_file', message);
+export * from './raw-table';
+export { readGeoJson, readShapefileZip, tableFromFeatures } from './read-gis';
 
 export function detectFormat(fileName: string, buf: Buffer): FileFormat {
   const name = fileName.toLowerCase();
@@ -47,13 +43,16 @@ function checkColumns(columns: string[]) {
     seen.add(key);
   });
 }
+const DELIMITERS = [',', ';', '\t', '|'];
 
-/** The sizes a zip declares for its parts, read from its directory without inflating anything. */
-export function zipExpandedBytes(zip: JSZip) {
-  let total = 0;
-  for (const f of Object.values(zip.files))
-    total += (f as unknown as { _data?: { uncompressedSize?: number } })._data?.uncompressedSize ?? 0;
-  return total;
+/**
+ * The separator is read off the header row (the one most used outside quotes):
+ * guessing from all rows is misled by decimal commas ("0,125") in a file separated by semicolons.
+ */
+function delimiterOf(text: string): { delimiter: string } | { delimitersToGuess: string[] } {
+  const header = (text.match(/^[^\r\n]*/)?.[0] ?? '').replace(/"[^"]*"/g, '');
+  const counts = DELIMITERS.map((d) => [d, header.split(d).length - 1] as const).sort((a, b) => b[1] - a[1]);
+  return counts[0][1] > 0 ? { delimiter: counts[0][0] } : { delimitersToGuess: DELIMITERS };
 }
 
 export function readCsv(buf: Buffer): RawTable {
@@ -61,7 +60,7 @@ export function readCsv(buf: Buffer): RawTable {
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1); // BOM from spreadsheet exports
   if (text.includes('\u0000')) throw fileError('This file is binary, not CSV text.');
   if (text.trim() === '') throw fileError('The file is empty.');
-  const parsed = Papa.parse<string[]>(text, { skipEmptyLines: false, delimitersToGuess: [',', ';', '\t', '|'] });
+  const parsed = Papa.parse<string[]>(text, { skipEmptyLines: false, ...delimiterOf(text) });
   const data = parsed.data;
   const header = (data[0] ?? []).map((h) => String(h).trim());
   // Every import needs several columns: one column means the separator was not understood.
@@ -80,7 +79,7 @@ export function readCsv(buf: Buffer): RawTable {
     const values: Record<string, Cell> = {};
     header.forEach((h, j) => {
       const v = line[j];
-      values[h] = v === undefined || String(v).trim() === '' ? null : String(v).trim();
+      values[h] = v === undefined || String(v).trim() === '' ? null : unescapeFormula(String(v).trim());
     });
     if (line.length > header.length && line.slice(header.length).some((v) => String(v).trim() !== '')) {
       values.__extra = `${line.length} values for ${header.length} columns`;
@@ -88,13 +87,13 @@ export function readCsv(buf: Buffer): RawTable {
     rows.push({ row: i + 1, values });
   }
   if (rows.length === 0) throw fileError('The file has a header row but no data rows.');
-  return { format: 'csv', columns: header, rows, crsHint: null, hasGeometry: false };
+  return { format: 'csv', columns: header, rows, crsHint: null, prj: null, hasGeometry: false };
 }
 
 function cellValue(v: ExcelJS.CellValue): Cell {
   if (v === null || v === undefined) return null;
   if (typeof v === 'number') return v;
-  if (typeof v === 'string') return v.trim() === '' ? null : v.trim();
+  if (typeof v === 'string') return v.trim() === '' ? null : unescapeFormula(v.trim());
   if (typeof v === 'boolean') return String(v);
   if (v instanceof Date) return v.toISOString().slice(0, 10);
   if (typeof v === 'object') {
@@ -114,22 +113,22 @@ function cellValue(v: ExcelJS.CellValue): Cell {
 
 export async function readXlsx(buf: Buffer): Promise<RawTable> {
   if (buf.subarray(0, 2).toString('latin1') !== 'PK') throw fileError('This file is not an Excel workbook (.xlsx).');
-  let zip: JSZip;
-  try {
-    zip = await JSZip.loadAsync(buf);
-  } catch {
-    throw fileError('This file is not a readable Excel workbook (.xlsx).');
-  }
-  const expanded = zipExpandedBytes(zip);
-  if (expanded > MAX_WORKBOOK_EXPANDED_BYTES) {
-    throw fileError(
-      `This workbook expands to ${Math.round(expanded / 1024 / 1024)} MB when unzipped, more than the ${MAX_WORKBOOK_EXPANDED_BYTES / 1024 / 1024} MB limit; save it as CSV or split it.`,
-    );
-  }
-  if (!zip.file('[Content_Types].xml')) throw fileError('This zip is not an Excel workbook (.xlsx).');
+  await refuseDeclaredOver(buf, {
+    maxBytes: MAX_WORKBOOK_EXPANDED_BYTES,
+    what: 'This workbook',
+    advice: 'save it as CSV or split it.',
+    notAZip: 'This file is not a readable Excel workbook (.xlsx).',
+  });
+  // Inflate under the hard cap first; ExcelJS then reads only what was inflated here
+  // (re-packed without compression), never the original zip.
+  const parts = await boundedUnzip(buf, { maxBytes: MAX_WORKBOOK_EXPANDED_BYTES, what: 'This workbook' });
+  if (!parts.has('[Content_Types].xml')) throw fileError('This zip is not an Excel workbook (.xlsx).');
+  const stored = new JSZip();
+  for (const [name, bytes] of parts) stored.file(name, bytes);
   const wb = new ExcelJS.Workbook();
   try {
-    await wb.xlsx.load(buf as unknown as ArrayBuffer);
+    const repacked = await stored.generateAsync({ type: 'nodebuffer', compression: 'STORE' });
+    await wb.xlsx.load(repacked as unknown as ArrayBuffer);
   } catch {
     throw fileError('This file is not a readable Excel workbook (.xlsx).');
   }
@@ -159,73 +158,7 @@ export async function readXlsx(buf: Buffer): Promise<RawTable> {
   });
   checkColumns(header);
   if (rows.length === 0) throw fileError('The sheet has a header row but no data rows.');
-  return { format: 'xlsx', columns: header, rows, crsHint: null, hasGeometry: false };
-}
-
-type GeoFeature = { type?: string; properties?: Record<string, unknown> | null; geometry?: Geometry | null };
-
-function crsFromGeoJson(doc: { crs?: { properties?: { name?: string } } }): string | null {
-  const name = doc.crs?.properties?.name;
-  if (!name) return null;
-  const m = String(name).match(/EPSG:{1,2}(\d+)/i);
-  if (!m) return null;
-  return m[1] === '4326' || /CRS84/i.test(name) ? null : `EPSG:${m[1]}`;
-}
-
-export function tableFromFeatures(features: GeoFeature[], format: FileFormat, crsHint: string | null): RawTable {
-  if (features.length === 0) throw fileError('The file has no features.');
-  if (features.length > MAX_ROWS)
-    throw fileError(`The file has more than ${MAX_ROWS.toLocaleString('en-US')} features; split it.`);
-  const columns: string[] = [];
-  const seen = new Set<string>();
-  const rows: RawRow[] = features.map((f, i) => {
-    const values: Record<string, Cell> = {};
-    const props = f && typeof f === 'object' && f.properties && typeof f.properties === 'object' ? f.properties : {};
-    for (const [k, v] of Object.entries(props)) {
-      if (!seen.has(k)) {
-        seen.add(k);
-        columns.push(k);
-      }
-      values[k] = v === null || v === undefined || v === '' ? null : typeof v === 'number' ? v : String(v).trim();
-    }
-    return { row: i + 1, values, geometry: f?.geometry ?? null };
-  });
-  return { format, columns, rows, crsHint, hasGeometry: true };
-}
-
-export function readGeoJson(buf: Buffer): RawTable {
-  let doc: unknown;
-  try {
-    let text = buf.toString('utf8');
-    if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
-    doc = JSON.parse(text);
-  } catch {
-    throw fileError('This file is not valid JSON, so it cannot be read as GeoJSON.');
-  }
-  if (!doc || typeof doc !== 'object') throw fileError('This file is not GeoJSON (expected a FeatureCollection).');
-  const d = doc as { type?: string; features?: unknown };
-  let features: GeoFeature[];
-  if (d.type === 'FeatureCollection' && Array.isArray(d.features)) features = d.features as GeoFeature[];
-  else if (d.type === 'Feature') features = [d as GeoFeature];
-  else throw fileError('This file is not GeoJSON (expected a FeatureCollection of LineString features).');
-  return tableFromFeatures(features, 'geojson', crsFromGeoJson(doc as never));
-}
-
-export async function readShapefileZip(buf: Buffer): Promise<RawTable> {
-  const { default: shp } = await import('shpjs');
-  let result: unknown;
-  try {
-    // shpjs reads the .shp/.dbf/.prj inside the zip and reprojects to WGS84 from the .prj.
-    result = await shp(buf as unknown as ArrayBuffer);
-  } catch (err) {
-    throw fileError(`This zip does not hold a readable shapefile (.shp, .dbf, .prj): ${(err as Error).message}`);
-  }
-  const collections = (Array.isArray(result) ? result : [result]) as { features: GeoFeature[] }[];
-  return tableFromFeatures(
-    collections.flatMap((c) => c.features ?? []),
-    'shapefile',
-    null,
-  );
+  return { format: 'xlsx', columns: header, rows, crsHint: null, prj: null, hasGeometry: false };
 }
 
 export async function readTable(fileName: string, buf: Buffer): Promise<RawTable> {

@@ -1,28 +1,33 @@
 // A saved comparison as CSV or XLSX: the ranked results, cost lines and cash flows.
 import ExcelJS from 'exceljs';
-import Papa from 'papaparse';
 import type { StudyResult } from '../../shared/engine/lcca/study';
+import { toCsv } from '../csv';
 
-export function resultRows(result: StudyResult) {
+/** One row per alternative, keyed by plain-word headers (the CSV and the workbook's first sheet). */
+export function resultRows(result: StudyResult): Record<string, string | number>[] {
   return result.alternatives.map((a, i) => ({
-    alternative: a.name,
-    rank: result.ranking.indexOf(i) + 1,
-    net_present_value: Math.round(a.presentValue),
-    euac: Math.round(a.euac),
-    npv_per_lane_mile: Math.round(a.perLaneMile),
-    first_cost: Math.round(a.firstCost),
-    initial_tons: Math.round(a.initialTons),
-    remaining_life_value: Math.round(a.remainingServiceLifeValue),
-    savings_vs_baseline: Math.round(result.vsBaseline[i].savings),
-    savings_per_lane_mile: Math.round(result.vsBaseline[i].savingsPerLaneMile),
-    probability_cheapest: result.monteCarlo ? result.monteCarlo.probabilityCheapest[i] : '',
-    p5: result.monteCarlo ? Math.round(result.monteCarlo.stats[i].p5) : '',
-    p95: result.monteCarlo ? Math.round(result.monteCarlo.stats[i].p95) : '',
+    Alternative: a.name,
+    Rank: result.ranking.indexOf(i) + 1,
+    'Present value ($)': Math.round(a.presentValue),
+    'EUAC ($ per year)': Math.round(a.euac),
+    'Present value per lane-mile ($)': Math.round(a.perLaneMile),
+    'First cost ($)': Math.round(a.firstCost),
+    'Initial tons': Math.round(a.initialTons),
+    'Remaining life value ($)': Math.round(a.remainingServiceLifeValue),
+    'Savings against the baseline ($)': Math.round(result.vsBaseline[i].savings),
+    'Savings per lane-mile ($)': Math.round(result.vsBaseline[i].savingsPerLaneMile),
+    'Probability cheapest': result.monteCarlo ? result.monteCarlo.probabilityCheapest[i] : '',
+    'Present value, 5th percentile ($)': result.monteCarlo ? Math.round(result.monteCarlo.stats[i].p5) : '',
+    'Present value, 95th percentile ($)': result.monteCarlo ? Math.round(result.monteCarlo.stats[i].p95) : '',
   }));
 }
 
 export function studyCsv(result: StudyResult) {
-  return `${Papa.unparse(resultRows(result))}\n`;
+  const rows = resultRows(result);
+  return toCsv(
+    Object.keys(rows[0] ?? {}),
+    rows.map((r) => Object.values(r)),
+  );
 }
 
 export async function studyXlsx(name: string, result: StudyResult) {
@@ -35,23 +40,23 @@ export async function studyXlsx(name: string, result: StudyResult) {
   summary.getRow(1).font = { bold: true };
   const flows = wb.addWorksheet('Cash flows');
   flows.columns = [
-    { header: 'alternative', key: 'a', width: 30 },
-    { header: 'year', key: 'y' },
-    { header: 'activity', key: 'l', width: 50 },
-    { header: 'cost', key: 'c', width: 14 },
-    { header: 'present_value', key: 'p', width: 14 },
+    { header: 'Alternative', key: 'a', width: 30 },
+    { header: 'Year', key: 'y' },
+    { header: 'Activity', key: 'l', width: 50 },
+    { header: 'Cost ($)', key: 'c', width: 14 },
+    { header: 'Present value ($)', key: 'p', width: 14 },
   ];
   for (const a of result.alternatives)
     for (const c of a.cashFlows)
       flows.addRow({ a: a.name, y: c.year, l: c.label, c: Math.round(c.cost), p: Math.round(c.presentValue) });
   const lines = wb.addWorksheet('First cost lines');
   lines.columns = [
-    { header: 'alternative', key: 'a', width: 30 },
-    { header: 'item', key: 'l', width: 60 },
-    { header: 'quantity', key: 'q', width: 14 },
-    { header: 'unit', key: 'u' },
-    { header: 'unit_cost', key: 'uc', width: 12 },
-    { header: 'amount', key: 'm', width: 14 },
+    { header: 'Alternative', key: 'a', width: 30 },
+    { header: 'Item', key: 'l', width: 60 },
+    { header: 'Quantity', key: 'q', width: 14 },
+    { header: 'Unit', key: 'u' },
+    { header: 'Unit cost ($)', key: 'uc', width: 12 },
+    { header: 'Amount ($)', key: 'm', width: 14 },
   ];
   for (const a of result.alternatives)
     for (const l of a.initial.costLines.lines)

@@ -21,6 +21,11 @@ const int = (v: number) => Math.round(v).toLocaleString('en-US');
 
 type Geometry = { type: string; coordinates: number[][] | number[][][] };
 
+// The schemas bound every name at the input (agency and plan names 120 characters, road
+// names 120, segment ids 60); this is only the last guard, since laying out a very long
+// string froze pdfkit for seconds.
+const clip = (s: string, max = 120) => (s.length > max ? `${s.slice(0, max - 1)}…` : s);
+
 export async function briefPdf(args: {
   plan: { name: string; status: string; settings: unknown };
   result: PlanResult;
@@ -28,7 +33,10 @@ export async function briefPdf(args: {
   author: string;
   agencyName: string;
 }) {
-  const { plan, result: r, geometries, author, agencyName } = args;
+  const { result: r, geometries } = args;
+  const plan = { ...args.plan, name: clip(args.plan.name) };
+  const author = clip(args.author);
+  const agencyName = clip(args.agencyName);
   const doc = new PDFDocument({
     size: 'LETTER',
     margins: { top: 54, bottom: 54, left: 54, right: 54 },
@@ -271,9 +279,9 @@ export async function briefPdf(args: {
   for (const w of shown)
     row([
       String(w.calendarYear),
-      w.segmentId,
-      w.roadName,
-      w.treatment,
+      clip(w.segmentId, 60),
+      clip(w.roadName),
+      clip(w.treatment, 80),
       w.tons ? int(w.tons) : '—',
       int(w.areaSy),
       money(w.cost),

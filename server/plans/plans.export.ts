@@ -1,59 +1,47 @@
 // Work lists as CSV or XLSX: one row per treated segment, by year.
 import ExcelJS from 'exceljs';
-import Papa from 'papaparse';
 import type { PlanResult } from '../../shared/engine/plan/run-plan';
+import { toCsv } from '../csv';
 
-const rows = (r: PlanResult) =>
-  r.work.map((w) => ({
-    year: w.calendarYear,
-    segment_id: w.segmentId,
-    road_name: w.roadName,
-    treatment: w.treatment,
-    mix: w.mix ?? '',
-    thickness_in: w.thicknessIn ?? '',
-    tons: Math.round(w.tons),
-    area_sy: Math.round(w.areaSy),
-    lane_miles: Math.round(w.laneMiles * 1000) / 1000,
-    cost: Math.round(w.cost),
-    pci_before: Math.round(w.pciBefore),
-    pci_after: Math.round(w.pciAfter),
-  }));
+type Work = PlanResult['work'][number];
+
+// Plain-word headers, each with how its value is read off a work item.
+const COLUMNS: [string, (w: Work) => string | number][] = [
+  ['Year', (w) => w.calendarYear],
+  ['Segment ID', (w) => w.segmentId],
+  ['Road name', (w) => w.roadName],
+  ['Treatment', (w) => w.treatment],
+  ['Mix', (w) => w.mix ?? ''],
+  ['Thickness (in)', (w) => w.thicknessIn ?? ''],
+  ['Tons', (w) => Math.round(w.tons)],
+  ['Area (SY)', (w) => Math.round(w.areaSy)],
+  ['Lane-miles', (w) => Math.round(w.laneMiles * 1000) / 1000],
+  ['Cost ($)', (w) => Math.round(w.cost)],
+  ['PCI before', (w) => Math.round(w.pciBefore)],
+  ['PCI after', (w) => Math.round(w.pciAfter)],
+];
+export const WORK_LIST_HEADERS = COLUMNS.map(([h]) => h);
+const values = (w: Work) => COLUMNS.map(([, get]) => get(w));
 
 export function workListCsv(r: PlanResult) {
-  const fields = [
-    'year',
-    'segment_id',
-    'road_name',
-    'treatment',
-    'mix',
-    'thickness_in',
-    'tons',
-    'area_sy',
-    'lane_miles',
-    'cost',
-    'pci_before',
-    'pci_after',
-  ];
-  return `${Papa.unparse({ fields, data: rows(r).map((d) => fields.map((f) => (d as Record<string, unknown>)[f])) })}\n`;
+  return toCsv(WORK_LIST_HEADERS, r.work.map(values));
 }
 
 export async function workListXlsx(r: PlanResult, title: string) {
   const wb = new ExcelJS.Workbook();
   wb.creator = 'Wearcourse';
   const ws = wb.addWorksheet('Work list');
-  const data = rows(r);
-  const keys = Object.keys(data[0] ?? { year: '', segment_id: '' });
-  ws.columns = keys.map((k) => ({ header: k, key: k, width: Math.max(10, k.length + 2) }));
-  for (const d of data) ws.addRow(d);
+  ws.columns = WORK_LIST_HEADERS.map((k) => ({ header: k, width: Math.max(10, k.length + 2) }));
+  for (const w of r.work) ws.addRow(values(w));
   ws.getRow(1).font = { bold: true };
   ws.views = [{ state: 'frozen', ySplit: 1 }];
   const years = wb.addWorksheet('By year');
   years.columns = [
-    { header: 'year', key: 'y' },
-    { header: 'budget', key: 'b', width: 14 },
-    { header: 'spent', key: 's', width: 14 },
-    { header: 'network_pci', key: 'p', width: 12 },
-    { header: 'backlog', key: 'k', width: 14 },
+    { header: 'Year', key: 'y' },
+    { header: 'Budget ($)', key: 'b', width: 14 },
+    { header: 'Spent ($)', key: 's', width: 14 },
+    { header: 'Network PCI', key: 'p', width: 12 },
+    { header: 'Backlog ($)', key: 'k', width: 14 },
   ];
   for (const y of r.years)
     years.addRow({

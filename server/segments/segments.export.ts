@@ -1,10 +1,13 @@
-// Export of the filtered segment list. Columns are our canonical import
-// headers, so an exported file re-imports as "unchanged".
+// Export of the filtered segment list. Headers and class/surface values are plain
+// words the importer reads back, so an exported file re-imports as "unchanged".
 import ExcelJS from 'exceljs';
-import Papa from 'papaparse';
 import wkx from 'wkx';
-import { SEGMENT_FIELDS } from '../../shared/schemas/imports';
+import { EXPORT_HEADERS, SEGMENT_FIELDS } from '../../shared/schemas/imports';
+import { toCsv } from '../csv';
 import type { SegmentRow } from './segments.repo';
+
+const words = (v: string) => v.replace(/_/g, ' ');
+const HEADERS = SEGMENT_FIELDS.map((f) => EXPORT_HEADERS[f]);
 
 function record(r: SegmentRow): Record<(typeof SEGMENT_FIELDS)[number], string | number | null> {
   return {
@@ -15,8 +18,8 @@ function record(r: SegmentRow): Record<(typeof SEGMENT_FIELDS)[number], string |
     length_mi: r.lengthMi,
     width_ft: r.widthFt,
     lanes: r.lanes,
-    functional_class: r.functionalClass,
-    surface: r.surface,
+    functional_class: words(r.functionalClass),
+    surface: words(r.surface),
     adt: r.adt,
     truck_pct: r.truckPct,
     pci: r.pci,
@@ -30,14 +33,24 @@ function record(r: SegmentRow): Record<(typeof SEGMENT_FIELDS)[number], string |
 }
 
 export function segmentsCsv(rows: SegmentRow[]) {
-  return `${Papa.unparse({ fields: [...SEGMENT_FIELDS], data: rows.map((r) => SEGMENT_FIELDS.map((f) => record(r)[f] ?? '')) })}\n`;
+  return toCsv(
+    HEADERS,
+    rows.map((r) => {
+      const rec = record(r);
+      return SEGMENT_FIELDS.map((f) => rec[f]);
+    }),
+  );
 }
 
 export async function segmentsXlsx(rows: SegmentRow[], agencyName: string) {
   const wb = new ExcelJS.Workbook();
   wb.creator = 'Wearcourse';
   const ws = wb.addWorksheet('Segments');
-  ws.columns = SEGMENT_FIELDS.map((f) => ({ header: f, key: f, width: Math.max(10, f.length + 2) }));
+  ws.columns = SEGMENT_FIELDS.map((f) => ({
+    header: EXPORT_HEADERS[f],
+    key: f,
+    width: Math.max(10, EXPORT_HEADERS[f].length + 2),
+  }));
   for (const r of rows) ws.addRow(record(r));
   ws.getRow(1).font = { bold: true };
   ws.views = [{ state: 'frozen', ySplit: 1 }];
@@ -45,6 +58,6 @@ export async function segmentsXlsx(rows: SegmentRow[], agencyName: string) {
   about.addRow([
     `${agencyName} — segment inventory exported from Wearcourse on ${new Date().toISOString().slice(0, 10)}`,
   ]);
-  about.addRow(['Lengths in miles, widths in feet. Re-import this file to update segments by segment_id.']);
+  about.addRow(['Lengths in miles, widths in feet. Re-import this file to update segments by their segment ID.']);
   return Buffer.from(await wb.xlsx.writeBuffer());
 }

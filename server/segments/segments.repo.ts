@@ -4,6 +4,7 @@ import { areaSy, laneMiles } from '../../shared/engine/quantities';
 import type { FunctionalClass, Segment, SegmentListQuery, Surface } from '../../shared/schemas/segments';
 import type { Db } from '../db/client';
 import { segments, surveys } from '../db/schema';
+import { fitVertices, type LineGeometry } from '../imports/geometry';
 
 export type SegmentRow = typeof segments.$inferSelect;
 
@@ -123,7 +124,21 @@ export function surveysOf(db: Db, agencyId: string, segmentRef: number) {
     .all();
 }
 
-/** Map features as one JSON string: the stored geometry text is spliced in, never parsed. */
+// A stored line of more than this much text may have more positions than the map takes
+// (lines stored before the import's vertex limit, or written by other means): it is
+// parsed and simplified on the way out. Shorter text cannot hold more than the limit.
+const LONG_GEOMETRY_CHARS = 20_000;
+
+function mapGeometry(text: string) {
+  if (text.length <= LONG_GEOMETRY_CHARS) return text;
+  try {
+    return JSON.stringify(fitVertices(JSON.parse(text) as LineGeometry).geometry);
+  } catch {
+    return 'null';
+  }
+}
+
+/** Map features as one JSON string: the stored geometry text is spliced in, parsed only when very long. */
 export function segmentsGeoJson(db: Db, agencyId: string, q: SegmentFilter): string {
   const rows = db
     .select({
@@ -139,7 +154,7 @@ export function segmentsGeoJson(db: Db, agencyId: string, q: SegmentFilter): str
     .all();
   const parts = rows.map(
     (r) =>
-      `{"type":"Feature","id":${r.id},"properties":${JSON.stringify({ id: r.id, s: r.segmentId, r: r.roadName, p: r.pci === null ? -1 : Math.round(r.pci), c: r.cls })},"geometry":${r.geometry}}`,
+      `{"type":"Feature","id":${r.id},"properties":${JSON.stringify({ id: r.id, s: r.segmentId, r: r.roadName, p: r.pci === null ? -1 : Math.round(r.pci), c: r.cls })},"geometry":${mapGeometry(r.geometry!)}}`,
   );
   return `{"type":"FeatureCollection","features":[${parts.join(',')}]}`;
 }

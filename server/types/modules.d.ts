@@ -12,6 +12,10 @@ declare module 'epsg-index/all.json' {
 }
 declare module 'shpjs' {
   export default function shp(input: ArrayBuffer | Buffer | string): Promise<unknown>;
+  /** Without a projection the coordinates are returned as stored in the file. */
+  export function parseShp(shp: Uint8Array | ArrayBuffer, prj?: string): unknown[];
+  export function parseDbf(dbf: Uint8Array | ArrayBuffer, cpg?: Uint8Array | string): Record<string, unknown>[];
+  export function combine(parts: [unknown[], Record<string, unknown>[] | undefined]): unknown;
 }
 declare module 'wkx' {
   export class Geometry {

@@ -37,10 +37,12 @@ export const MixInputSchema = z
   });
 export type MixInput = z.infer<typeof MixInputSchema>;
 
+// The stored shapes are bounded too: they come back inside saved comparisons'
+// snapshots (and archives), and their names reach pages and the brief.
 export const MixSchema = z.object({
-  id: z.string(),
-  name: z.string(),
-  binderGrade: z.string(),
+  id: z.string().max(64),
+  name: z.string().max(80),
+  binderGrade: z.string().max(40),
   modifier: ModifierSchema,
   pricePerTon: z.number(),
   spreadRateLbPerSyIn: z.number(),
@@ -48,8 +50,8 @@ export const MixSchema = z.object({
   maxLiftIn: z.number(),
   refLiftIn: z.number(),
   refLifeYears: z.number(),
-  coldWeatherNote: z.string().nullable(),
-  priceEffectiveDate: z.string(),
+  coldWeatherNote: z.string().max(500).nullable(),
+  priceEffectiveDate: z.string().max(10),
   isDemo: z.boolean(),
 });
 export type Mix = z.infer<typeof MixSchema>;
@@ -106,7 +108,7 @@ export const TreatmentInputSchema = z
     name: z.string().trim().min(1).max(80),
     category: z.enum(['preservation', 'rehabilitation', 'reconstruction']),
     kind: TreatmentKindSchema,
-    mixId: z.string().nullable().default(null),
+    mixId: z.string().max(64).nullable().default(null),
     defaultThicknessIn: z.number().positive().max(12).nullable().default(null),
     millDepthIn: z.number().min(0).max(12).default(0),
     /** Null: life follows the mix and lift. */
@@ -133,11 +135,11 @@ export const TreatmentInputSchema = z
 export type TreatmentInput = z.infer<typeof TreatmentInputSchema>;
 
 export const TreatmentSchema = z.object({
-  id: z.string(),
-  name: z.string(),
+  id: z.string().max(64),
+  name: z.string().max(80),
   category: z.enum(['preservation', 'rehabilitation', 'reconstruction']),
   kind: TreatmentKindSchema,
-  mixId: z.string().nullable(),
+  mixId: z.string().max(64).nullable(),
   defaultThicknessIn: z.number().nullable(),
   millDepthIn: z.number(),
   lifeYears: z.number().nullable(),
@@ -145,13 +147,18 @@ export const TreatmentSchema = z.object({
   costItems: z.array(CostItemSchema),
   effect: EffectSchema,
   applicability: ApplicabilitySchema,
-  priceEffectiveDate: z.string(),
+  priceEffectiveDate: z.string().max(10),
   isDemo: z.boolean(),
 });
 export type Treatment = z.infer<typeof TreatmentSchema>;
 
 export const EconomicsSchema = z.object({
-  discountRate: z.number().gt(-1).lt(1),
+  // Real rates as published (OMB Circular A-94's real rates have run from slightly below zero
+  // to a few per cent); −99 % or 90 % is a typing slip that would wreck every present value.
+  discountRate: z
+    .number()
+    .min(-0.05, 'is below −5 %; give a real discount rate as a fraction (0.02 for 2 %)')
+    .max(0.2, 'is above 20 %; give a real discount rate as a fraction (0.02 for 2 %)'),
   discountRateSource: z.string().trim().max(300).nullable(),
   analysisPeriodYears: z.number().int().min(1).max(100),
   baseYear: z.number().int().min(1990).max(2100),

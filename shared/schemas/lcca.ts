@@ -103,8 +103,8 @@ export const EvaluateResultSchema = z.object({
 // ---- Catalog-based analyses (saved under the agency) -----------------------
 
 export const StepSchema = z.object({
-  treatmentId: z.string().min(1),
-  mixId: z.string().nullable().optional(),
+  treatmentId: z.string().min(1).max(64),
+  mixId: z.string().max(64).nullable().optional(),
   thicknessIn: z.number().positive().max(12).nullable().optional(),
   serviceLifeYears: z.number().positive().max(60).nullable().optional(),
 });
@@ -115,7 +115,7 @@ export const AlternativeSpecSchema = z.object({
   initial: StepSchema,
   rehabilitation: z.array(StepSchema).max(6).default([]),
   maintenance: z
-    .array(z.object({ treatmentId: z.string().min(1), everyYears: z.number().int().min(1).max(30) }))
+    .array(z.object({ treatmentId: z.string().min(1).max(64), everyYears: z.number().int().min(1).max(30) }))
     .max(4)
     .default([]),
   repeatAtEndOfLife: z.boolean().default(true),
@@ -132,7 +132,7 @@ export const GroupSchema = z.object({
   segments: z
     .array(
       z.object({
-        segmentId: z.string(),
+        segmentId: z.string().max(60),
         adt: z.number().nullable(),
         truckPct: z.number().nullable(),
         functionalClass: FunctionalClassSchema,
@@ -177,7 +177,10 @@ export const StudyInputSchema = z.object({
       .min(0)
       .max(2 ** 31)
       .default(2027),
-    ranges: z.record(z.string(), RangeOverrideSchema).default({}),
+    ranges: z
+      .record(z.string().max(120), RangeOverrideSchema)
+      .refine((r) => Object.keys(r).length <= 100, 'at most 100 ranges')
+      .default({}),
   }),
   /** The catalog items the study uses, as they were: the snapshot that makes a re-run exact. */
   catalog: z.object({ mixes: z.array(MixSchema), treatments: z.array(TreatmentSchema) }),

@@ -1,5 +1,5 @@
 // Crash safety: the real server as a child process, killed with SIGKILL in the
-// middle of a large import and of a plan run, then started again on the same file.
+// middle of a large import, of a plan run and of a restore, then started again on the same file.
 import type { ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -7,6 +7,7 @@ import path from 'node:path';
 import Database from 'better-sqlite3';
 import { afterAll, describe, expect, it } from 'vitest';
 import { syntheticCsv } from '../../bench/synthetic-network';
+import { editedArchive } from '../helpers/archive';
 import { startServerProcess } from '../helpers/server-process';
 
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wearcourse-crash-'));
@@ -26,11 +27,11 @@ function kill9() {
   });
 }
 
-async function signIn(url: string) {
+async function signIn(url: string, email = 'engineer@brannock.example') {
   const res = await fetch(`${url}/api/auth/sign-in/email`, {
     method: 'POST',
     headers: { 'Content-Type': 'application/json', Origin: url },
-    body: JSON.stringify({ email: 'engineer@brannock.example', password: 'wearcourse-demo' }),
+    body: JSON.stringify({ email, password: 'wearcourse-demo' }),
   });
   const cookie = res.headers.get('set-cookie')!.split(';')[0];
   const me = (await res.json()) as { memberships: { agencyId: string; agencyName: string }[] };
@@ -45,6 +46,19 @@ const inspect = () => {
       .n,
     imports: (db.prepare('SELECT count(*) AS n FROM imports').get() as { n: number }).n,
     runs: db.prepare('SELECT status, error FROM plan_runs').all() as { status: string; error: string | null }[],
+    agencies: (db.prepare('SELECT count(*) AS n FROM agencies').get() as { n: number }).n,
+    strays: (
+      db
+        .prepare(
+          `SELECT (SELECT count(*) FROM segments WHERE agency_id NOT IN (SELECT id FROM agencies))
+                + (SELECT count(*) FROM memberships WHERE agency_id NOT IN (SELECT id FROM agencies))
+                + (SELECT count(*) FROM mixes WHERE agency_id NOT IN (SELECT id FROM agencies)) AS n`,
+        )
+        .get() as { n: number }
+    ).n,
+    restoredAudit: (
+      db.prepare("SELECT count(*) AS n FROM audit_log WHERE action = 'agency.restore'").get() as { n: number }
+    ).n,
   };
   db.close();
   return r;
@@ -108,6 +122,54 @@ describe('crash safety (SIGKILL)', () => {
       headers: { ...headers, Cookie: again.cookie, Origin: url },
     });
     expect(r2.status).toBe(202);
+    await kill9();
+  });
+
+  it('a restore killed half-way leaves no agency, no stray rows and a sound file', { timeout: 240_000 }, async () => {
+    const url = await start();
+    const { cookie, agencyId } = await signIn(url, 'admin@brannock.example');
+    const exported = Buffer.from(
+      await (await fetch(`${url}/api/agencies/${agencyId}/export`, { headers: { Cookie: cookie } })).arrayBuffer(),
+    );
+    // Grow the archive to 40,000 segments (each original feature repeated under new ids), so the
+    // restore's one transaction runs long enough to be killed inside it.
+    const big = await editedArchive(exported, (files) => {
+      const geo = JSON.parse(files['segments.geojson']) as { features: { properties: { segment_id: string } }[] };
+      const base = geo.features;
+      geo.features = Array.from({ length: 40_000 }, (_, i) => {
+        const f = base[i % base.length];
+        return i < base.length ? f : { ...f, properties: { ...f.properties, segment_id: `COPY-${i}` } };
+      });
+      files['segments.geojson'] = JSON.stringify(geo);
+    });
+    const agenciesBefore = inspect().agencies;
+    const wal = `${dbPath}-wal`;
+    const walBefore = fs.existsSync(wal) ? fs.statSync(wal).size : 0;
+    const form = new FormData();
+    form.set('file', new Blob([new Uint8Array(big)]), 'big-export.zip');
+    const pending = fetch(`${url}/api/agencies/restore`, {
+      method: 'POST',
+      headers: { Cookie: cookie, Origin: url },
+      body: form,
+    })
+      .then((r) => `answered ${r.status}`)
+      .catch(() => 'killed');
+    // Uncommitted pages spill into the WAL while the transaction runs: kill once it has grown by 2 MB.
+    const deadline = Date.now() + 120_000;
+    while ((fs.existsSync(wal) ? fs.statSync(wal).size : 0) < walBefore + 2 * 1024 * 1024) {
+      if (Date.now() > deadline) throw new Error('the restore never started writing');
+      await new Promise((r) => setTimeout(r, 20));
+    }
+    await kill9();
+    expect(await pending).toBe('killed');
+    const after = inspect();
+    expect(after.integrity).toBe('ok');
+    expect(after.agencies).toBe(agenciesBefore);
+    expect(after.strays).toBe(0);
+    expect(after.restoredAudit).toBe(0);
+    // And the server starts again on the same file and serves.
+    const again = await start();
+    expect(await (await fetch(`${again}/api/health`)).json()).toEqual({ ok: true });
     await kill9();
   });
 });

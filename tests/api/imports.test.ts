@@ -291,39 +291,94 @@ describe('the messy sample', () => {
         column: 'Functional Class',
         value: 'Arterial Road',
         message:
-          'is not one of interstate, freeway, principal_arterial, minor_arterial, major_collector, minor_collector, local',
+          'is not a functional class Wearcourse knows (interstate, freeway, principal arterial, minor arterial, major collector, minor collector, local); match it to one in the check step',
       },
       {
         row: 8,
         column: 'Surface',
         value: 'Cobblestone',
-        message: 'is not one of asphalt, chip_seal, concrete, gravel, other',
+        message:
+          'is not a surface Wearcourse knows (asphalt, chip seal, concrete, gravel, other); match it to one in the check step',
       },
       { row: 9, column: 'PCI', value: '140', message: 'must be at most 100' },
-      { row: 10, column: 'Survey Date', value: '06/04/2026', message: 'is not a date in YYYY-MM-DD form' },
       { row: 11, column: 'Segment ID', value: 'RD-101', message: 'repeats the segment id of row 2' },
       { row: 12, column: 'Length (mi)', value: '', message: 'is required when the row has no geometry' },
       { row: 13, column: 'ADT', value: 'abc', message: 'is not a number' },
     ]);
-    expect(res.body).toMatchObject({ rejected: 11, totalRows: 12, added: 0 });
+    // 06/04/2026 is read as a US date, with a warning saying so; all-or-nothing writes nothing,
+    // and the counts for the good rows say what skipping the rejected ones would write.
+    expect(res.body.warnings).toEqual([
+      expect.objectContaining({ row: 10, column: 'Survey Date', value: '06/04/2026' }),
+    ]);
+    expect(res.body).toMatchObject({
+      rejected: 10,
+      totalRows: 12,
+      added: 0,
+      acceptedRows: { added: 2, updated: 0, unchanged: 0 },
+      dateFormat: 'mdy',
+      unknownValues: [
+        { field: 'functional_class', value: 'Arterial Road', rows: 1 },
+        { field: 'surface', value: 'Cobblestone', rows: 1 },
+      ],
+    });
   });
 
-  it('all-or-nothing writes nothing; skip-invalid writes the one good row and keeps the rejects for download', async () => {
+  it('the check and the write agree: "would add" for skip-invalid is what the write adds', async () => {
+    const check = await upload(sample('brannock-messy.csv'), { dryRun: 'true', mode: 'skip-invalid' });
+    expect(check.status).toBe(200);
+    expect(check.body).toMatchObject({ added: 2, rejected: 10, acceptedRows: { added: 2 } });
+  });
+
+  it('all-or-nothing writes nothing; skip-invalid writes the good rows and keeps the rejects for download', async () => {
     const before = segCount();
     const refused = await upload(sample('brannock-messy.csv'));
     expect(refused.status).toBe(422);
     expect(segCount()).toBe(before);
     const skipped = await upload(sample('brannock-messy.csv'), { mode: 'skip-invalid' });
     expect(skipped.status).toBe(200);
-    expect(skipped.body).toMatchObject({ added: 1, rejected: 11 });
-    expect(segCount()).toBe(before + 1);
+    expect(skipped.body).toMatchObject({ added: 2, rejected: 10 });
+    expect(segCount()).toBe(before + 2);
     const csv = await eng.get(`${url}/${skipped.body.importId}/rejected.csv`);
     expect(csv.status).toBe(200);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
     const lines = csv.text.trim().split(/\r?\n/);
-    expect(lines[0]).toMatch(/^row,Segment ID,.*,reason$/);
-    expect(lines).toHaveLength(12);
+    expect(lines[0]).toMatch(/^Row,Segment ID,.*,Reason$/);
+    expect(lines).toHaveLength(11);
     expect(lines[1]).toMatch(/^3,RD-102,.*must be at most 100/);
+  });
+
+  it('day/month/year is a choice; a value matching turns "Arterial Road" into a principal arterial and is remembered', async () => {
+    const dmy = await upload(sample('brannock-messy.csv'), { dryRun: 'true', dateFormat: 'dmy' });
+    expect(dmy.body.dateFormat).toBe('dmy');
+    expect(dmy.body.preview.find((p: { row: number }) => p.row === 10)?.pciDate).toBe('2026-04-06');
+    const mdy = await upload(sample('brannock-messy.csv'), { dryRun: 'true', dateFormat: 'mdy' });
+    expect(mdy.body.preview.find((p: { row: number }) => p.row === 10)?.pciDate).toBe('2026-06-04');
+
+    const values = { functional_class: { 'Arterial Road': 'principal_arterial' }, surface: { Cobblestone: 'other' } };
+    const matched = await upload(sample('brannock-messy.csv'), {
+      dryRun: 'true',
+      mode: 'skip-invalid',
+      values: JSON.stringify(values),
+    });
+    expect(matched.status).toBe(200);
+    expect(matched.body).toMatchObject({ rejected: 8, unknownValues: [], valueMap: values });
+    const rd106 = matched.body.preview.find((p: { segmentId: string }) => p.segmentId === 'RD-106');
+    expect(rd106.functionalClass).toBe('principal_arterial');
+    // Written once, the matching is remembered for the agency's next file.
+    const written = await upload(sample('brannock-messy.csv'), {
+      mode: 'skip-invalid',
+      values: JSON.stringify(values),
+    });
+    expect(written.status).toBe(200);
+    const again = await upload(sample('brannock-messy.csv'), { dryRun: 'true', mode: 'skip-invalid' });
+    expect(again.body.valueMap).toEqual(values);
+    expect(again.body.unknownValues).toEqual([]);
+    const bad = await upload(sample('brannock-messy.csv'), {
+      dryRun: 'true',
+      values: JSON.stringify({ functional_class: { 'Arterial Road': 'highway' } }),
+    });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.issues[0].path).toMatch(/^body\.values\.functional_class/);
   });
 });
 

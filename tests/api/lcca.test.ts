@@ -239,7 +239,7 @@ describe('catalog-based comparisons', () => {
 
     const csv = await eng.get(`/api/agencies/${t.ids.brannock}/analyses/${saved.body.id}/export?format=csv`);
     expect(csv.status).toBe(200);
-    expect(csv.text.split('\n')[0]).toMatch(/^alternative,rank,net_present_value,euac/);
+    expect(csv.text.split('\n')[0]).toMatch(/^Alternative,Rank,Present value \(\$\),EUAC \(\$ per year\)/);
     expect(csv.text).toContain('1.5 in rubber-modified');
   });
 

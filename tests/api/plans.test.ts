@@ -66,7 +66,7 @@ describe('plans', () => {
     const csv = await eng.get(`${base}/${planId}/work-list?format=csv`);
     expect(csv.status).toBe(200);
     expect(csv.text.split(/\r?\n/)[0]).toBe(
-      'year,segment_id,road_name,treatment,mix,thickness_in,tons,area_sy,lane_miles,cost,pci_before,pci_after',
+      'Year,Segment ID,Road name,Treatment,Mix,Thickness (in),Tons,Area (SY),Lane-miles,Cost ($),PCI before,PCI after',
     );
     const pdf = await eng
       .get(`${base}/${planId}/brief.pdf`)

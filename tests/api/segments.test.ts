@@ -112,13 +112,13 @@ describe('map GeoJSON and exports', () => {
     expect(fc.features[0].geometry.type).toBe('LineString');
   });
 
-  it('CSV export has the canonical headers and re-imports as unchanged', async () => {
+  it('CSV export has plain-word headers and re-imports as unchanged', async () => {
     const csv = await u.get(`/api/agencies/${t.ids.brannock}/segments/export?format=csv&class=minor_arterial`);
     expect(csv.status).toBe(200);
     expect(csv.headers['content-disposition']).toMatch(/brannock-county-segments\.csv/);
     const lines = csv.text.trim().split(/\r?\n/);
     expect(lines[0]).toBe(
-      'segment_id,road_name,from_desc,to_desc,length_mi,width_ft,lanes,functional_class,surface,adt,truck_pct,pci,pci_date,last_treatment,last_treatment_year,district,notes,geometry',
+      'Segment ID,Road name,From,To,Length (mi),Width (ft),Lanes,Functional class,Surface,ADT (vehicles per day),Trucks (% of ADT),PCI,Survey date,Last treatment,Last treatment year,District,Notes,"Geometry (WKT, WGS84)"',
     );
     expect(lines[1]).toMatch(/,"?LINESTRING ?\(-98\./);
     expect(lines).toHaveLength(1 + 20 + 20); // the parkway and the two Tallow Creek main streets

@@ -100,7 +100,7 @@ export function SettingsPage() {
             const body = await res.json();
             if (res.ok) {
               toast.success(
-                `Restored into a new agency (${body.counts.segments} segments); find it in the agency switcher`,
+                `Restored into a new agency (${body.counts.segments} segments); find it in the agency switcher${body.analysesToRerun ? `. Its ${body.analysesToRerun} saved comparison(s) come back with their inputs: run them again to see results` : ''}`,
               );
               qc.invalidateQueries({ queryKey: ['me'] });
             } else toast.error(body.error?.message ?? 'Restore failed');

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { ImportReport } from '@shared/schemas/imports';
+import type { DateFormat, ImportReport, ValueMap } from '@shared/schemas/imports';
 import { ApiError } from '@/lib/api-client';
 import { importHistoryQueryOptions } from './get-import-history';
 
@@ -12,6 +12,8 @@ export type ImportRequest = {
   dryRun: boolean;
   lengthUnit?: string;
   widthUnit?: string;
+  dateFormat?: DateFormat;
+  values?: ValueMap;
 };
 
 /** Uploads the file; a 422 is not a failure here but the report of a refused file. */
@@ -24,6 +26,8 @@ export async function runImport(agencyId: string, r: ImportRequest): Promise<{ s
   if (r.crs) form.set('crs', r.crs);
   if (r.lengthUnit) form.set('lengthUnit', r.lengthUnit);
   if (r.widthUnit) form.set('widthUnit', r.widthUnit);
+  if (r.dateFormat) form.set('dateFormat', r.dateFormat);
+  if (r.values && Object.keys(r.values).length) form.set('values', JSON.stringify(r.values));
   form.set('file', r.file);
   const res = await fetch(`/api/agencies/${agencyId}/imports`, {
     method: 'POST',

@@ -1,0 +1,119 @@
+// Restore as a hostile or careless user would try it: who may restore, ids that
+// name another agency's rows, what the report counts, the rate limit. (Malformed
+// archives are cases in hostile.test.ts.)
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { editedArchive, editJson } from '../helpers/archive';
+import { createTestApp, type TestApp } from '../helpers/test-app';
+
+let t: TestApp;
+let admin: Awaited<ReturnType<TestApp['as']>>;
+let exported: Buffer;
+const binary = (req: ReturnType<Awaited<ReturnType<TestApp['as']>>['get']>) =>
+  req.buffer(true).parse((res, cb) => {
+    const chunks: Buffer[] = [];
+    res.on('data', (c: Buffer) => chunks.push(c));
+    res.on('end', () => cb(null, Buffer.concat(chunks)));
+  });
+const n = (sql: string, ...a: unknown[]) => (t.sqlite.prepare(sql).get(...a) as { n: number }).n;
+
+beforeAll(async () => {
+  t = await createTestApp({ restoreRateLimit: 1000 });
+  admin = await t.as('admin@marlow.example');
+  await admin
+    .put(`/api/agencies/${t.ids.marlow}/forecast/curves`)
+    .send({ familyKey: 'asphalt|local|overlay', curve: { p0: 99, a: 0.6, b: 1.5 } });
+  exported = (await binary(admin.get(`/api/agencies/${t.ids.marlow}/export`))).body as Buffer;
+});
+afterAll(() => t.close());
+
+describe('restore', () => {
+  it('is refused to signed-in users who administer no agency, before the upload is read', async () => {
+    const agencies = n('SELECT count(*) AS n FROM agencies');
+    for (const email of ['viewer@brannock.example', 'engineer@marlow.example']) {
+      const u = await t.as(email);
+      const res = await u.post('/api/agencies/restore').attach('file', exported, 'export.zip');
+      expect(res.status).toBe(403);
+      expect(res.body.error.message).toMatch(/Only an admin of an agency may restore/);
+    }
+    expect((await t.anonymous().post('/api/agencies/restore').attach('file', exported, 'x.zip')).status).toBe(401);
+    expect(n('SELECT count(*) AS n FROM agencies')).toBe(agencies);
+  });
+
+  it('rows that carry another agency’s id or a row id of its own never touch that agency', async () => {
+    // Brannock is the target: its curves and mixes, named by id in the edited archive.
+    const bMix = t.sqlite
+      .prepare('SELECT id, price_per_ton AS p FROM mixes WHERE agency_id = ? LIMIT 1')
+      .get(t.ids.brannock) as {
+      id: string;
+      p: number;
+    };
+    const bCurves = n('SELECT count(*) AS n FROM curve_overrides WHERE agency_id = ?', t.ids.brannock);
+    const hostile = await editedArchive(exported, (files) => {
+      editJson<{ familyKey: string; p0: number; a: number; b: number }[]>('curves.json', (c) =>
+        c.map((x) => ({ ...x, agencyId: t.ids.brannock, a: 3 })),
+      )(files);
+      // The first mix takes the id of a Brannock mix (and the treatments follow it).
+      editJson<{ mixes: { id: string }[]; treatments: { mixId: string | null }[] }>('catalog.json', (c) => {
+        const old = c.mixes[0].id;
+        c.mixes[0] = { ...c.mixes[0], id: bMix.id, pricePerTon: 9999, agencyId: t.ids.brannock } as never;
+        for (const tr of c.treatments) if (tr.mixId === old) tr.mixId = bMix.id;
+        return c;
+      })(files);
+    });
+    const res = await admin.post('/api/agencies/restore').attach('file', hostile, 'export.zip');
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const restored = res.body.agencyId;
+    expect(n('SELECT count(*) AS n FROM curve_overrides WHERE agency_id = ?', t.ids.brannock)).toBe(bCurves);
+    expect(n('SELECT count(*) AS n FROM curve_overrides WHERE agency_id = ? AND a = 3', restored)).toBe(1);
+    const mix = t.sqlite.prepare('SELECT agency_id AS a, price_per_ton AS p FROM mixes WHERE id = ?').get(bMix.id) as {
+      a: string;
+      p: number;
+    };
+    expect(mix).toEqual({ a: t.ids.brannock, p: bMix.p });
+    expect(n('SELECT count(*) AS n FROM mixes WHERE agency_id = ? AND price_per_ton = 9999', restored)).toBe(1);
+    // Nothing about the restore landed in Brannock's audit trail either.
+    expect(
+      n("SELECT count(*) AS n FROM audit_log WHERE agency_id = ? AND action = 'agency.restore'", t.ids.brannock),
+    ).toBe(0);
+  });
+
+  it('the report and the audit entry count what was written', async () => {
+    const res = await admin
+      .post('/api/agencies/restore')
+      .field('name', 'Marlow copy')
+      .attach('file', exported, 'e.zip');
+    expect(res.status).toBe(201);
+    const id = res.body.agencyId;
+    const written = {
+      segments: n('SELECT count(*) AS n FROM segments WHERE agency_id = ?', id),
+      surveys: n('SELECT count(*) AS n FROM surveys WHERE agency_id = ?', id),
+      mixes: n('SELECT count(*) AS n FROM mixes WHERE agency_id = ?', id),
+      treatments: n('SELECT count(*) AS n FROM treatments WHERE agency_id = ?', id),
+      plans: n('SELECT count(*) AS n FROM plans WHERE agency_id = ?', id),
+      analyses: n('SELECT count(*) AS n FROM analyses WHERE agency_id = ?', id),
+      curves: n('SELECT count(*) AS n FROM curve_overrides WHERE agency_id = ?', id),
+    };
+    expect(written.segments).toBe(84);
+    expect(res.body.counts).toEqual(written);
+    const audit = t.sqlite
+      .prepare("SELECT detail FROM audit_log WHERE agency_id = ? AND action = 'agency.restore'")
+      .get(id) as { detail: string };
+    expect(JSON.parse(audit.detail).counts).toEqual(written);
+  });
+
+  it('an operator setting lets every signed-in user restore; restores are rate-limited per user', async () => {
+    const open = await createTestApp({ restoreByAnyUser: true, restoreRateLimit: 2 });
+    try {
+      const viewer = await open.as('viewer@brannock.example');
+      const marlowAdmin = await open.as('admin@marlow.example');
+      const archive = (await binary(marlowAdmin.get(`/api/agencies/${open.ids.marlow}/export`))).body as Buffer;
+      expect((await viewer.post('/api/agencies/restore').attach('file', archive, 'a.zip')).status).toBe(201);
+      expect((await viewer.post('/api/agencies/restore').attach('file', Buffer.from('x'), 'b.zip')).status).toBe(400);
+      const third = await viewer.post('/api/agencies/restore').attach('file', archive, 'c.zip');
+      expect(third.status).toBe(429);
+      expect(third.body.error.message).toMatch(/At most 2 restores an hour/);
+    } finally {
+      await open.close();
+    }
+  });
+});
