@@ -24,6 +24,7 @@ import {
 import { HttpError } from '../http/errors';
 import { zipExpandedBytes } from '../imports/read-file';
 import { segmentsCsv } from '../segments/segments.export';
+import { restoreTreatmentRecords, treatmentRecordsCsv } from '../segment-history/segment-history.archive';
 
 export const ARCHIVE_FORMAT = 'wearcourse-agency-export';
 const sha256 = (s: string) => crypto.createHash('sha256').update(s).digest('hex');
@@ -53,6 +54,7 @@ export async function exportAgency(deps: Deps, agencyId: string) {
     .where(eq(curveOverrides.agencyId, agencyId))
     .orderBy(asc(curveOverrides.familyKey))
     .all();
+  const done = treatmentRecordsCsv(deps.db, agencyId, idToSeg);
   const mappingRows = deps.db
     .select()
     .from(importMappings)
@@ -89,6 +91,7 @@ export async function exportAgency(deps: Deps, agencyId: string) {
       })),
     }),
     'surveys.csv': `${Papa.unparse({ fields: ['segment_id', 'survey_date', 'pci', 'source'], data: surveyRows.map((v) => [idToSeg.get(v.segmentRef), v.surveyDate, v.pci, v.source ?? '']).sort((a, b) => String(a[0]).localeCompare(String(b[0])) || String(a[1]).localeCompare(String(b[1]))) })}\n`,
+    'treatment-records.csv': done.csv,
     'catalog.json': JSON.stringify({ mixes: mixList, treatments: treatmentList }, null, 1),
     'plans.json': JSON.stringify(
       planRows.map((p) => ({
@@ -133,6 +136,7 @@ export async function exportAgency(deps: Deps, agencyId: string) {
     counts: {
       segments: segRows.length,
       surveys: surveyRows.length,
+      treatmentRecords: done.count,
       mixes: mixList.length,
       treatments: treatmentList.length,
       plans: planRows.length,
@@ -267,6 +271,11 @@ export async function restoreAgency(deps: Deps, userId: string, buf: Buffer, nam
         .values({ agencyId, segmentRef: ref, surveyDate: date, pci: Number(pci), source: source || null })
         .run();
     }
+    // Archives made before treatment records existed have no such file.
+    if (files['treatment-records.csv'] !== undefined)
+      restoreTreatmentRecords(tx, agencyId, files['treatment-records.csv'], refOf, (sid) =>
+        bad(`treatment-records.csv names segment ${sid}, which segments.geojson does not have.`),
+      );
     for (const p of planList) {
       const settings = { ...p.settings, treatmentIds: p.settings.treatmentIds.map((id) => treatmentIds.get(id) ?? id) };
       tx.insert(plans)
