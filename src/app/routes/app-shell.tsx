@@ -22,7 +22,10 @@ export function AppShell() {
   return (
     <HelpProvider>
       <div className="flex min-h-screen">
-        <aside className="no-print flex w-56 shrink-0 flex-col bg-asphalt text-white" aria-label="Main navigation">
+        <aside
+          className="no-print sticky top-0 flex h-screen w-56 shrink-0 flex-col overflow-y-auto bg-asphalt text-white"
+          aria-label="Main navigation"
+        >
           <div className="px-4 pb-3 pt-4">
             <div className="text-lg font-black tracking-tight">Wearcourse</div>
             {me.memberships.length > 1 ? (

@@ -1,5 +1,8 @@
 import {
+  cloneElement,
   type InputHTMLAttributes,
+  isValidElement,
+  type ReactElement,
   type ReactNode,
   type SelectHTMLAttributes,
   type TextareaHTMLAttributes,
@@ -7,6 +10,11 @@ import {
   useState,
 } from 'react';
 
+/**
+ * A labelled control with its hint or its error underneath. The label points at
+ * the control by id (so a Term inside the label stays a button of its own), and
+ * the control is marked invalid and described by the message.
+ */
 export function Field({
   label,
   hint,
@@ -20,17 +28,34 @@ export function Field({
   children: ReactNode;
   className?: string;
 }) {
+  const auto = useId();
+  const child = isValidElement<{ id?: string }>(children) ? children : null;
+  const id = child?.props.id ?? auto;
+  const noteId = `${id}-note`;
+  const control = child
+    ? cloneElement(child as ReactElement<Record<string, unknown>>, {
+        id,
+        'aria-invalid': error ? true : undefined,
+        'aria-describedby': error || hint ? noteId : undefined,
+      })
+    : children;
   return (
-    <label className={`block text-sm ${className}`}>
-      <span className="mb-1 block font-semibold text-asphalt">{label}</span>
-      {children}
-      {hint && !error && <span className="mt-1 block text-xs text-asphalt-muted">{hint}</span>}
+    <div className={`block text-sm ${className}`}>
+      <label htmlFor={id} className="mb-1 block font-semibold text-asphalt">
+        {label}
+      </label>
+      {control}
+      {hint && !error && (
+        <span id={noteId} className="mt-1 block text-xs text-asphalt-muted">
+          {hint}
+        </span>
+      )}
       {error && (
-        <span className="mt-1 block text-xs font-semibold text-band-failed" data-field-error>
+        <span id={noteId} className="mt-1 block text-xs font-semibold text-band-failed" data-field-error>
           {error}
         </span>
       )}
-    </label>
+    </div>
   );
 }
 
