@@ -1,5 +1,6 @@
 import { eq } from 'drizzle-orm';
 import { z } from 'zod';
+import { AgencySettingsSchema } from '../../shared/schemas/agency';
 import { AgencyParamsSchema } from '../../shared/schemas/common';
 import { recordAudit } from '../audit';
 import type { Deps } from '../deps';
@@ -14,8 +15,6 @@ const archiveUpload = multer({
   storage: multer.memoryStorage(),
   limits: { fileSize: 200 * 1024 * 1024, files: 1 },
 }).single('file');
-
-const AgencySettingsSchema = z.object({ name: z.string().trim().min(2).max(120), units: z.enum(['us', 'metric']) });
 
 export function agencyRoutes(api: ApiRoutes, deps: Deps) {
   const view = (id: string) => {

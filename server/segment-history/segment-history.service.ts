@@ -121,7 +121,12 @@ export function recordTreatment(
       detail: {
         ...job,
         ...(pciAfter !== null ? { pciAfter } : {}),
-        ...(newest ? { lastTreatment: { before: seg.lastTreatment, after: lastTreatmentText(input) } } : {}),
+        ...(newest
+          ? {
+              lastTreatment: { before: seg.lastTreatment, after: lastTreatmentText(input) },
+              lastTreatmentYear: { before: seg.lastTreatmentYear, after: year },
+            }
+          : {}),
       },
     });
     return row.id;

@@ -98,6 +98,36 @@ describe('segment page: surveys, treatments and attributes through the UI', () =
     }
   });
 
+  it('Activity tells the admin who did it and what changed, in words', async () => {
+    const { page, context } = await newPage(h);
+    try {
+      await signIn(page, h.url, 'admin@brannock.example');
+      await page.getByRole('link', { name: 'Activity' }).click();
+      const table = page.getByTestId('audit-table');
+      await table.waitFor();
+      const row = (action: string) => table.locator(`tr[data-action="${action}"]`).first();
+      const job = (await row('treatment.record').textContent()) ?? '';
+      expect(job).toContain('Recorded a treatment');
+      expect(job).toContain('segment BC-E10-05 (County Highway 14)');
+      expect(job).toContain('Ruben Osei');
+      expect(job).toMatch(/Last treatment year: \d{4} → \d{4}/);
+      expect(job).toContain('Cost ($): $152,400');
+      expect(await row('segment.update').textContent()).toContain('Width (ft): 40 → 30');
+      expect(await row('survey.add').textContent()).toMatch(/Latest PCI: \d+ → 4/);
+      // No code names or JSON anywhere in the table.
+      const pieces = await table.evaluate((el) => {
+        const out: string[] = [];
+        const walk = document.createTreeWalker(el, NodeFilter.SHOW_TEXT);
+        for (let n = walk.nextNode(); n; n = walk.nextNode()) if (n.textContent?.trim()) out.push(n.textContent.trim());
+        return out;
+      });
+      expect(pieces.length).toBeGreaterThan(20);
+      expect(pieces.filter((p) => /[{}"]|\b[a-z]+[A-Z]\w*|\b[a-z]+_[a-z]+/.test(p))).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
   it('a viewer sees the history but no buttons to change it', async () => {
     const { page, context } = await newPage(h);
     try {

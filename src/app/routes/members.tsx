@@ -1,8 +1,10 @@
 import { useState, type FormEvent } from 'react';
 import { toast } from 'sonner';
 import type { Role } from '@shared/schemas/common';
+import { InviteBodySchema } from '@shared/schemas/members';
 import { Button } from '@/components/ui/button';
-import { Field, Select, TextInput } from '@/components/ui/field';
+import { Field, FormAlert, Select, TextInput } from '@/components/ui/field';
+import { describeError, useFieldErrors } from '@/components/ui/form-errors';
 import { Card, PageHeader } from '@/components/ui/page';
 import { useMembers } from '@/features/members/api/get-members';
 import { useChangeRole, useInvite, useRemoveMember, useRevokeInvitation } from '@/features/members/api/manage-members';
@@ -10,6 +12,8 @@ import { fmtDate } from '@/lib/format';
 import { useAgency } from '../use-agency';
 
 const ROLES: Role[] = ['admin', 'engineer', 'viewer'];
+const ROLE_NAMES: Record<Role, string> = { admin: 'Admin', engineer: 'Engineer', viewer: 'Viewer' };
+const LABELS = { email: 'E-mail', role: 'Role' };
 const ROLE_HELP: Record<Role, string> = {
   admin: 'members, settings, catalog and prices, and everything an engineer does',
   engineer: 'inventory, imports, surveys, alternatives and plans; publishes plans',
@@ -25,52 +29,62 @@ export function MembersPage() {
   const remove = useRemoveMember(agencyId);
   const [email, setEmail] = useState('');
   const [role, setRole] = useState<Role>('viewer');
-  const onError = (e: Error) => toast.error(e.message);
+  const f = useFieldErrors(LABELS);
+  const onError = (e: Error) => toast.error(describeError(e, LABELS));
   const submit = (e: FormEvent) => {
     e.preventDefault();
-    invite.mutate(
-      { email, role },
-      {
-        onSuccess: () => {
-          toast.success(`Invitation sent to ${email}`);
-          setEmail('');
-        },
-        onError,
+    const body = f.check(InviteBodySchema, { email, role });
+    if (!body) return;
+    invite.mutate(body, {
+      onSuccess: () => {
+        toast.success(`Invitation sent to ${body.email}`);
+        setEmail('');
       },
-    );
+      onError: f.fromError,
+    });
   };
   return (
     <div className="space-y-5">
       <PageHeader title="Members" caption="People with access to this agency, and their roles." />
       <Card title="Invite someone">
-        <form onSubmit={submit} className="flex flex-wrap items-end gap-3">
+        <form onSubmit={submit} noValidate className="flex flex-wrap items-start gap-3" aria-label="Invite someone">
           <div className="w-72">
-            <Field label="E-mail">
-              <TextInput type="email" required value={email} onChange={(e) => setEmail(e.target.value)} />
+            <Field label={LABELS.email} error={f.error('email')}>
+              <TextInput
+                type="email"
+                value={email}
+                onChange={(e) => {
+                  setEmail(e.target.value);
+                  f.clear('email');
+                }}
+              />
             </Field>
           </div>
           <div className="w-40">
-            <Field label="Role">
-              <Select aria-label="Role" value={role} onChange={(e) => setRole(e.target.value as Role)}>
+            <Field label={LABELS.role} error={f.error('role')}>
+              <Select value={role} onChange={(e) => setRole(e.target.value as Role)}>
                 {ROLES.map((r) => (
                   <option key={r} value={r}>
-                    {r}
+                    {ROLE_NAMES[r]}
                   </option>
                 ))}
               </Select>
             </Field>
           </div>
-          <Button type="submit" disabled={invite.isPending}>
+          <Button type="submit" className="mt-6" disabled={invite.isPending}>
             Send invitation
           </Button>
+          <div className="w-full">
+            <FormAlert messages={f.others} />
+          </div>
           <p className="w-full text-xs text-asphalt-muted">
-            A {role} can see and do: {ROLE_HELP[role]}. The link is valid for seven days.
+            {ROLE_NAMES[role]}s can see and do: {ROLE_HELP[role]}. The link is valid for seven days.
           </p>
         </form>
       </Card>
       <Card title="Members">
         <table className="w-full text-sm">
-          <thead className="text-left text-xs uppercase tracking-wide text-asphalt-muted">
+          <thead className="text-left text-xs font-bold text-asphalt-muted">
             <tr>
               <th className="py-1">Name</th>
               <th>E-mail</th>
@@ -99,7 +113,7 @@ export function MembersPage() {
                   >
                     {ROLES.map((r) => (
                       <option key={r} value={r}>
-                        {r}
+                        {ROLE_NAMES[r]}
                       </option>
                     ))}
                   </Select>
@@ -128,7 +142,7 @@ export function MembersPage() {
             {members.data.invitations.map((i) => (
               <li key={i.id} className="flex items-center justify-between py-1.5">
                 <span>
-                  {i.email} · {i.role} · expires {fmtDate(i.expiresAt)}
+                  {i.email} · {ROLE_NAMES[i.role]} · expires {fmtDate(i.expiresAt)}
                 </span>
                 <Button variant="ghost" onClick={() => revoke.mutate(i.id, { onError })}>
                   Withdraw
