@@ -5,6 +5,9 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { type Harness, newPage, signIn, startHarness } from './harness';
 
+/** Generous: two cores shared by several test runs. */
+const SLOW = { timeout: 20_000 };
+
 let h: Harness;
 beforeAll(async () => {
   h = await startHarness();
@@ -47,7 +50,7 @@ describe('segment page: surveys, treatments and attributes through the UI', () =
       await survey.getByRole('button', { name: 'Add the survey' }).click();
       await survey.waitFor({ state: 'detached' });
       const firstSurvey = page.getByTestId('survey-table').locator('tbody tr').first();
-      await expect.poll(() => firstSurvey.textContent()).toBe(`${today}4Windshield check`);
+      await expect.poll(() => firstSurvey.textContent(), SLOW).toBe(`${today}4Windshield check`);
       await expect
         .poll(() => attribute(page, 'Latest PCI').textContent())
         .toMatch(new RegExp(`^4 \\(Failed;.*on ${today}$`));
@@ -66,7 +69,7 @@ describe('segment page: surveys, treatments and attributes through the UI', () =
       await job.getByRole('button', { name: 'Record the treatment' }).click();
       await job.waitFor({ state: 'detached' });
       const row = page.getByTestId('treatment-history').locator('tbody tr').first();
-      await expect.poll(() => row.textContent()).toContain('Mill and overlay (2 in)');
+      await expect.poll(() => row.textContent(), SLOW).toContain('Mill and overlay (2 in)');
       const text = (await row.textContent()) ?? '';
       expect(text).toContain(today);
       expect(text).toContain('$152,400');
@@ -85,11 +88,11 @@ describe('segment page: surveys, treatments and attributes through the UI', () =
       await edit.getByLabel('Width (ft)').fill('30');
       await edit.getByRole('button', { name: 'Save the attributes' }).click();
       await edit.waitFor({ state: 'detached' });
-      await expect.poll(() => attribute(page, 'Width').textContent()).toBe('30.0 ft');
+      await expect.poll(() => attribute(page, 'Width').textContent(), SLOW).toBe('30.0 ft');
 
       // The network summary, reached through the rail (no reload), has the new PCI in it.
       await page.getByRole('link', { name: 'Network' }).click();
-      await expect.poll(() => networkPci(page)).not.toBe(pciBefore);
+      await expect.poll(() => networkPci(page), SLOW).not.toBe(pciBefore);
       expect(Number(await networkPci(page))).toBeLessThan(Number(pciBefore));
       expect(consoleErrors).toEqual([]);
       expect(outside).toEqual([]);
