@@ -98,7 +98,7 @@ function diff(before: Record<string, unknown>, after: Record<string, unknown>, d
 
 const facts = (o: Record<string, unknown>): Fact[] =>
   Object.entries(o)
-    .filter(([k, v]) => !SKIP.has(k) && v !== undefined && !isObject(v))
+    .filter(([k, v]) => !SKIP.has(k) && v !== undefined && v !== null && v !== '' && !isObject(v))
     .map(([k, v]) => ({ field: fieldLabel(k), value: valueWords(k, v) }));
 
 /** A `{ field: { before, after } }` map, as segment edits and imports write them. */

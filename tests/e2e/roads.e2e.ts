@@ -115,4 +115,41 @@ describe('Roads', () => {
       await context.close();
     }
   });
+
+  it('the glossary opens from the rail on every screen, and from a term where it is used', async () => {
+    const { page, context } = await newPage(h);
+    try {
+      await signIn(page, h.url, 'viewer@brannock.example');
+      const base = page.url().replace(/\/network$/, '');
+      for (const screen of ['network', 'roads', 'roads/5', 'plans']) {
+        await page.goto(`${base}/${screen}`);
+        await page.getByRole('button', { name: 'Help & glossary' }).click();
+        const panel = page.getByTestId('help-panel');
+        await panel.waitFor();
+        for (const term of ['PCI', 'EUAC', 'Present value', 'Remaining service life', 'SN', 'ESAL', 'Lane-mile'])
+          await panel.locator('dt', { hasText: term }).first().waitFor();
+        await page.keyboard.press('Escape');
+        await panel.waitFor({ state: 'detached' });
+      }
+      // A term in a table header: its meaning on hover, the glossary at that entry on click.
+      await page.goto(`${base}/roads`);
+      const hint = page.getByRole('button', { name: 'What is ADT?' });
+      await hint.hover();
+      await page.getByRole('tooltip').getByText('Vehicles a day on the segment').waitFor();
+      await hint.click();
+      const panel = page.getByTestId('help-panel');
+      await panel.waitFor();
+      await expect
+        .poll(async () => panel.locator('[data-term=adt]').evaluate((el) => el.className), SLOW)
+        .toContain('bg-accent-light');
+      await panel.getByLabel('Find a term').fill('discount');
+      const found = await panel.locator('dt').allTextContents();
+      expect(found).toEqual(
+        expect.arrayContaining(['Present value · PV', 'Discount rate', 'Break-even discount rate']),
+      );
+      expect(found).not.toContain('PCI · Pavement Condition Index');
+    } finally {
+      await context.close();
+    }
+  });
 });

@@ -85,10 +85,10 @@ export function ActivityPage() {
               {audit.data.items.map((a) => (
                 <tr key={a.id} className="border-t border-asphalt-line/60 align-top" data-action={a.action}>
                   <td className="num whitespace-nowrap py-1.5 pr-3">{when(a.at)}</td>
-                  <td className="pr-3" title={a.userEmail ?? undefined}>
+                  <td className="py-1.5 pr-3" title={a.userEmail ?? undefined}>
                     {a.userName ?? '—'}
                   </td>
-                  <td className="pr-3">
+                  <td className="py-1.5 pr-3">
                     <span>{a.actionText.charAt(0).toUpperCase() + a.actionText.slice(1)}</span>
                     <div className="text-asphalt-muted">
                       {a.entity === 'segment' && a.entityId ? (

@@ -15,9 +15,10 @@ const ROLES: Role[] = ['admin', 'engineer', 'viewer'];
 const ROLE_NAMES: Record<Role, string> = { admin: 'Admin', engineer: 'Engineer', viewer: 'Viewer' };
 const LABELS = { email: 'E-mail', role: 'Role' };
 const ROLE_HELP: Record<Role, string> = {
-  admin: 'members, settings, catalog and prices, and everything an engineer does',
-  engineer: 'inventory, imports, surveys, alternatives and plans; publishes plans',
-  viewer: 'reads published plans, briefs and the inventory map',
+  admin: 'An admin runs the agency: members, settings, the catalog and its prices, and everything an engineer does.',
+  engineer:
+    'An engineer keeps the inventory, imports, surveys and treatments, compares alternatives, and builds and publishes plans.',
+  viewer: 'A viewer reads published plans, their briefs, and the inventory and its map.',
 };
 
 export function MembersPage() {
@@ -78,7 +79,7 @@ export function MembersPage() {
             <FormAlert messages={f.others} />
           </div>
           <p className="w-full text-xs text-asphalt-muted">
-            {ROLE_NAMES[role]}s can see and do: {ROLE_HELP[role]}. The link is valid for seven days.
+            {ROLE_HELP[role]} The invitation link is valid for seven days.
           </p>
         </form>
       </Card>
@@ -86,19 +87,19 @@ export function MembersPage() {
         <table className="w-full text-sm">
           <thead className="text-left text-xs font-bold text-asphalt-muted">
             <tr>
-              <th className="py-1">Name</th>
-              <th>E-mail</th>
-              <th>Role</th>
-              <th>Since</th>
+              <th className="py-1 pr-3">Name</th>
+              <th className="pr-3">E-mail</th>
+              <th className="pr-3">Role</th>
+              <th className="pr-3">Since</th>
               <th />
             </tr>
           </thead>
           <tbody>
             {members.data?.members.map((m) => (
               <tr key={m.userId} className="border-t border-asphalt-line/60">
-                <td className="py-1.5">{m.name}</td>
-                <td>{m.email}</td>
-                <td>
+                <td className="py-1.5 pr-3">{m.name}</td>
+                <td className="pr-3">{m.email}</td>
+                <td className="pr-3">
                   <Select
                     aria-label={`Role of ${m.email}`}
                     className="w-32"
@@ -118,7 +119,7 @@ export function MembersPage() {
                     ))}
                   </Select>
                 </td>
-                <td className="num">{fmtDate(m.since)}</td>
+                <td className="num pr-3">{fmtDate(m.since)}</td>
                 <td className="text-right">
                   {m.userId !== me?.user.id && (
                     <Button

@@ -74,9 +74,11 @@ export function RoadsPage() {
       <PageHeader
         title="Roads"
         caption={
-          t
-            ? `${fmtInt(t.count)} segments${filtered ? ' match' : ''} · ${fmt1(t.miles)} mi · ${fmt1(t.laneMiles)} lane-mi · ${fmtInt(t.areaSy)} SY · PCI ${fmt1(t.weightedPci)} (length-weighted)`
-            : 'Loading…'
+          !t
+            ? 'Loading…'
+            : t.count === 0 && filtered
+              ? 'No segment matches the filters.'
+              : `${fmtInt(t.count)} segments${filtered ? ' match' : ''} · ${fmt1(t.miles)} mi · ${fmt1(t.laneMiles)} lane-mi · ${fmtInt(t.areaSy)} SY · PCI ${fmt1(t.weightedPci)} (length-weighted)`
         }
         actions={
           <>
@@ -161,13 +163,13 @@ export function RoadsPage() {
           ))}
           {!districtKnown && <option value={filters.district}>{filters.district}</option>}
         </Select>
+      </div>
+      <div className="mb-3 flex flex-wrap items-center justify-end gap-2 text-sm">
         {filtered && (
-          <Button variant="ghost" onClick={clearFilters}>
+          <Button variant="secondary" onClick={clearFilters}>
             Clear filters
           </Button>
         )}
-      </div>
-      <div className="mb-3 flex flex-wrap items-center justify-end gap-2 text-sm">
         <span className="mr-auto text-xs text-asphalt-muted">
           Tick rows, click a road on the map (shift-click adds), or draw a box on the map to select.
         </span>

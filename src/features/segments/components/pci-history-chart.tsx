@@ -14,7 +14,8 @@ const asDate = (d: string) => new Date(d.length === 4 ? `${d}-07-01` : d);
 /** PCI over time: survey points on the condition bands, every recorded treatment marked. */
 export function PciHistoryChart({ surveys, treatments, height = 240 }: Props) {
   const { ref, width } = useChartWidth(640);
-  const m = { top: 12, right: 16, bottom: 26, left: 36 };
+  // Treatment labels sit above the plot, one or two lines, clear of the survey line.
+  const m = { top: treatments.length ? 38 : 12, right: 16, bottom: 26, left: 36 };
   const dates = [...surveys.map((s) => asDate(s.surveyDate)), ...treatments.map((t) => asDate(t.date))];
   const first = new Date(Math.min(...dates.map(Number)));
   const last = new Date(Math.max(...dates.map(Number)));
@@ -74,8 +75,14 @@ export function PciHistoryChart({ surveys, treatments, height = 240 }: Props) {
         {placed.map(({ t, at, row, i }) => {
           return (
             <g key={`${t.date}-${i}`} data-testid="treatment-mark">
-              <line x1={at} x2={at} y1={m.top} y2={height - m.bottom} stroke="#0f766e" strokeDasharray="3 3" />
-              <ChartText kind="note" x={at + 4} y={m.top + 10 + row * 12} className="fill-accent font-bold">
+              <line x1={at} x2={at} y1={row ? 26 : 14} y2={height - m.bottom} stroke="#0f766e" strokeDasharray="3 3" />
+              <ChartText
+                kind="note"
+                // A label that would run off the right edge reads leftwards from its line.
+                {...(at + 4 + textWidth(t.label, 'note') > width ? { x: at - 4, textAnchor: 'end' } : { x: at + 4 })}
+                y={row ? 34 : 22}
+                className="fill-accent font-bold"
+              >
                 {t.label}
               </ChartText>
             </g>

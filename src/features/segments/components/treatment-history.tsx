@@ -31,7 +31,9 @@ export function TreatmentHistory({ records, inventory }: Props) {
             <td className="whitespace-nowrap py-1 pr-3">{r.treatedOn}</td>
             <td className="pr-3">
               <div className="font-semibold">{r.name}</div>
-              <div className="text-xs text-asphalt-muted">{TREATMENT_KIND_LABELS[r.kind]}</div>
+              {TREATMENT_KIND_LABELS[r.kind] !== r.name.toLowerCase() && (
+                <div className="text-xs text-asphalt-muted">{TREATMENT_KIND_LABELS[r.kind]}</div>
+              )}
               {r.notes && <div className="text-xs text-asphalt-muted">{r.notes}</div>}
             </td>
             <td className="pr-3">
