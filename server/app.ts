@@ -18,10 +18,12 @@ import { lccaRoutes } from './lcca/lcca.routes';
 import { forecastRoutes } from './forecast/forecast.routes';
 import { planRoutes } from './plans/plans.routes';
 import { auditRoutes } from './audit-log/audit.routes';
+import { installPlainZodMessages } from '../shared/schemas/plain-errors';
 import { agencyRoutes } from './agencies/agencies.routes';
 import { memberRoutes } from './members/members.routes';
 import { buildOpenApiDocument } from './openapi/openapi';
 import { segmentRoutes } from './segments/segments.routes';
+import { segmentHistoryRoutes } from './segment-history/segment-history.routes';
 
 const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
 
@@ -45,6 +47,8 @@ function sessionStore(store: session.Store) {
 export const JSON_LIMIT = '1mb';
 
 export function createApp(deps: Deps) {
+  // Validation errors name the field in plain words (`body.widthFt — must be more than 0`).
+  installPlainZodMessages();
   const app = express();
   app.disable('x-powered-by');
   if (deps.config.trustProxy) app.set('trust proxy', 1);
@@ -81,6 +85,7 @@ export function createApp(deps: Deps) {
   const routes = createApiRoutes();
   authRoutes(routes, deps, pp);
   segmentRoutes(routes, deps);
+  segmentHistoryRoutes(routes, deps);
   memberRoutes(routes, deps);
   importRoutes(routes, deps);
   catalogRoutes(routes, deps);

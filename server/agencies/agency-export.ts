@@ -7,8 +7,9 @@ import * as catalogRepo from '../catalog/catalog.repo';
 import { toCsv } from '../csv';
 import type { Deps } from '../deps';
 import { agencies, analyses, curveOverrides, importMappings, plans, segments, surveys } from '../db/schema';
+import { treatmentRecordsCsv } from '../segment-history/segment-history.archive';
 import { segmentsCsv } from '../segments/segments.export';
-import { ARCHIVE_FORMAT, type ArchiveFile } from './archive-schemas';
+import { ARCHIVE_FORMAT, type ArchiveFile, type OptionalArchiveFile } from './archive-schemas';
 
 export const sha256 = (s: string) => crypto.createHash('sha256').update(s).digest('hex');
 
@@ -31,6 +32,7 @@ export async function exportAgency(deps: Deps, agencyId: string) {
     .where(eq(analyses.agencyId, agencyId))
     .orderBy(asc(analyses.name))
     .all();
+  const done = treatmentRecordsCsv(deps.db, agencyId, idToSeg);
   const curveRows = deps.db
     .select()
     .from(curveOverrides)
@@ -44,7 +46,7 @@ export async function exportAgency(deps: Deps, agencyId: string) {
     .orderBy(asc(importMappings.kind))
     .all();
 
-  const files: Record<ArchiveFile, string> = {
+  const files: Record<ArchiveFile | OptionalArchiveFile, string> = {
     'segments.csv': segmentsCsv(segRows),
     'segments.geojson': JSON.stringify({
       type: 'FeatureCollection',
@@ -79,6 +81,7 @@ export async function exportAgency(deps: Deps, agencyId: string) {
         .map((v) => [idToSeg.get(v.segmentRef) ?? '', v.surveyDate, v.pci, v.source ?? ''])
         .sort((a, b) => String(a[0]).localeCompare(String(b[0])) || String(a[1]).localeCompare(String(b[1]))),
     ),
+    'treatment-records.csv': done.csv,
     'catalog.json': JSON.stringify({ mixes: mixList, treatments: treatmentList }, null, 1),
     'plans.json': JSON.stringify(
       planRows.map((p) => ({
@@ -123,6 +126,7 @@ export async function exportAgency(deps: Deps, agencyId: string) {
     counts: {
       segments: segRows.length,
       surveys: surveyRows.length,
+      treatmentRecords: done.count,
       mixes: mixList.length,
       treatments: treatmentList.length,
       plans: planRows.length,

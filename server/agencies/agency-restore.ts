@@ -16,6 +16,7 @@ import {
   surveys,
   treatments,
 } from '../db/schema';
+import { restoreTreatmentRecords } from '../segment-history/segment-history.archive';
 import { badArchive, readArchive } from './archive-read';
 import { validateArchive } from './archive-validate';
 
@@ -24,6 +25,7 @@ export type RestoreReport = {
   counts: {
     segments: number;
     surveys: number;
+    treatmentRecords: number;
     mixes: number;
     treatments: number;
     plans: number;
@@ -43,6 +45,7 @@ export async function restoreAgency(deps: Deps, userId: string, buf: Buffer, nam
   const counts: RestoreReport['counts'] = {
     segments: 0,
     surveys: 0,
+    treatmentRecords: 0,
     mixes: 0,
     treatments: 0,
     plans: 0,
@@ -163,6 +166,7 @@ export async function restoreAgency(deps: Deps, userId: string, buf: Buffer, nam
         .run();
       counts.surveys++;
     }
+    counts.treatmentRecords = restoreTreatmentRecords(tx, agencyId, data.treatmentRecords, refOf);
     for (const p of data.plans) {
       const settings = { ...p.settings, treatmentIds: p.settings.treatmentIds.map((id) => treatmentId.get(id)!) };
       tx.insert(plans)

@@ -4,6 +4,8 @@ import {
   type ArchiveFile,
   ARCHIVE_ENTRY_BYTES,
   ARCHIVE_FILES,
+  OPTIONAL_ARCHIVE_FILES,
+  type OptionalArchiveFile,
   type Manifest,
   ManifestSchema,
   MAX_ARCHIVE_EXPANDED_BYTES,
@@ -27,9 +29,12 @@ export function badArchive(issues: ArchiveIssue[]) {
 
 const one = (path: string, message: string) => badArchive([{ path, message }]);
 
-export type ArchiveText = { manifest: Manifest; files: Record<ArchiveFile, string> };
+export type ArchiveText = {
+  manifest: Manifest;
+  files: Record<ArchiveFile, string> & Partial<Record<OptionalArchiveFile, string>>;
+};
 
-const WANTED = new Set<string>(['manifest.json', ...ARCHIVE_FILES]);
+const WANTED = new Set<string>(['manifest.json', ...ARCHIVE_FILES, ...OPTIONAL_ARCHIVE_FILES]);
 
 export async function readArchive(buf: Buffer): Promise<ArchiveText> {
   await refuseDeclaredOver(buf, {
@@ -61,10 +66,17 @@ export async function readArchive(buf: Buffer): Promise<ArchiveText> {
     throw badArchive(
       parsed.error.issues.map((i) => ({ path: ['manifest.json', ...i.path].join('.'), message: i.message })),
     );
-  const files = {} as Record<ArchiveFile, string>;
+  const files = {} as ArchiveText['files'];
   for (const n of ARCHIVE_FILES) {
     files[n] = text(n);
     if (sha256(files[n]) !== parsed.data.files[n])
+      throw one(n, 'does not match its hash in the manifest; the archive is damaged or was edited');
+  }
+  for (const n of OPTIONAL_ARCHIVE_FILES) {
+    const hash = parsed.data.files[n];
+    if (hash === undefined) continue;
+    files[n] = text(n);
+    if (sha256(files[n]) !== hash)
       throw one(n, 'does not match its hash in the manifest; the archive is damaged or was edited');
   }
   return { manifest: parsed.data, files };

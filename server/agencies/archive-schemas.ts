@@ -21,13 +21,17 @@ export const ARCHIVE_FILES = [
   'import-mappings.json',
 ] as const;
 export type ArchiveFile = (typeof ARCHIVE_FILES)[number];
+/** Files added after the first archives were made: checked when the manifest lists them. */
+export const OPTIONAL_ARCHIVE_FILES = ['treatment-records.csv'] as const;
+export type OptionalArchiveFile = (typeof OPTIONAL_ARCHIVE_FILES)[number];
 
 /** The most each file may inflate to (the whole archive: 500 MB), whatever the zip declares. */
-export const ARCHIVE_ENTRY_BYTES: Record<ArchiveFile | 'manifest.json', number> = {
+export const ARCHIVE_ENTRY_BYTES: Record<ArchiveFile | OptionalArchiveFile | 'manifest.json', number> = {
   'manifest.json': 1024 * 1024,
   'segments.csv': 200 * 1024 * 1024,
   'segments.geojson': 250 * 1024 * 1024,
   'surveys.csv': 100 * 1024 * 1024,
+  'treatment-records.csv': 50 * 1024 * 1024,
   'catalog.json': 5 * 1024 * 1024,
   'plans.json': 20 * 1024 * 1024,
   'analyses.json': 100 * 1024 * 1024,
@@ -53,6 +57,7 @@ export const ManifestSchema = z.object({
   counts: z.record(z.string().max(40), z.number().int().min(0)),
   files: z
     .object(Object.fromEntries(ARCHIVE_FILES.map((f) => [f, sha256])) as Record<ArchiveFile, typeof sha256>)
+    .extend({ 'treatment-records.csv': sha256.optional() })
     .strict(),
 });
 export type Manifest = z.infer<typeof ManifestSchema>;

@@ -12,6 +12,7 @@ import { unescapeFormula } from '../csv';
 import { fitVertices, geometryProblem, type LineGeometry, looksLonLat, to2d } from '../imports/geometry';
 import { normalizeSegmentRow, normalizeSurveyRow, type ReadOptions, type SegmentInput } from '../imports/normalize';
 import { MAX_ROWS, type RawRow, tableFromFeatures } from '../imports/read-file';
+import { type ArchivedTreatmentRecord, parseTreatmentRecords } from '../segment-history/segment-history.archive';
 import type { ArchiveIssue, ArchiveText } from './archive-read';
 import {
   ArchiveAnalysisSchema,
@@ -19,6 +20,7 @@ import {
   ArchiveMappingSchema,
   ArchivePlanSchema,
   ArchiveRefSchema,
+  type ArchiveFile,
 } from './archive-schemas';
 
 export type RestoreData = {
@@ -30,6 +32,7 @@ export type RestoreData = {
   analyses: { name: string; input: StudyInput }[];
   curves: z.infer<typeof ArchiveCurveSchema>[];
   mappings: z.infer<typeof ArchiveMappingSchema>[];
+  treatmentRecords: ArchivedTreatmentRecord[];
 };
 
 const READ: ReadOptions = {
@@ -49,7 +52,7 @@ export function validateArchive(a: ArchiveText): { data: RestoreData; issues: Ar
   const add = (file: string, at: string, message: string) => issues.push({ path: `${file}, ${at}`, message });
   const zodIssues = (file: string, prefix: PropertyKey[], err: z.ZodError) =>
     err.issues.forEach((i) => add(file, where([...prefix, ...i.path]), i.message));
-  const json = (file: keyof ArchiveText['files']): unknown => {
+  const json = (file: ArchiveFile): unknown => {
     try {
       return JSON.parse(a.files[file]);
     } catch {
@@ -196,6 +199,21 @@ export function validateArchive(a: ArchiveText): { data: RestoreData; issues: Ar
     mappingsOut.push(r.data);
   });
 
+  // Treatment records (archives made before they existed have none): the API's schema, row by row.
+  const recordsOut: RestoreData['treatmentRecords'] = [];
+  const recordsCsv = a.files['treatment-records.csv'];
+  if (recordsCsv !== undefined) {
+    const segIds = new Set(segmentsOut.map((s) => s.seg.segmentId));
+    const names = new Set(treatmentsOut.map((t) => t.input.name));
+    parseTreatmentRecords(recordsCsv, (at, m) => add('treatment-records.csv', at, m)).forEach((r, i) => {
+      if (segmentsRead && !segIds.has(r.segmentId))
+        add('treatment-records.csv', `row ${i + 2}, segment_id`, 'names a segment that segments.geojson does not have');
+      else if (r.catalogTreatment && !names.has(r.catalogTreatment))
+        add('treatment-records.csv', `row ${i + 2}, catalog_treatment`, 'names a treatment the archive does not have');
+      else recordsOut.push(r);
+    });
+  }
+
   return {
     data: {
       segments: segmentsOut,
@@ -206,6 +224,7 @@ export function validateArchive(a: ArchiveText): { data: RestoreData; issues: Ar
       analyses: analysesOut,
       curves: curvesOut,
       mappings: mappingsOut,
+      treatmentRecords: recordsOut,
     },
     issues,
   };

@@ -152,6 +152,32 @@ export const surveys = sqliteTable(
   ],
 );
 
+// Work done on a segment, one row per job: what the segment page lists as its
+// treatment history. The segment's last_treatment columns follow the newest row.
+export const treatmentRecords = sqliteTable(
+  'treatment_records',
+  {
+    id: integer().primaryKey({ autoIncrement: true }),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    segmentRef: integer()
+      .notNull()
+      .references(() => segments.id, { onDelete: 'cascade' }),
+    treatedOn: text().notNull(), // ISO date the work was finished
+    kind: text().notNull(), // TREATMENT_KINDS
+    name: text().notNull(),
+    treatmentId: text().references(() => treatments.id, { onDelete: 'set null' }),
+    mix: text(),
+    thicknessIn: real(),
+    costUsd: real(),
+    notes: text(),
+    userId: text().references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('treatment_records_segment').on(t.segmentRef, t.treatedOn)],
+);
+
 export const auditLog = sqliteTable(
   'audit_log',
   {

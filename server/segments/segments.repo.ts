@@ -44,7 +44,8 @@ function filters(agencyId: string, q: SegmentFilter): SQL {
   }
   if (q.class?.length) parts.push(inArray(segments.functionalClass, q.class));
   if (q.surface?.length) parts.push(inArray(segments.surface, q.surface));
-  if (q.district) parts.push(eq(segments.district, q.district));
+  // Districts are typed by people and imported from files: match them whatever the case.
+  if (q.district) parts.push(sql`trim(${segments.district}) = ${q.district} COLLATE NOCASE`);
   if (q.ids?.length) parts.push(inArray(segments.id, q.ids));
   if (q.band?.length) {
     const bandParts: SQL[] = [];
@@ -66,6 +67,10 @@ const sortColumns = {
   segmentId: segments.segmentId,
   roadName: segments.roadName,
   lengthMi: segments.lengthMi,
+  widthFt: segments.widthFt,
+  lanes: segments.lanes,
+  adt: segments.adt,
+  surface: segments.surface,
   pci: segments.pci,
   functionalClass: segments.functionalClass,
   district: segments.district,
@@ -105,6 +110,17 @@ export function networkStats(db: Db, agencyId: string) {
     .where(eq(segments.agencyId, agencyId))
     .all();
   return rows;
+}
+
+export function districtsOf(db: Db, agencyId: string) {
+  const name = sql<string>`min(trim(${segments.district}))`;
+  return db
+    .select({ name, segments: sql<number>`count(*)` })
+    .from(segments)
+    .where(and(eq(segments.agencyId, agencyId), sql`trim(coalesce(${segments.district}, '')) <> ''`))
+    .groupBy(sql`trim(${segments.district}) COLLATE NOCASE`)
+    .orderBy(sql`trim(${segments.district}) COLLATE NOCASE`)
+    .all();
 }
 
 export function segmentById(db: Db, agencyId: string, id: number) {

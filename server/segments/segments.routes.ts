@@ -1,5 +1,6 @@
 import { AgencyParamsSchema } from '../../shared/schemas/common';
 import {
+  DistrictListSchema,
   NetworkSummarySchema,
   SegmentDetailSchema,
   SegmentListQuerySchema,
@@ -48,6 +49,16 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
     params: AgencyParamsSchema,
     response: NetworkSummarySchema,
     handler: ({ agency }) => service.networkSummary(deps, agency!.id),
+  });
+  api.add({
+    method: 'get',
+    path: '/api/agencies/:agencyId/districts',
+    tag: 'Segments',
+    summary: "The agency's districts with their segment counts, for the district filter",
+    access: { kind: 'agency', role: 'viewer' },
+    params: AgencyParamsSchema,
+    response: DistrictListSchema,
+    handler: ({ agency }) => service.districtList(deps, agency!.id),
   });
   api.add({
     method: 'get',

@@ -6,10 +6,14 @@ import { recordAudit } from '../audit';
 import type { Deps } from '../deps';
 import { segments } from '../db/schema';
 import { notFound } from '../http/errors';
-import { listSegments, networkStats, segmentById, surveysOf, toSegment } from './segments.repo';
+import { districtsOf, listSegments, networkStats, segmentById, surveysOf, toSegment } from './segments.repo';
 
 export function segmentList(deps: Deps, agencyId: string, q: SegmentListQuery) {
   return listSegments(deps.db, agencyId, q);
+}
+
+export function districtList(deps: Deps, agencyId: string) {
+  return { items: districtsOf(deps.db, agencyId) };
 }
 
 export function networkSummary(deps: Deps, agencyId: string): NetworkSummary {

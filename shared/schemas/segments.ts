@@ -59,7 +59,20 @@ export const SegmentListQuerySchema = z.object({
       z.array(z.coerce.number().int().positive()).max(5000),
     )
     .optional(),
-  sort: z.enum(['segmentId', 'roadName', 'lengthMi', 'pci', 'functionalClass', 'district']).default('segmentId'),
+  sort: z
+    .enum([
+      'segmentId',
+      'roadName',
+      'lengthMi',
+      'widthFt',
+      'lanes',
+      'adt',
+      'surface',
+      'pci',
+      'functionalClass',
+      'district',
+    ])
+    .default('segmentId'),
   dir: z.enum(['asc', 'desc']).default('asc'),
 });
 export type SegmentListQuery = z.infer<typeof SegmentListQuerySchema>;
@@ -78,6 +91,12 @@ export const SegmentListResponseSchema = z.object({
   totals: SegmentTotalsSchema,
 });
 export type SegmentListResponse = z.infer<typeof SegmentListResponseSchema>;
+
+/** The agency's districts for the filter's choice list (spellings that differ only in case count as one). */
+export const DistrictListSchema = z.object({
+  items: z.array(z.object({ name: z.string(), segments: z.number().int() })),
+});
+export type DistrictList = z.infer<typeof DistrictListSchema>;
 
 export const NetworkSummarySchema = z.object({
   agencyName: z.string(),

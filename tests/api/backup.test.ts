@@ -24,6 +24,16 @@ beforeAll(async () => {
     name: 'Archived plan',
     settings: { startYear: 2027, horizonYears: 5, budgetMode: 'flat', annualBudget: 1_000_000 },
   });
+  // …and a recorded job, with a catalog treatment, so treatment records travel too.
+  const catalog = await admin.get(`/api/agencies/${t.ids.brannock}/catalog`);
+  await admin.post(`/api/agencies/${t.ids.brannock}/segments/1/treatments`).send({
+    treatedOn: '2025-08-12',
+    kind: 'chip_seal',
+    name: 'Chip seal, single',
+    treatmentId: catalog.body.treatments.find((x: { kind: string }) => x.kind === 'chip_seal').id,
+    costUsd: 41_250,
+    notes: 'Contract 25-07',
+  });
   await admin
     .put(`/api/agencies/${t.ids.brannock}/forecast/curves`)
     .send({ familyKey: 'asphalt|local|overlay', curve: { p0: 99, a: 0.6, b: 1.5 } });
@@ -45,7 +55,14 @@ describe('agency export and restore', () => {
     expect(exp.headers['content-type']).toBe('application/zip');
     const a = await files(exp.body as Buffer);
     const manifest = JSON.parse(a['manifest.json']);
-    expect(manifest.counts).toMatchObject({ segments: 1224, mixes: 4, treatments: 7, plans: 1, curves: 1 });
+    expect(manifest.counts).toMatchObject({
+      segments: 1224,
+      mixes: 4,
+      treatments: 7,
+      plans: 1,
+      curves: 1,
+      treatmentRecords: 1,
+    });
     expect(manifest.counts.surveys).toBeGreaterThan(7000);
 
     const restored = await admin
@@ -65,6 +82,7 @@ describe('agency export and restore', () => {
       'segments.csv',
       'segments.geojson',
       'surveys.csv',
+      'treatment-records.csv',
       'curves.json',
       'import-mappings.json',
       'analyses.json',
@@ -85,6 +103,9 @@ describe('agency export and restore', () => {
     expect(strip(b['catalog.json'])).toEqual(strip(a['catalog.json']));
     const plansOf = (txt: string) => JSON.parse(txt).map(({ id: _i, ...p }: { id: string }) => p);
     expect(plansOf(b['plans.json'])).toEqual(plansOf(a['plans.json']));
+    expect(a['treatment-records.csv']).toContain(
+      'BC-E00-00,2025-08-12,chip_seal,"Chip seal, single",Chip seal,,,41250,Contract 25-07',
+    );
   });
 
   it('refuses an edited archive, and another agency cannot export', async () => {

@@ -47,6 +47,7 @@ describe('names in the brief', () => {
     const text = (pdf.body as Buffer).toString('latin1');
     // The document title carries the agency name, written by pdfkit as a UTF-16BE string
     // (each 'M' is the bytes 00 4D): its longest run of M is the clipped name.
+    // biome-ignore lint/suspicious/noControlCharactersInRegex: the NUL byte is the point: UTF-16BE 'M' is 00 4D
     const runs = [...text.matchAll(/(?:\u0000M)+/g)].map((m) => m[0].length / 2);
     const longest = Math.max(0, ...runs);
     expect(longest).toBeGreaterThanOrEqual(100);

@@ -93,7 +93,7 @@ describe('inventory: import through the UI, then table and map', () => {
       await page.waitForFunction(
         () => document.querySelector('[data-testid=segment-table]')?.getAttribute('data-total') === '24',
       );
-      await page.locator('[data-testid=segment-table] [role=row][data-segment] button').first().click();
+      await page.locator('[data-testid=segment-table] [role=row][data-segment] a').first().click();
       await page.getByTestId('pci-chart').waitFor();
       expect(await page.getByTestId('pci-chart').locator('circle').count()).toBe(8);
       await page.getByTestId('network-map').waitFor();

@@ -1,114 +1,110 @@
-import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
-import { Select, TextInput } from '@/components/ui/field';
+import { Link } from 'react-router-dom';
+import { Field, Select, TextInput } from '@/components/ui/field';
 import { Card, EmptyState, PageHeader } from '@/components/ui/page';
-import { api } from '@/lib/api-client';
+import { auditParams, useAudit } from '@/features/activity/api/get-audit';
+import { AuditChanges } from '@/features/activity/components/audit-changes';
+import { fmtInt } from '@/lib/format';
 import { useAgency } from '../use-agency';
 
-type AuditItem = {
-  id: number;
-  at: string;
-  action: string;
-  entity: string;
-  entityId: string | null;
-  detail: unknown;
-  userName: string | null;
-  userEmail: string | null;
-};
-
-const ENTITIES = [
-  'segment',
-  'import',
-  'mix',
-  'treatment',
-  'agency',
-  'plan',
-  'analysis',
-  'membership',
-  'invitation',
-  'curve',
+const ENTITIES: [string, string][] = [
+  ['segment', 'Roads and surveys'],
+  ['import', 'Imports'],
+  ['mix', 'Mixes'],
+  ['treatment', 'Catalog treatments'],
+  ['agency', 'Agency settings and economics'],
+  ['plan', 'Plans'],
+  ['analysis', 'Comparisons'],
+  ['curve', 'Deterioration curves'],
+  ['membership', 'Members'],
+  ['invitation', 'Invitations'],
 ];
+
+/** "2026-12-02 14:05" in the reader's own time zone. */
+const when = (iso: string) => {
+  const d = new Date(iso);
+  const p = (n: number) => String(n).padStart(2, '0');
+  return `${d.getFullYear()}-${p(d.getMonth() + 1)}-${p(d.getDate())} ${p(d.getHours())}:${p(d.getMinutes())}`;
+};
 
 export function ActivityPage() {
   const { agencyId } = useAgency();
   const [entity, setEntity] = useState('');
   const [from, setFrom] = useState('');
   const [to, setTo] = useState('');
-  const params = new URLSearchParams();
-  if (entity) params.set('entity', entity);
-  if (from) params.set('from', from);
-  if (to) params.set('to', to);
-  const audit = useQuery({
-    queryKey: ['audit', agencyId, params.toString()],
-    queryFn: () => api<{ total: number; items: AuditItem[] }>(`/api/agencies/${agencyId}/audit?${params}`),
-  });
+  const filters = { entity, from, to };
+  const audit = useAudit(agencyId, filters);
   return (
     <div className="space-y-4">
       <PageHeader
         title="Activity"
-        caption="Every change to roads, surveys, prices, plans and members: who, when, and what changed."
+        caption="Every change to roads, surveys, treatments, prices, plans and members: who, when, and what changed, before and after."
         actions={
           <a
-            className="rounded border border-asphalt-line bg-white px-3 py-1.5 text-sm font-semibold"
-            href={`/api/agencies/${agencyId}/audit.csv?${params}`}
+            className="rounded border border-asphalt-line bg-white px-3 py-1.5 text-sm font-semibold hover:border-asphalt-muted"
+            href={`/api/agencies/${agencyId}/audit.csv?${auditParams(filters)}`}
           >
             Export CSV
           </a>
         }
       />
-      <div className="flex flex-wrap items-end gap-2 text-sm">
-        <Select aria-label="Entity" className="w-40" value={entity} onChange={(e) => setEntity(e.target.value)}>
-          <option value="">Everything</option>
-          {ENTITIES.map((x) => (
-            <option key={x} value={x}>
-              {x}
-            </option>
-          ))}
-        </Select>
-        <label>
-          From{' '}
-          <TextInput
-            aria-label="From"
-            type="date"
-            className="w-40"
-            value={from}
-            onChange={(e) => setFrom(e.target.value)}
-          />
-        </label>
-        <label>
-          To{' '}
-          <TextInput aria-label="To" type="date" className="w-40" value={to} onChange={(e) => setTo(e.target.value)} />
-        </label>
-        <span className="num text-asphalt-muted">{audit.data?.total ?? 0} entries</span>
+      <div className="flex flex-wrap items-end gap-3 text-sm">
+        <Field label="Show" className="w-60">
+          <Select value={entity} onChange={(e) => setEntity(e.target.value)}>
+            <option value="">Everything</option>
+            {ENTITIES.map(([v, label]) => (
+              <option key={v} value={v}>
+                {label}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Field label="From" className="w-40">
+          <TextInput type="date" value={from} onChange={(e) => setFrom(e.target.value)} />
+        </Field>
+        <Field label="To" className="w-40">
+          <TextInput type="date" value={to} onChange={(e) => setTo(e.target.value)} />
+        </Field>
+        <span className="num pb-2 text-asphalt-muted" data-testid="audit-total">
+          {fmtInt(audit.data?.total ?? 0)} entries
+          {(audit.data?.total ?? 0) > 200 ? ' (the latest 200 shown; the CSV has all)' : ''}
+        </span>
       </div>
       {audit.data?.items.length ? (
         <Card>
-          <table className="num w-full text-sm" data-testid="audit-table">
-            <thead className="text-left text-xs uppercase text-asphalt-muted">
+          <table className="w-full text-sm" data-testid="audit-table">
+            <thead className="text-left text-xs font-bold text-asphalt-muted">
               <tr>
-                <th className="py-1">When</th>
-                <th>Who</th>
-                <th>Action</th>
-                <th>What</th>
-                <th>Change</th>
+                <th className="w-36 py-1 pr-3">When</th>
+                <th className="w-40 pr-3">Who</th>
+                <th className="pr-3">What happened</th>
+                <th>Changes</th>
               </tr>
             </thead>
             <tbody>
               {audit.data.items.map((a) => (
-                <tr key={a.id} className="border-t border-asphalt-line/60 align-top">
-                  <td className="whitespace-nowrap py-1">{a.at.replace('T', ' ').slice(0, 19)}</td>
-                  <td>{a.userName ?? '—'}</td>
-                  <td>{a.action}</td>
-                  <td>
-                    {a.entity}{' '}
-                    {a.entityId ? (
-                      <span className="text-asphalt-muted">
-                        {a.entityId.length > 20 ? `${a.entityId.slice(0, 8)}…` : a.entityId}
-                      </span>
-                    ) : null}
+                <tr key={a.id} className="border-t border-asphalt-line/60 align-top" data-action={a.action}>
+                  <td className="num whitespace-nowrap py-1.5 pr-3">{when(a.at)}</td>
+                  <td className="py-1.5 pr-3" title={a.userEmail ?? undefined}>
+                    {a.userName ?? '—'}
                   </td>
-                  <td className="max-w-md truncate font-mono text-xs" title={JSON.stringify(a.detail)}>
-                    {a.detail ? JSON.stringify(a.detail) : ''}
+                  <td className="py-1.5 pr-3">
+                    <span>{a.actionText.charAt(0).toUpperCase() + a.actionText.slice(1)}</span>
+                    <div className="text-asphalt-muted">
+                      {a.entity === 'segment' && a.entityId ? (
+                        <Link
+                          className="text-accent hover:underline"
+                          to={`../roads?q=${encodeURIComponent(a.entityId)}`}
+                        >
+                          {a.what}
+                        </Link>
+                      ) : (
+                        a.what
+                      )}
+                    </div>
+                  </td>
+                  <td className="num py-1.5">
+                    <AuditChanges item={a} />
                   </td>
                 </tr>
               ))}
@@ -116,7 +112,7 @@ export function ActivityPage() {
           </table>
         </Card>
       ) : (
-        <EmptyState>No activity matches.</EmptyState>
+        <EmptyState>{audit.isLoading ? 'Loading…' : 'No activity matches these filters.'}</EmptyState>
       )}
     </div>
   );

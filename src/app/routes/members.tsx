@@ -1,8 +1,10 @@
 import { useState, type FormEvent } from 'react';
 import { toast } from 'sonner';
 import type { Role } from '@shared/schemas/common';
+import { InviteBodySchema } from '@shared/schemas/members';
 import { Button } from '@/components/ui/button';
-import { Field, Select, TextInput } from '@/components/ui/field';
+import { Field, FormAlert, Select, TextInput } from '@/components/ui/field';
+import { describeError, useFieldErrors } from '@/components/ui/form-errors';
 import { Card, PageHeader } from '@/components/ui/page';
 import { useMembers } from '@/features/members/api/get-members';
 import { useChangeRole, useInvite, useRemoveMember, useRevokeInvitation } from '@/features/members/api/manage-members';
@@ -10,10 +12,13 @@ import { fmtDate } from '@/lib/format';
 import { useAgency } from '../use-agency';
 
 const ROLES: Role[] = ['admin', 'engineer', 'viewer'];
+const ROLE_NAMES: Record<Role, string> = { admin: 'Admin', engineer: 'Engineer', viewer: 'Viewer' };
+const LABELS = { email: 'E-mail', role: 'Role' };
 const ROLE_HELP: Record<Role, string> = {
-  admin: 'members, settings, catalog and prices, and everything an engineer does',
-  engineer: 'inventory, imports, surveys, alternatives and plans; publishes plans',
-  viewer: 'reads published plans, briefs and the inventory map',
+  admin: 'An admin runs the agency: members, settings, the catalog and its prices, and everything an engineer does.',
+  engineer:
+    'An engineer keeps the inventory, imports, surveys and treatments, compares alternatives, and builds and publishes plans.',
+  viewer: 'A viewer reads published plans, their briefs, and the inventory and its map.',
 };
 
 export function MembersPage() {
@@ -25,66 +30,76 @@ export function MembersPage() {
   const remove = useRemoveMember(agencyId);
   const [email, setEmail] = useState('');
   const [role, setRole] = useState<Role>('viewer');
-  const onError = (e: Error) => toast.error(e.message);
+  const f = useFieldErrors(LABELS);
+  const onError = (e: Error) => toast.error(describeError(e, LABELS));
   const submit = (e: FormEvent) => {
     e.preventDefault();
-    invite.mutate(
-      { email, role },
-      {
-        onSuccess: () => {
-          toast.success(`Invitation sent to ${email}`);
-          setEmail('');
-        },
-        onError,
+    const body = f.check(InviteBodySchema, { email, role });
+    if (!body) return;
+    invite.mutate(body, {
+      onSuccess: () => {
+        toast.success(`Invitation sent to ${body.email}`);
+        setEmail('');
       },
-    );
+      onError: f.fromError,
+    });
   };
   return (
     <div className="space-y-5">
       <PageHeader title="Members" caption="People with access to this agency, and their roles." />
       <Card title="Invite someone">
-        <form onSubmit={submit} className="flex flex-wrap items-end gap-3">
+        <form onSubmit={submit} noValidate className="flex flex-wrap items-start gap-3" aria-label="Invite someone">
           <div className="w-72">
-            <Field label="E-mail">
-              <TextInput type="email" required value={email} onChange={(e) => setEmail(e.target.value)} />
+            <Field label={LABELS.email} error={f.error('email')}>
+              <TextInput
+                type="email"
+                value={email}
+                onChange={(e) => {
+                  setEmail(e.target.value);
+                  f.clear('email');
+                }}
+              />
             </Field>
           </div>
           <div className="w-40">
-            <Field label="Role">
-              <Select aria-label="Role" value={role} onChange={(e) => setRole(e.target.value as Role)}>
+            <Field label={LABELS.role} error={f.error('role')}>
+              <Select value={role} onChange={(e) => setRole(e.target.value as Role)}>
                 {ROLES.map((r) => (
                   <option key={r} value={r}>
-                    {r}
+                    {ROLE_NAMES[r]}
                   </option>
                 ))}
               </Select>
             </Field>
           </div>
-          <Button type="submit" disabled={invite.isPending}>
+          <Button type="submit" className="mt-6" disabled={invite.isPending}>
             Send invitation
           </Button>
+          <div className="w-full">
+            <FormAlert messages={f.others} />
+          </div>
           <p className="w-full text-xs text-asphalt-muted">
-            A {role} can see and do: {ROLE_HELP[role]}. The link is valid for seven days.
+            {ROLE_HELP[role]} The invitation link is valid for seven days.
           </p>
         </form>
       </Card>
       <Card title="Members">
         <table className="w-full text-sm">
-          <thead className="text-left text-xs uppercase tracking-wide text-asphalt-muted">
+          <thead className="text-left text-xs font-bold text-asphalt-muted">
             <tr>
-              <th className="py-1">Name</th>
-              <th>E-mail</th>
-              <th>Role</th>
-              <th>Since</th>
+              <th className="py-1 pr-3">Name</th>
+              <th className="pr-3">E-mail</th>
+              <th className="pr-3">Role</th>
+              <th className="pr-3">Since</th>
               <th />
             </tr>
           </thead>
           <tbody>
             {members.data?.members.map((m) => (
               <tr key={m.userId} className="border-t border-asphalt-line/60">
-                <td className="py-1.5">{m.name}</td>
-                <td>{m.email}</td>
-                <td>
+                <td className="py-1.5 pr-3">{m.name}</td>
+                <td className="pr-3">{m.email}</td>
+                <td className="pr-3">
                   <Select
                     aria-label={`Role of ${m.email}`}
                     className="w-32"
@@ -99,12 +114,12 @@ export function MembersPage() {
                   >
                     {ROLES.map((r) => (
                       <option key={r} value={r}>
-                        {r}
+                        {ROLE_NAMES[r]}
                       </option>
                     ))}
                   </Select>
                 </td>
-                <td className="num">{fmtDate(m.since)}</td>
+                <td className="num pr-3">{fmtDate(m.since)}</td>
                 <td className="text-right">
                   {m.userId !== me?.user.id && (
                     <Button
@@ -128,7 +143,7 @@ export function MembersPage() {
             {members.data.invitations.map((i) => (
               <li key={i.id} className="flex items-center justify-between py-1.5">
                 <span>
-                  {i.email} · {i.role} · expires {fmtDate(i.expiresAt)}
+                  {i.email} · {ROLE_NAMES[i.role]} · expires {fmtDate(i.expiresAt)}
                 </span>
                 <Button variant="ghost" onClick={() => revoke.mutate(i.id, { onError })}>
                   Withdraw

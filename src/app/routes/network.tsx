@@ -1,12 +1,13 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
 import { ConditionBar } from '@/components/condition-bar';
+import { useAudit } from '@/features/activity/api/get-audit';
+import { auditSentence } from '@/features/activity/components/audit-changes';
 import { Card, EmptyState, PageHeader, Stat } from '@/components/ui/page';
 import { useSegmentsGeoJson } from '@/features/map/api/get-segments-geojson';
 import { LazyNetworkMap } from '@/features/map/components/lazy-network-map';
 import { useNetwork } from '@/features/network/api/get-network';
 import { planResultQueryOptions, usePlans } from '@/features/plans/api/plans';
-import { api } from '@/lib/api-client';
 import { fmt1, fmtInt, fmtMoney } from '@/lib/format';
 import { useAgency } from '../use-agency';
 
@@ -35,22 +36,14 @@ function LatestPlan({ agencyId }: { agencyId: string }) {
 }
 
 function RecentActivity({ agencyId }: { agencyId: string }) {
-  const q = useQuery({
-    queryKey: ['audit', agencyId, 'recent'],
-    queryFn: () =>
-      api<{ items: { id: number; at: string; action: string; entityId: string | null; userName: string | null }[] }>(
-        `/api/agencies/${agencyId}/audit?limit=6`,
-      ),
-  });
+  const q = useAudit(agencyId, { limit: 6 });
   if (!q.data?.items.length) return <p className="text-sm text-asphalt-muted">Nothing yet.</p>;
   return (
-    <ul className="space-y-1 text-sm">
+    <ul className="space-y-1.5 text-sm" data-testid="recent-activity">
       {q.data.items.map((a) => (
-        <li key={a.id} className="flex justify-between gap-2">
-          <span>
-            {a.userName ?? 'someone'}: {a.action.replace(/\./g, ' ')}
-          </span>
-          <span className="num text-xs text-asphalt-muted">{a.at.slice(0, 10)}</span>
+        <li key={a.id} className="flex justify-between gap-3">
+          <span className="min-w-0">{auditSentence(a)}</span>
+          <span className="num shrink-0 text-xs text-asphalt-muted">{a.at.slice(0, 10)}</span>
         </li>
       ))}
     </ul>

@@ -7,31 +7,44 @@ import { Select, TextInput } from '@/components/ui/field';
 import { EmptyState, PageHeader } from '@/components/ui/page';
 import { useSegmentsGeoJson } from '@/features/map/api/get-segments-geojson';
 import { LazyNetworkMap } from '@/features/map/components/lazy-network-map';
+import { useDistricts } from '@/features/segments/api/get-districts';
 import { useSegments } from '@/features/segments/api/get-segments';
 import { SegmentTable } from '@/features/segments/components/segment-table';
 import { CLASS_LABELS, fmt1, fmtInt, SURFACE_LABELS } from '@/lib/format';
 import { useAgency } from '../use-agency';
 
 const FILTER_KEYS = ['q', 'class', 'surface', 'band', 'district'] as const;
+type Filters = Record<(typeof FILTER_KEYS)[number], string | undefined>;
+
+/** The active filters in words, for the empty table: `road or id “PV-”, surface gravel`. */
+function describeFilters(f: Filters) {
+  const band = CONDITION_BANDS.find((b) => b.id === f.band);
+  const parts = [
+    f.q && `road or id “${f.q}”`,
+    f.class && `class ${CLASS_LABELS[f.class]?.toLowerCase() ?? f.class}`,
+    f.surface && `surface ${SURFACE_LABELS[f.surface]?.toLowerCase() ?? f.surface}`,
+    f.band && (band ? `condition ${band.label.toLowerCase()} (PCI ${band.min}–${band.max})` : 'no PCI'),
+    f.district && `district ${f.district}`,
+  ].filter(Boolean);
+  return `Filtered by ${parts.join(', ')}. Loosen one of them or clear them all.`;
+}
 
 export function RoadsPage() {
   const { agencyId, membership } = useAgency();
   const navigate = useNavigate();
   const [params, setParams] = useSearchParams();
   const filters = useMemo(
-    () =>
-      Object.fromEntries(FILTER_KEYS.map((k) => [k, params.get(k) ?? undefined])) as Record<
-        (typeof FILTER_KEYS)[number],
-        string | undefined
-      >,
+    () => Object.fromEntries(FILTER_KEYS.map((k) => [k, params.get(k) ?? undefined])) as Filters,
     [params],
   );
   const [sort, setSort] = useState({ id: 'segmentId', desc: false });
   const [selected, setSelected] = useState<Set<number>>(new Set());
   const summary = useSegments(agencyId, { ...filters, limit: 1 });
   const geo = useSegmentsGeoJson(agencyId, filters);
+  const districts = useDistricts(agencyId);
   const canEdit = membership?.role === 'admin' || membership?.role === 'engineer';
   const t = summary.data?.totals;
+  const filtered = FILTER_KEYS.some((k) => filters[k]);
 
   const setFilter = (k: string, v: string) => {
     const next = new URLSearchParams(params);
@@ -39,6 +52,7 @@ export function RoadsPage() {
     else next.delete(k);
     setParams(next, { replace: true });
   };
+  const clearFilters = () => setParams(new URLSearchParams(), { replace: true });
   const exportHref = (format: 'csv' | 'xlsx') => {
     const q = new URLSearchParams({ format });
     for (const [k, v] of Object.entries(filters)) if (v) q.set(k, v);
@@ -50,15 +64,21 @@ export function RoadsPage() {
     else next.add(id);
     setSelected(next);
   };
+  // A district in the address that the list does not offer (typed by hand, or gone) still shows as chosen.
+  const districtNames = districts.data?.items.map((d) => d.name) ?? [];
+  const districtKnown =
+    !filters.district || districtNames.some((n) => n.toLowerCase() === filters.district?.toLowerCase());
 
   return (
     <div>
       <PageHeader
         title="Roads"
         caption={
-          t
-            ? `${fmtInt(t.count)} segments · ${fmt1(t.miles)} mi · ${fmt1(t.laneMiles)} lane-mi · ${fmtInt(t.areaSy)} SY · PCI ${fmt1(t.weightedPci)} (length-weighted)`
-            : 'Loading…'
+          !t
+            ? 'Loading…'
+            : t.count === 0 && filtered
+              ? 'No segment matches the filters.'
+              : `${fmtInt(t.count)} segments${filtered ? ' match' : ''} · ${fmt1(t.miles)} mi · ${fmt1(t.laneMiles)} lane-mi · ${fmtInt(t.areaSy)} SY · PCI ${fmt1(t.weightedPci)} (length-weighted)`
         }
         actions={
           <>
@@ -77,7 +97,7 @@ export function RoadsPage() {
           </>
         }
       />
-      <div className="mb-3 flex flex-wrap items-center gap-2" data-testid="filter-bar">
+      <div className="mb-2 flex flex-wrap items-center gap-2" data-testid="filter-bar">
         <TextInput
           aria-label="Road name or segment id"
           placeholder="Road name or segment id"
@@ -125,41 +145,55 @@ export function RoadsPage() {
           ))}
           <option value="none">No PCI</option>
         </Select>
-        <TextInput
+        <Select
           aria-label="District"
-          placeholder="District"
-          className="max-w-[9rem]"
-          value={filters.district ?? ''}
+          className="max-w-[12rem]"
+          value={
+            districtKnown
+              ? (districtNames.find((n) => n.toLowerCase() === filters.district?.toLowerCase()) ?? '')
+              : filters.district
+          }
           onChange={(e) => setFilter('district', e.target.value)}
-        />
-        {FILTER_KEYS.some((k) => filters[k]) && (
-          <Button variant="ghost" onClick={() => setParams(new URLSearchParams(), { replace: true })}>
+        >
+          <option value="">All districts</option>
+          {districts.data?.items.map((d) => (
+            <option key={d.name} value={d.name}>
+              {d.name} ({fmtInt(d.segments)})
+            </option>
+          ))}
+          {!districtKnown && <option value={filters.district}>{filters.district}</option>}
+        </Select>
+      </div>
+      <div className="mb-3 flex flex-wrap items-center justify-end gap-2 text-sm">
+        {filtered && (
+          <Button variant="secondary" onClick={clearFilters}>
             Clear filters
           </Button>
         )}
-        <div className="ml-auto flex items-center gap-2 text-sm">
-          <span className="num text-asphalt-muted" data-testid="selection-count">
-            {selected.size} selected
-          </span>
-          {selected.size > 0 && (
-            <Button variant="ghost" onClick={() => setSelected(new Set())}>
-              Clear
-            </Button>
-          )}
-          {canEdit && (
-            <Button
-              disabled={selected.size === 0}
-              onClick={() => navigate(`../compare?segments=${[...selected].join(',')}`)}
-            >
-              Compare alternatives for selection
-            </Button>
-          )}
-        </div>
+        <span className="mr-auto text-xs text-asphalt-muted">
+          Tick rows, click a road on the map (shift-click adds), or draw a box on the map to select.
+        </span>
+        <span className="num text-asphalt-muted" data-testid="selection-count">
+          {selected.size} selected
+        </span>
+        {selected.size > 0 && (
+          <Button variant="ghost" onClick={() => setSelected(new Set())}>
+            Clear
+          </Button>
+        )}
+        {canEdit && (
+          <Button
+            disabled={selected.size === 0}
+            onClick={() => navigate(`../compare?segments=${[...selected].join(',')}`)}
+          >
+            Compare alternatives for selection
+          </Button>
+        )}
       </div>
-      {t && t.count === 0 && !FILTER_KEYS.some((k) => filters[k]) ? (
+      {t && t.count === 0 && !filtered ? (
         <EmptyState>No segments yet — import a spreadsheet or GIS file under Imports.</EmptyState>
       ) : (
-        <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)] 2xl:grid-cols-[minmax(0,7fr)_minmax(0,4fr)]">
           <SegmentTable
             agencyId={agencyId}
             filters={filters}
@@ -168,7 +202,7 @@ export function RoadsPage() {
             canEdit={canEdit}
             selected={selected}
             onToggle={toggle}
-            onOpen={(id) => navigate(`${id}`)}
+            emptyFiltered={{ text: describeFilters(filters), onClear: clearFilters }}
           />
           <LazyNetworkMap
             agencyId={agencyId}
@@ -181,8 +215,8 @@ export function RoadsPage() {
       )}
       {canEdit && (
         <p className="mt-2 text-xs text-asphalt-muted">
-          Double-click a cell to edit it. Click a road on the map for its details; shift-click or draw a box to select
-          several.
+          Double-click a cell to edit it; Enter saves, Esc cancels. A segment’s page has its surveys, treatments and
+          every attribute.
         </p>
       )}
     </div>

@@ -1,23 +1,78 @@
+import { type ReactNode, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { astmRating, conditionBand } from '@shared/condition';
+import { Button } from '@/components/ui/button';
 import { Card, EmptyState, PageHeader } from '@/components/ui/page';
-import { LazyNetworkMap } from '@/features/map/components/lazy-network-map';
+import { Term } from '@/components/ui/term';
 import { useSegmentsGeoJson } from '@/features/map/api/get-segments-geojson';
-import { useSegment } from '@/features/segments/api/get-segment';
+import { LazyNetworkMap } from '@/features/map/components/lazy-network-map';
+import { type SegmentDetail, useSegment } from '@/features/segments/api/get-segment';
+import { useTreatmentRecords } from '@/features/segments/api/segment-history';
 import { PciHistoryChart } from '@/features/segments/components/pci-history-chart';
+import { SegmentEditForm } from '@/features/segments/components/segment-edit-form';
+import { SurveyForm } from '@/features/segments/components/survey-form';
+import { TreatmentForm } from '@/features/segments/components/treatment-form';
+import { TreatmentHistory } from '@/features/segments/components/treatment-history';
 import { CLASS_LABELS, fmt1, fmt2, fmtInt, SURFACE_LABELS } from '@/lib/format';
 import { useAgency } from '../use-agency';
 import { NotFoundPage } from './not-found';
 
+function attributes(s: SegmentDetail): [string, ReactNode][] {
+  const band = conditionBand(s.pci);
+  return [
+    ['From – to', `${s.fromDesc ?? '—'} – ${s.toDesc ?? '—'}`],
+    ['Length', `${fmt2(s.lengthMi)} mi`],
+    ['Width', `${fmt1(s.widthFt)} ft`],
+    ['Lanes', String(s.lanes)],
+    [
+      'Lane-miles',
+      <>
+        {fmt2(s.laneMiles)} <Term id="lane-mile">lane-mi</Term>
+      </>,
+    ],
+    [
+      'Area',
+      <>
+        {fmtInt(s.areaSy)} <Term id="sy">SY</Term>
+      </>,
+    ],
+    ['Functional class', CLASS_LABELS[s.functionalClass]],
+    ['Surface', SURFACE_LABELS[s.surface]],
+    [
+      'Traffic',
+      s.adt === null ? (
+        '—'
+      ) : (
+        <>
+          {fmtInt(s.adt)} vehicles/day (<Term id="adt">ADT</Term>)
+        </>
+      ),
+    ],
+    ['Trucks', s.truckPct === null ? '—' : `${fmt1(s.truckPct)} % of traffic`],
+    ['District', s.district ?? '—'],
+    [
+      'Latest PCI',
+      s.pci === null
+        ? '—'
+        : `${fmtInt(s.pci)} (${band?.label}; ASTM D6433 “${astmRating(s.pci)}”) on ${s.pciDate ?? '—'}`,
+    ],
+    ['Last treatment', s.lastTreatment ? `${s.lastTreatment}, ${s.lastTreatmentYear ?? 'year not recorded'}` : '—'],
+  ];
+}
+
+type Open = 'survey' | 'treatment' | 'edit' | null;
+
 export function SegmentPage() {
-  const { agencyId } = useAgency();
+  const { agencyId, membership } = useAgency();
   const id = Number(useParams().segmentRef);
   const seg = useSegment(agencyId, id);
+  const records = useTreatmentRecords(agencyId, id);
   const nearby = useSegmentsGeoJson(agencyId, {});
+  const [open, setOpen] = useState<Open>(null);
+  const canEdit = membership?.role === 'admin' || membership?.role === 'engineer';
   if (seg.isLoading) return <div className="text-sm text-asphalt-muted">Loading…</div>;
   if (seg.error || !seg.data) return <NotFoundPage inline />;
   const s = seg.data;
-  const band = conditionBand(s.pci);
   const first = s.surveys[0];
   const latest = s.surveys.at(-1);
   const caption =
@@ -26,25 +81,16 @@ export function SegmentPage() {
       : latest
         ? `One survey: PCI ${fmtInt(latest.pci)} on ${latest.surveyDate}.`
         : 'No condition surveys recorded.';
-  const attrs: [string, string][] = [
-    ['From – to', `${s.fromDesc ?? '—'} – ${s.toDesc ?? '—'}`],
-    ['Length', `${fmt2(s.lengthMi)} mi`],
-    ['Width', `${fmt1(s.widthFt)} ft`],
-    ['Lanes', String(s.lanes)],
-    ['Lane-miles', `${fmt2(s.laneMiles)} lane-mi`],
-    ['Area', `${fmtInt(s.areaSy)} SY`],
-    ['Functional class', CLASS_LABELS[s.functionalClass]],
-    ['Surface', SURFACE_LABELS[s.surface]],
-    ['ADT', s.adt === null ? '—' : `${fmtInt(s.adt)} vehicles/day`],
-    ['Trucks', s.truckPct === null ? '—' : `${fmt1(s.truckPct)} %`],
-    ['District', s.district ?? '—'],
-    [
-      'Latest PCI',
-      s.pci === null
-        ? '—'
-        : `${fmtInt(s.pci)} (${band?.label}; ASTM D6433 “${astmRating(s.pci)}”) on ${s.pciDate ?? '—'}`,
-    ],
-  ];
+  const jobs = records.data?.items ?? [];
+  const marks = jobs.map((r) => ({ date: r.treatedOn, label: `${r.name} ${r.treatedOn.slice(0, 4)}` }));
+  if (
+    s.lastTreatment &&
+    s.lastTreatmentYear &&
+    !jobs.some((r) => Number(r.treatedOn.slice(0, 4)) === s.lastTreatmentYear)
+  )
+    marks.push({ date: String(s.lastTreatmentYear), label: `${s.lastTreatment} ${s.lastTreatmentYear}` });
+  const toggle = (what: Exclude<Open, null>) => setOpen(open === what ? null : what);
+
   return (
     <div>
       <div className="mb-2 text-sm">
@@ -54,38 +100,70 @@ export function SegmentPage() {
       </div>
       <PageHeader title={`${s.roadName} · ${s.segmentId}`} caption={caption} />
       <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-        <div className="space-y-4">
+        <div className="min-w-0 space-y-4">
           <Card title="Condition history">
             {s.surveys.length ? (
-              <PciHistoryChart surveys={s.surveys} treatmentYear={s.lastTreatmentYear} treatment={s.lastTreatment} />
+              <PciHistoryChart surveys={s.surveys} treatments={marks} />
             ) : (
-              <EmptyState>No surveys yet — import a condition survey file under Imports.</EmptyState>
+              <EmptyState>
+                No surveys yet — {canEdit ? 'add one under Surveys below, or ' : ''}import a condition survey file under
+                Imports.
+              </EmptyState>
             )}
           </Card>
-          <Card title="Treatment history">
-            {s.lastTreatment ? (
-              <p className="text-sm">
-                Last treatment: <strong>{s.lastTreatment}</strong> in{' '}
-                <span className="num">{s.lastTreatmentYear ?? 'an unrecorded year'}</span>
-                {s.lastTreatmentYear && (
-                  <span className="text-asphalt-muted">
-                    {' '}
-                    ({new Date().getFullYear() - s.lastTreatmentYear} years ago)
-                  </span>
-                )}
-                .
-              </p>
-            ) : (
-              <p className="text-sm text-asphalt-muted">No treatment recorded.</p>
+          <Card
+            title="Treatment history"
+            testId="treatments-card"
+            actions={
+              canEdit && (
+                <Button variant={open === 'treatment' ? 'ghost' : 'secondary'} onClick={() => toggle('treatment')}>
+                  Record a treatment
+                </Button>
+              )
+            }
+          >
+            {open === 'treatment' && (
+              <div className="mb-3">
+                <TreatmentForm
+                  agencyId={agencyId}
+                  segmentRef={s.id}
+                  segmentId={s.segmentId}
+                  onDone={() => setOpen(null)}
+                />
+              </div>
             )}
+            <TreatmentHistory records={jobs} inventory={{ name: s.lastTreatment, year: s.lastTreatmentYear }} />
           </Card>
-          {s.surveys.length > 0 && (
-            <Card title="Surveys">
-              <table className="num w-full text-sm">
-                <thead className="text-left text-xs uppercase text-asphalt-muted">
+          <Card
+            title="Surveys"
+            testId="surveys-card"
+            actions={
+              canEdit && (
+                <Button variant={open === 'survey' ? 'ghost' : 'secondary'} onClick={() => toggle('survey')}>
+                  Add a survey
+                </Button>
+              )
+            }
+          >
+            {open === 'survey' && (
+              <div className="mb-3">
+                <SurveyForm
+                  agencyId={agencyId}
+                  segmentRef={s.id}
+                  segmentId={s.segmentId}
+                  latestDate={s.pciDate}
+                  onDone={() => setOpen(null)}
+                />
+              </div>
+            )}
+            {s.surveys.length > 0 ? (
+              <table className="num w-full text-sm" data-testid="survey-table">
+                <thead className="text-left text-xs font-bold text-asphalt-muted">
                   <tr>
                     <th className="py-1">Date</th>
-                    <th className="text-right">PCI</th>
+                    <th className="text-right">
+                      <Term id="pci">PCI</Term>
+                    </th>
                     <th className="pl-4">Source</th>
                   </tr>
                 </thead>
@@ -99,20 +177,41 @@ export function SegmentPage() {
                   ))}
                 </tbody>
               </table>
-            </Card>
-          )}
+            ) : (
+              <p className="text-sm text-asphalt-muted">No surveys recorded.</p>
+            )}
+          </Card>
         </div>
-        <div className="space-y-4">
-          <Card title="Attributes">
-            <dl className="grid grid-cols-[9rem_1fr] gap-y-1 text-sm">
-              {attrs.map(([k, v]) => (
-                <div key={k} className="contents">
-                  <dt className="text-asphalt-muted">{k}</dt>
-                  <dd className="num">{v}</dd>
-                </div>
-              ))}
-            </dl>
-            {s.notes && <p className="mt-3 whitespace-pre-wrap border-t border-asphalt-line pt-2 text-sm">{s.notes}</p>}
+        <div className="min-w-0 space-y-4">
+          <Card
+            title="Attributes"
+            testId="attributes-card"
+            actions={
+              canEdit &&
+              open !== 'edit' && (
+                <Button variant="secondary" onClick={() => setOpen('edit')}>
+                  Edit attributes
+                </Button>
+              )
+            }
+          >
+            {open === 'edit' ? (
+              <SegmentEditForm agencyId={agencyId} segment={s} onDone={() => setOpen(null)} />
+            ) : (
+              <>
+                <dl className="grid grid-cols-[9rem_minmax(0,1fr)] gap-y-1 text-sm" data-testid="attributes">
+                  {attributes(s).map(([k, v]) => (
+                    <div key={k} className="contents">
+                      <dt className="text-asphalt-muted">{k}</dt>
+                      <dd className="num">{v}</dd>
+                    </div>
+                  ))}
+                </dl>
+                {s.notes && (
+                  <p className="mt-3 whitespace-pre-wrap border-t border-asphalt-line pt-2 text-sm">{s.notes}</p>
+                )}
+              </>
+            )}
           </Card>
           {s.geometry ? (
             <LazyNetworkMap agencyId={agencyId} features={nearby.data} highlight={s.geometry} height={300} compact />

@@ -1,14 +1,17 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { useEffect, useState } from 'react';
+import { type FormEvent, useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { toast } from 'sonner';
+import { AgencySettingsSchema } from '@shared/schemas/agency';
 import { Button } from '@/components/ui/button';
-import { Select, TextInput } from '@/components/ui/field';
+import { Field, FilePicker, FormAlert, Select, TextInput } from '@/components/ui/field';
+import { useFieldErrors } from '@/components/ui/form-errors';
 import { Card, PageHeader } from '@/components/ui/page';
 import { api } from '@/lib/api-client';
 import { useAgency } from '../use-agency';
 
 type AgencySettings = { id: string; name: string; kind: string; units: 'us' | 'metric' };
+const LABELS = { name: 'Agency name', units: 'Units' };
 
 export function SettingsPage() {
   const { agencyId } = useAgency();
@@ -19,6 +22,9 @@ export function SettingsPage() {
   });
   const [name, setName] = useState('');
   const [units, setUnits] = useState<'us' | 'metric'>('us');
+  const f = useFieldErrors(LABELS);
+  const [archive, setArchive] = useState<File | null>(null);
+  const [restoring, setRestoring] = useState(false);
   useEffect(() => {
     if (q.data) {
       setName(q.data.name);
@@ -26,15 +32,20 @@ export function SettingsPage() {
     }
   }, [q.data]);
   const save = useMutation({
-    mutationFn: () =>
-      api<AgencySettings>(`/api/agencies/${agencyId}/settings`, { method: 'PUT', json: { name, units } }),
+    mutationFn: (body: { name: string; units: 'us' | 'metric' }) =>
+      api<AgencySettings>(`/api/agencies/${agencyId}/settings`, { method: 'PUT', json: body }),
     onSuccess: () => {
       qc.invalidateQueries({ queryKey: ['agency-settings', agencyId] });
       qc.invalidateQueries({ queryKey: ['me'] });
       toast.success('Settings saved');
     },
-    onError: (e) => toast.error(e.message),
+    onError: f.fromError,
   });
+  const submit = (e: FormEvent) => {
+    e.preventDefault();
+    const body = f.check(AgencySettingsSchema, { name, units });
+    if (body) save.mutate(body);
+  };
   return (
     <div className="space-y-4">
       <PageHeader
@@ -42,32 +53,32 @@ export function SettingsPage() {
         caption="The agency’s name and display units. Economic defaults (discount rate and its source, analysis period, per-job costs) live with the prices in the Catalog."
       />
       <Card>
-        <div className="flex flex-wrap items-end gap-3 text-sm">
-          <label>
-            <span className="block text-xs text-asphalt-muted">Agency name</span>
+        <form
+          onSubmit={submit}
+          noValidate
+          className="flex flex-wrap items-start gap-3 text-sm"
+          aria-label="Agency settings"
+        >
+          <Field label={LABELS.name} error={f.error('name')} className="w-72">
             <TextInput
-              aria-label="Agency name"
-              className="w-72"
               value={name}
-              onChange={(e) => setName(e.target.value)}
+              onChange={(e) => {
+                setName(e.target.value);
+                f.clear('name');
+              }}
             />
-          </label>
-          <label>
-            <span className="block text-xs text-asphalt-muted">Units</span>
-            <Select
-              aria-label="Units"
-              className="w-48"
-              value={units}
-              onChange={(e) => setUnits(e.target.value as 'us' | 'metric')}
-            >
+          </Field>
+          <Field label={LABELS.units} error={f.error('units')} className="w-64">
+            <Select value={units} onChange={(e) => setUnits(e.target.value as 'us' | 'metric')}>
               <option value="us">US customary (mi, ft, SY, tons)</option>
-              <option value="metric">metric (imports in km / m)</option>
+              <option value="metric">Metric (imports in km / m)</option>
             </Select>
-          </label>
-          <Button onClick={() => save.mutate()} disabled={save.isPending}>
+          </Field>
+          <Button type="submit" className="mt-6" disabled={save.isPending}>
             Save
           </Button>
-        </div>
+        </form>
+        <FormAlert messages={f.others} />
         <p className="mt-3 text-xs text-asphalt-muted" data-testid="units-note">
           Inside Wearcourse every quantity is kept in US customary units; imports in kilometres or metres are converted
           as they come in.{' '}
@@ -85,36 +96,38 @@ export function SettingsPage() {
           </a>
         </p>
         <form
-          className="mt-3 flex flex-wrap items-end gap-2 text-sm"
+          className="mt-3 space-y-2 text-sm"
           onSubmit={async (e) => {
             e.preventDefault();
-            const input = (e.currentTarget.elements.namedItem('archive') as HTMLInputElement).files?.[0];
-            if (!input) return;
+            if (!archive) return;
             const form = new FormData();
-            form.set('file', input);
-            const res = await fetch('/api/agencies/restore', {
-              method: 'POST',
-              body: form,
-              credentials: 'same-origin',
-            });
-            const body = await res.json();
-            if (res.ok) {
-              toast.success(
-                `Restored into a new agency (${body.counts.segments} segments); find it in the agency switcher${body.analysesToRerun ? `. Its ${body.analysesToRerun} saved comparison(s) come back with their inputs: run them again to see results` : ''}`,
-              );
-              qc.invalidateQueries({ queryKey: ['me'] });
-            } else toast.error(body.error?.message ?? 'Restore failed');
+            form.set('file', archive);
+            setRestoring(true);
+            try {
+              const res = await fetch('/api/agencies/restore', {
+                method: 'POST',
+                body: form,
+                credentials: 'same-origin',
+              });
+              const body = await res.json();
+              if (res.ok) {
+                toast.success(
+                  `Restored into a new agency (${body.counts.segments} segments); find it in the agency switcher${body.analysesToRerun ? `. Its ${body.analysesToRerun} saved comparison(s) come back with their inputs: run them again to see results` : ''}`,
+                );
+                qc.invalidateQueries({ queryKey: ['me'] });
+              } else toast.error(body.error?.message ?? 'Restore failed');
+            } finally {
+              setRestoring(false);
+            }
           }}
         >
-          <label>
-            <span className="block text-xs text-asphalt-muted">
-              Restore an export into a new agency (you become its admin)
-            </span>
-            <input name="archive" aria-label="Agency export" type="file" accept=".zip" />
-          </label>
-          <Button type="submit" variant="secondary">
-            Restore
-          </Button>
+          <p className="text-xs text-asphalt-muted">Restore an export into a new agency (you become its admin).</p>
+          <div className="flex flex-wrap items-center gap-3">
+            <FilePicker label="Agency export" accept=".zip" buttonText="Choose an export (.zip)…" onFile={setArchive} />
+            <Button type="submit" variant="secondary" disabled={!archive || restoring}>
+              {restoring ? 'Restoring…' : 'Restore'}
+            </Button>
+          </div>
         </form>
       </Card>
     </div>

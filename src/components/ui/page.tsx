@@ -12,10 +12,28 @@ export function PageHeader({ title, caption, actions }: { title: string; caption
   );
 }
 
-export function Card({ title, children, className = '' }: { title?: string; children: ReactNode; className?: string }) {
+export function Card({
+  title,
+  actions,
+  children,
+  className = '',
+  testId,
+}: {
+  title?: string;
+  /** Buttons at the right of the card's title. */
+  actions?: ReactNode;
+  children: ReactNode;
+  className?: string;
+  testId?: string;
+}) {
   return (
-    <section className={`rounded border border-asphalt-line bg-white p-4 ${className}`}>
-      {title && <h2 className="mb-3 text-sm font-bold uppercase tracking-wide text-asphalt-muted">{title}</h2>}
+    <section className={`rounded border border-asphalt-line bg-white p-4 ${className}`} data-testid={testId}>
+      {(title || actions) && (
+        <div className="mb-3 flex flex-wrap items-center justify-between gap-2">
+          {title && <h2 className="text-sm font-bold uppercase tracking-wide text-asphalt-muted">{title}</h2>}
+          {actions && <div className="flex gap-2">{actions}</div>}
+        </div>
+      )}
       {children}
     </section>
   );

@@ -2,7 +2,7 @@ import 'maplibre-gl/dist/maplibre-gl.css';
 import { bbox as turfBbox, bboxPolygon, buffer as turfBuffer } from '@turf/turf';
 import * as maplibregl from 'maplibre-gl';
 import workerUrl from 'maplibre-gl/dist/maplibre-gl-worker.mjs?url';
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import MapView, { type MapRef, NavigationControl, Popup, ScaleControl } from 'react-map-gl/maplibre';
 import { Link } from 'react-router-dom';
 import { conditionBand } from '@shared/condition';
@@ -10,6 +10,8 @@ import { CLASS_LABELS } from '@/lib/format';
 import type { SegmentFeatures } from '../api/get-segments-geojson';
 import { loadStates } from '../context-layers';
 import { EMPTY_FC, networkStyle, pciColor } from '../map-style';
+import { yearColorMatch } from '../year-colors';
+import { YearLegend } from './year-legend';
 import { ConditionLegend } from './condition-legend';
 
 maplibregl.setWorkerUrl(workerUrl);
@@ -26,19 +28,6 @@ type Props = {
   plannedYear?: Map<number, number>;
   yearLabels?: string[];
 };
-
-export const YEAR_COLORS = [
-  '#0b3954',
-  '#1d5c86',
-  '#3f7fb0',
-  '#6aa1cf',
-  '#9cc3e6',
-  '#5b4a8a',
-  '#7d6bb0',
-  '#a08fd0',
-  '#c4b6ea',
-  '#8a5a8f',
-];
 
 type PopupInfo = { lng: number; lat: number; id: number; s: string; r: string; p: number; c: string };
 
@@ -59,6 +48,10 @@ export function NetworkMap({
   const [boxMode, setBoxMode] = useState(false);
   const [box, setBox] = useState<{ x0: number; y0: number; x1: number; y1: number } | null>(null);
   const fitted = useRef(false);
+  // One style object for the life of the map. A new object on each render makes
+  // react-map-gl call setStyle, whose diff puts the sources back to the style's
+  // empty data: every road vanished on the first click or selection.
+  const style = useMemo(() => networkStyle(), []);
 
   // Data into the style's sources; fit the view once to the agency's extent.
   useEffect(() => {
@@ -111,11 +104,8 @@ export function NetworkMap({
     }
     for (const f of features.features)
       map.setFeatureState({ source: 'segments', id: f.properties.id }, { py: plannedYear.get(f.properties.id) ?? -1 });
-    const match: unknown[] = ['match', ['feature-state', 'py']];
-    YEAR_COLORS.forEach((c, i) => match.push(i, c));
-    match.push('#d3cdbf');
-    map.setPaintProperty('segments-line', 'line-color', match as never);
-  }, [plannedYear, loaded, features]);
+    map.setPaintProperty('segments-line', 'line-color', yearColorMatch(yearLabels?.length ?? 0) as never);
+  }, [plannedYear, yearLabels, loaded, features]);
 
   useEffect(() => {
     const map = ref.current?.getMap();
@@ -145,14 +135,14 @@ export function NetworkMap({
 
   return (
     <div
-      className="relative overflow-hidden rounded border border-asphalt-line"
+      className={`relative overflow-hidden rounded border border-asphalt-line ${boxMode ? 'select-none' : ''}`}
       style={{ height }}
       data-testid="network-map"
     >
       <MapView
         ref={ref}
         mapLib={maplibregl}
-        mapStyle={networkStyle()}
+        mapStyle={style}
         initialViewState={{ longitude: -98.5, latitude: 38.8, zoom: 8 }}
         attributionControl={false}
         dragPan={!boxMode}
@@ -252,7 +242,11 @@ export function NetworkMap({
             <button
               type="button"
               className={`rounded border px-2 py-1 text-xs font-semibold shadow-sm ${boxMode ? 'border-accent bg-accent text-white' : 'border-asphalt-line bg-white text-asphalt'}`}
-              onClick={() => setBoxMode(!boxMode)}
+              onClick={() => {
+                // The popup would sit under the box and catch the drag.
+                setPopup(null);
+                setBoxMode(!boxMode);
+              }}
             >
               {boxMode ? 'Drag a box on the map…' : 'Select by box'}
             </button>
@@ -260,27 +254,7 @@ export function NetworkMap({
         </div>
       )}
       {!compact && !plannedYear && <ConditionLegend />}
-      {plannedYear && (
-        <div
-          className="absolute bottom-2 left-2 rounded border border-asphalt-line bg-white/95 px-2 py-1.5 text-[11px] shadow-sm"
-          data-testid="year-legend"
-        >
-          <div className="mb-0.5 font-bold">Planned work</div>
-          {(yearLabels ?? []).map((label, i) => (
-            <div key={label} className="flex items-center gap-1.5">
-              <span
-                className="inline-block h-1.5 w-4 rounded"
-                style={{ background: YEAR_COLORS[i % YEAR_COLORS.length] }}
-              />
-              <span className="num">{label}</span>
-            </div>
-          ))}
-          <div className="flex items-center gap-1.5">
-            <span className="inline-block h-1.5 w-4 rounded" style={{ background: '#d3cdbf' }} />
-            no work planned
-          </div>
-        </div>
-      )}
+      {plannedYear && <YearLegend plannedYear={plannedYear} yearLabels={yearLabels ?? []} />}
     </div>
   );
 }

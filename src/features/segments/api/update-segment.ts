@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { type QueryClient, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SegmentUpdate } from '@shared/schemas/segments';
 import { api } from '@/lib/api-client';
 
@@ -9,7 +9,18 @@ export function useUpdateSegment(agencyId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (v: { id: number; patch: SegmentUpdate }) => updateSegment(agencyId, v.id, v.patch),
-    // Everything under ['segments', agencyId] — lists, pages, map, details — may show the change.
-    onSuccess: () => qc.invalidateQueries({ queryKey: ['segments', agencyId] }),
+    onSuccess: () => invalidateSegmentViews(qc, agencyId),
   });
+}
+
+/**
+ * After any write to a segment or its history: everything under ['segments',
+ * agencyId] (lists, pages, map, details, districts, treatments) and the
+ * network summary may show the change.
+ */
+export function invalidateSegmentViews(qc: QueryClient, agencyId: string) {
+  return Promise.all([
+    qc.invalidateQueries({ queryKey: ['segments', agencyId] }),
+    qc.invalidateQueries({ queryKey: ['network', agencyId] }),
+  ]);
 }
