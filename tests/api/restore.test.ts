@@ -87,6 +87,7 @@ describe('restore', () => {
     const written = {
       segments: n('SELECT count(*) AS n FROM segments WHERE agency_id = ?', id),
       surveys: n('SELECT count(*) AS n FROM surveys WHERE agency_id = ?', id),
+      treatmentRecords: n('SELECT count(*) AS n FROM treatment_records WHERE agency_id = ?', id),
       mixes: n('SELECT count(*) AS n FROM mixes WHERE agency_id = ?', id),
       treatments: n('SELECT count(*) AS n FROM treatments WHERE agency_id = ?', id),
       plans: n('SELECT count(*) AS n FROM plans WHERE agency_id = ?', id),
