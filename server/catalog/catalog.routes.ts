@@ -11,7 +11,6 @@ import {
 } from '../../shared/schemas/catalog';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
-import * as repo from './catalog.repo';
 import * as service from './catalog.service';
 
 export function catalogRoutes(api: ApiRoutes, deps: Deps) {
@@ -35,7 +34,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     access: { kind: 'agency', role: 'engineer' },
     params: AgencyParamsSchema,
     response: PriceHistorySchema,
-    handler: ({ agency }) => ({ items: repo.history(deps.db, agency!.id) }),
+    handler: ({ agency }) => service.priceHistory(deps, agency!.id),
   });
   api.add({
     method: 'post',
@@ -68,10 +67,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     access: admin,
     params: CatalogItemParamsSchema,
     response: OkSchema,
-    handler: ({ agency, user, params }) => {
-      service.deleteMix(deps, agency!.id, user!.id, params.itemId);
-      return { ok: true };
-    },
+    handler: ({ agency, user, params }) => service.deleteMix(deps, agency!.id, user!.id, params.itemId),
   });
   api.add({
     method: 'post',
@@ -104,10 +100,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     access: admin,
     params: CatalogItemParamsSchema,
     response: OkSchema,
-    handler: ({ agency, user, params }) => {
-      service.deleteTreatment(deps, agency!.id, user!.id, params.itemId);
-      return { ok: true };
-    },
+    handler: ({ agency, user, params }) => service.deleteTreatment(deps, agency!.id, user!.id, params.itemId),
   });
   api.add({
     method: 'put',

@@ -15,7 +15,7 @@ export function forecastRoutes(api: ApiRoutes, deps: Deps) {
     access: { kind: 'agency', role: 'engineer' },
     params: AgencyParamsSchema,
     query: z.object({ points: z.enum(['true', 'false']).default('true') }),
-    handler: ({ agency, query }) => ({ families: service.families(deps, agency!.id, query.points === 'true') }),
+    handler: ({ agency, query }) => service.familyList(deps, agency!.id, query.points === 'true'),
   });
   api.add({
     method: 'put',
@@ -26,9 +26,6 @@ export function forecastRoutes(api: ApiRoutes, deps: Deps) {
     params: AgencyParamsSchema,
     body: CurveOverrideBodySchema,
     response: OkSchema,
-    handler: ({ agency, user, body }) => {
-      service.setOverride(deps, agency!.id, user!.id, body.familyKey, body.curve);
-      return { ok: true };
-    },
+    handler: ({ agency, user, body }) => service.setCurve(deps, agency!.id, user!.id, body.familyKey, body.curve),
   });
 }

@@ -1,37 +1,16 @@
-import { and, eq } from 'drizzle-orm';
 import { type Curve, type FitPoint, fitCurve } from '../../shared/engine/forecast/curve';
 import { DEFAULT_CURVES, familyKey, MIN_POINTS_TO_FIT } from '../../shared/engine/forecast/families';
 import type { FamilyView } from '../../shared/schemas/plans';
 import { recordAudit } from '../audit';
 import type { Deps } from '../deps';
-import { curveOverrides, segments, surveys } from '../db/schema';
+import * as repo from './forecast.repo';
 
 export type Family = FamilyView;
 
 /** Every family's curve: fitted where it has enough surveys, else the default or the agency's own edit. */
 export function families(deps: Deps, agencyId: string, withPoints = true): Family[] {
-  const rows = deps.db
-    .select({
-      ref: segments.id,
-      surface: segments.surface,
-      cls: segments.functionalClass,
-      lastTreatment: segments.lastTreatment,
-      lastYear: segments.lastTreatmentYear,
-      date: surveys.surveyDate,
-      pci: surveys.pci,
-    })
-    .from(segments)
-    .leftJoin(surveys, eq(surveys.segmentRef, segments.id))
-    .where(eq(segments.agencyId, agencyId))
-    .all();
-  const overrides = new Map(
-    deps.db
-      .select()
-      .from(curveOverrides)
-      .where(eq(curveOverrides.agencyId, agencyId))
-      .all()
-      .map((o) => [o.familyKey, { p0: o.p0, a: o.a, b: o.b }]),
-  );
+  const rows = repo.surveyPoints(deps.db, agencyId);
+  const overrides = repo.overrides(deps.db, agencyId);
   const fams = new Map<string, { segs: Set<number>; pts: FitPoint[]; surface: string }>();
   for (const r of rows) {
     if (r.surface === 'gravel') continue;
@@ -77,13 +56,8 @@ export function families(deps: Deps, agencyId: string, withPoints = true): Famil
 
 export function setOverride(deps: Deps, agencyId: string, userId: string, key: string, curve: Curve | null) {
   deps.db.transaction((tx) => {
-    tx.delete(curveOverrides)
-      .where(and(eq(curveOverrides.agencyId, agencyId), eq(curveOverrides.familyKey, key)))
-      .run();
-    if (curve)
-      tx.insert(curveOverrides)
-        .values({ agencyId, familyKey: key, ...curve })
-        .run();
+    repo.clearOverride(tx, agencyId, key);
+    if (curve) repo.insertOverride(tx, agencyId, key, curve);
     recordAudit(tx, {
       agencyId,
       userId,
@@ -99,4 +73,15 @@ export function setOverride(deps: Deps, agencyId: string, userId: string, key: s
 export function curveLookup(fams: Family[]) {
   const m = new Map(fams.map((f) => [f.key, f.curve]));
   return (key: string) => m.get(key) ?? DEFAULT_CURVES[key.split('|')[0]] ?? DEFAULT_CURVES.other;
+}
+
+/** The Forecast screen's list: every family, with its survey points unless asked not to. */
+export const familyList = (deps: Deps, agencyId: string, withPoints: boolean) => ({
+  families: families(deps, agencyId, withPoints),
+});
+
+/** A hand-set curve for one family, or null to go back to the fit or the default. */
+export function setCurve(deps: Deps, agencyId: string, userId: string, key: string, curve: Curve | null) {
+  setOverride(deps, agencyId, userId, key, curve);
+  return { ok: true as const };
 }
