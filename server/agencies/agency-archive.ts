@@ -224,9 +224,6 @@ export async function restoreAgency(deps: Deps, userId: string, buf: Buffer, nam
           id,
           agencyId,
           mixId: t.mixId ? (mixIds.get(t.mixId) ?? null) : null,
-          costItems: JSON.stringify(t.costItems),
-          effect: JSON.stringify(t.effect),
-          applicability: JSON.stringify(t.applicability),
         })
         .run();
     }

@@ -1,7 +1,7 @@
 // Every query on the catalog's tables (mixes, treatments, price history) and on
 // the economics columns of the agency row. Each takes the agency id.
 import { and, desc, eq } from 'drizzle-orm';
-import type { Economics, Mix, MixInput, Treatment, TreatmentInput } from '../../shared/schemas/catalog';
+import type { Economics, Mix, MixInput, PriceChange, Treatment, TreatmentInput } from '../../shared/schemas/catalog';
 import type { Db } from '../db/client';
 import { agencies, mixes, priceHistory, treatments, users } from '../db/schema';
 
@@ -15,7 +15,7 @@ export const toMix = (r: MixRow): Mix => ({
   id: r.id,
   name: r.name,
   binderGrade: r.binderGrade,
-  modifier: r.modifier as Mix['modifier'],
+  modifier: r.modifier,
   pricePerTon: r.pricePerTon,
   spreadRateLbPerSyIn: r.spreadRateLbPerSyIn,
   minLiftIn: r.minLiftIn,
@@ -30,25 +30,18 @@ export const toMix = (r: MixRow): Mix => ({
 export const toTreatment = (r: TreatmentRow): Treatment => ({
   id: r.id,
   name: r.name,
-  category: r.category as Treatment['category'],
-  kind: r.kind as Treatment['kind'],
+  category: r.category,
+  kind: r.kind,
   mixId: r.mixId,
   defaultThicknessIn: r.defaultThicknessIn,
   millDepthIn: r.millDepthIn,
   lifeYears: r.lifeYears,
   productionSyPerDay: r.productionSyPerDay,
-  costItems: JSON.parse(r.costItems),
-  effect: JSON.parse(r.effect),
-  applicability: JSON.parse(r.applicability),
+  costItems: r.costItems,
+  effect: r.effect,
+  applicability: r.applicability,
   priceEffectiveDate: r.priceEffectiveDate,
   isDemo: r.isDemo,
-});
-
-const treatmentColumns = (input: TreatmentInput) => ({
-  ...input,
-  costItems: JSON.stringify(input.costItems),
-  effect: JSON.stringify(input.effect),
-  applicability: JSON.stringify(input.applicability),
 });
 
 export function listMixes(db: Conn, agencyId: string) {
@@ -112,14 +105,14 @@ export function treatmentsUsingMix(db: Conn, agencyId: string, mixId: string) {
 
 export function insertTreatment(db: Conn, agencyId: string, id: string, input: TreatmentInput) {
   db.insert(treatments)
-    .values({ ...treatmentColumns(input), id, agencyId })
+    .values({ ...input, id, agencyId })
     .run();
 }
 
 /** A changed treatment is the agency's own: it loses the demo tag. */
 export function updateTreatment(db: Conn, agencyId: string, id: string, input: TreatmentInput) {
   db.update(treatments)
-    .set({ ...treatmentColumns(input), isDemo: false })
+    .set({ ...input, isDemo: false })
     .where(and(eq(treatments.agencyId, agencyId), eq(treatments.id, id)))
     .run();
 }
@@ -148,29 +141,15 @@ export function setEconomics(db: Conn, agencyId: string, e: Economics) {
   db.update(agencies).set(e).where(eq(agencies.id, agencyId)).run();
 }
 
-export type PriceChangeRow = {
-  entity: string;
-  entityId: string;
-  name: string;
-  field: string;
-  before: unknown;
-  after: unknown;
-  effectiveDate: string;
-  userId: string;
-};
+export type PriceChangeRow = Omit<PriceChange, 'at' | 'userName'> & { userId: string };
 
 export function insertPriceChange(db: Conn, agencyId: string, c: PriceChangeRow) {
   db.insert(priceHistory)
-    .values({
-      ...c,
-      agencyId,
-      before: c.before === null || c.before === undefined ? null : JSON.stringify(c.before),
-      after: JSON.stringify(c.after),
-    })
+    .values({ ...c, agencyId })
     .run();
 }
 
-export function history(db: Conn, agencyId: string) {
+export function history(db: Conn, agencyId: string): PriceChange[] {
   return db
     .select({ h: priceHistory, userName: users.name })
     .from(priceHistory)
@@ -184,8 +163,8 @@ export function history(db: Conn, agencyId: string) {
       entityId: h.entityId,
       name: h.name,
       field: h.field,
-      before: h.before ? JSON.parse(h.before) : null,
-      after: h.after ? JSON.parse(h.after) : null,
+      before: h.before ?? null,
+      after: h.after ?? null,
       effectiveDate: h.effectiveDate,
       at: h.at,
       userName,

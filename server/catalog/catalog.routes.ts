@@ -16,7 +16,7 @@ import * as service from './catalog.service';
 export function catalogRoutes(api: ApiRoutes, deps: Deps) {
   const admin = { kind: 'agency', role: 'admin' } as const;
   const base = '/api/agencies/:agencyId/catalog';
-  api.add({
+  api.typed({
     method: 'get',
     path: base,
     tag: 'Catalog',
@@ -26,7 +26,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     response: CatalogSchema,
     handler: ({ agency }) => service.catalog(deps, agency!.id),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: `${base}/price-history`,
     tag: 'Catalog',
@@ -36,7 +36,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     response: PriceHistorySchema,
     handler: ({ agency }) => service.priceHistory(deps, agency!.id),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: `${base}/mixes`,
     tag: 'Catalog',
@@ -48,7 +48,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     status: 201,
     handler: ({ agency, user, body }) => service.saveMix(deps, agency!.id, user!.id, null, body),
   });
-  api.add({
+  api.typed({
     method: 'put',
     path: `${base}/mixes/:itemId`,
     tag: 'Catalog',
@@ -59,7 +59,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     response: MixSchema,
     handler: ({ agency, user, params, body }) => service.saveMix(deps, agency!.id, user!.id, params.itemId, body),
   });
-  api.add({
+  api.typed({
     method: 'delete',
     path: `${base}/mixes/:itemId`,
     tag: 'Catalog',
@@ -69,7 +69,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     response: OkSchema,
     handler: ({ agency, user, params }) => service.deleteMix(deps, agency!.id, user!.id, params.itemId),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: `${base}/treatments`,
     tag: 'Catalog',
@@ -81,7 +81,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     status: 201,
     handler: ({ agency, user, body }) => service.saveTreatment(deps, agency!.id, user!.id, null, body),
   });
-  api.add({
+  api.typed({
     method: 'put',
     path: `${base}/treatments/:itemId`,
     tag: 'Catalog',
@@ -92,7 +92,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     response: TreatmentSchema,
     handler: ({ agency, user, params, body }) => service.saveTreatment(deps, agency!.id, user!.id, params.itemId, body),
   });
-  api.add({
+  api.typed({
     method: 'delete',
     path: `${base}/treatments/:itemId`,
     tag: 'Catalog',
@@ -102,7 +102,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     response: OkSchema,
     handler: ({ agency, user, params }) => service.deleteTreatment(deps, agency!.id, user!.id, params.itemId),
   });
-  api.add({
+  api.typed({
     method: 'put',
     path: `${base}/economics`,
     tag: 'Catalog',

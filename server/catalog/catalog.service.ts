@@ -2,7 +2,15 @@
 // item belongs to the agency, a treatment's mix is the agency's own, a mix in
 // use stays, every price change is kept with its effective date, and every
 // write lands in one transaction with its audit entry.
-import type { Economics, MixInput, TreatmentInput } from '../../shared/schemas/catalog';
+import {
+  type Economics,
+  MIX_PRICE_FIELDS,
+  type MixInput,
+  type PriceField,
+  type PriceValue,
+  TREATMENT_PRICE_FIELDS,
+  type TreatmentInput,
+} from '../../shared/schemas/catalog';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
 import type { Deps } from '../deps';
@@ -29,22 +37,18 @@ export const economicsOf = (deps: Deps, agencyId: string) => repo.economicsOf(de
 
 export const priceHistory = (deps: Deps, agencyId: string) => ({ items: repo.history(deps.db, agencyId) });
 
-// The fields whose change is a change of price or life, kept in the price history.
-const MIX_PRICE_FIELDS = ['pricePerTon', 'spreadRateLbPerSyIn', 'refLifeYears'] as const;
-const TREATMENT_PRICE_FIELDS = ['costItems', 'lifeYears'] as const;
-
 function logPrices(
   db: repo.Conn,
   agencyId: string,
   userId: string,
   item: { entity: 'mix' | 'treatment'; id: string; name: string; effectiveDate: string },
-  before: Record<string, unknown> | null,
-  after: Record<string, unknown>,
-  fields: readonly string[],
+  before: Partial<Record<PriceField, PriceValue>> | null,
+  after: Partial<Record<PriceField, PriceValue>>,
+  fields: readonly PriceField[],
 ) {
   for (const f of fields) {
-    const b = before ? before[f] : null;
-    const a = after[f];
+    const b = before?.[f] ?? null;
+    const a = after[f] ?? null;
     if (JSON.stringify(b) === JSON.stringify(a)) continue;
     repo.insertPriceChange(db, agencyId, {
       entity: item.entity,
