@@ -12,23 +12,24 @@ export const MODIFIER_LABELS: Record<(typeof MODIFIERS)[number], string> = {
 };
 
 const isoDate = z.iso.date('must be a date (YYYY-MM-DD)');
-const liftIn = () => z.number().positive('must be more than 0 in').max(12, 'must be 12 in or less');
+/** A number typed into a form: text that is not a number gets these words, not zod's. */
+const num = () => z.number('must be a number');
+const liftIn = () => num().positive('must be more than 0 in').max(12, 'must be 12 in or less');
 
 export const MixInputSchema = z
   .object({
     name: z.string().trim().min(1).max(80),
     binderGrade: z.string().trim().min(1).max(40),
     modifier: ModifierSchema,
-    pricePerTon: z.number().positive('must be more than $0').max(10_000, 'must be $10,000 a ton or less'),
-    spreadRateLbPerSyIn: z
-      .number()
+    pricePerTon: num().positive('must be more than $0').max(10_000, 'must be $10,000 a ton or less'),
+    spreadRateLbPerSyIn: num()
       .positive('must be more than 0 lb/SY-in')
       .max(300, 'must be 300 lb/SY-in or less')
       .default(110),
     minLiftIn: liftIn(),
     maxLiftIn: liftIn(),
     refLiftIn: liftIn(),
-    refLifeYears: z.number().positive('must be more than 0 years').max(60, 'must be 60 years or less'),
+    refLifeYears: num().positive('must be more than 0 years').max(60, 'must be 60 years or less'),
     coldWeatherNote: z.string().trim().max(500).nullable().default(null),
     priceEffectiveDate: isoDate,
   })
@@ -98,7 +99,7 @@ export const CostItemSchema = z.object({
   label: z.string().trim().min(1).max(80),
   basis: z.enum(COST_BASES),
   /** Dollars per unit, or a fraction (0.08) for percent add-ons. */
-  amount: z.number().min(0, 'cannot be negative').max(1_000_000, 'must be $1,000,000 or less'),
+  amount: num().min(0, 'cannot be negative').max(1_000_000, 'must be $1,000,000 or less'),
 });
 export type CostItem = z.infer<typeof CostItemSchema>;
 
@@ -129,7 +130,7 @@ export const TreatmentInputSchema = z
     defaultThicknessIn: z.number().positive().max(12).nullable().default(null),
     millDepthIn: z.number().min(0).max(12).default(0),
     /** Null: life follows the mix and lift. */
-    lifeYears: z.number().positive('must be more than 0 years').max(60, 'must be 60 years or less').nullable(),
+    lifeYears: num().positive('must be more than 0 years').max(60, 'must be 60 years or less').nullable(),
     /** Square yards one crew does in a day, for traffic-control days. */
     productionSyPerDay: z.number().positive().max(200_000),
     costItems: z.array(CostItemSchema).max(20),
@@ -171,18 +172,17 @@ export type Treatment = z.infer<typeof TreatmentSchema>;
 
 export const EconomicsSchema = z.object({
   /** A fraction: 0.02 is 2 %. */
-  discountRate: z.number().gt(-1, 'must be more than −100 %').lt(1, 'must be less than 100 %'),
+  discountRate: num().gt(-1, 'must be more than −100 %').lt(1, 'must be less than 100 %'),
   discountRateSource: z.string().trim().max(300, 'must be at most 300 characters').nullable(),
-  analysisPeriodYears: z
-    .number()
+  analysisPeriodYears: num()
     .int('must be a whole number of years')
     .min(1, 'must be 1 to 100 years')
     .max(100, 'must be 1 to 100 years'),
-  baseYear: z.number().int('must be a year').min(1990, 'must be 1990 to 2100').max(2100, 'must be 1990 to 2100'),
-  mobilizationPerJob: z.number().min(0, 'cannot be negative').max(1_000_000, 'must be $1,000,000 or less'),
-  trafficControlPerDay: z.number().min(0, 'cannot be negative').max(1_000_000, 'must be $1,000,000 or less'),
-  engineeringFraction: z.number().min(0, 'cannot be negative').max(1, 'must be 100 % or less'),
-  contingencyFraction: z.number().min(0, 'cannot be negative').max(1, 'must be 100 % or less'),
+  baseYear: num().int('must be a year').min(1990, 'must be 1990 to 2100').max(2100, 'must be 1990 to 2100'),
+  mobilizationPerJob: num().min(0, 'cannot be negative').max(1_000_000, 'must be $1,000,000 or less'),
+  trafficControlPerDay: num().min(0, 'cannot be negative').max(1_000_000, 'must be $1,000,000 or less'),
+  engineeringFraction: num().min(0, 'cannot be negative').max(1, 'must be 100 % or less'),
+  contingencyFraction: num().min(0, 'cannot be negative').max(1, 'must be 100 % or less'),
 });
 export type Economics = z.infer<typeof EconomicsSchema>;
 

@@ -29,9 +29,9 @@ export const CURVE_SOURCE_LABELS: Record<(typeof CURVE_SOURCES)[number], string>
 
 /** PCI = P0 − a·age^b (shared/engine/forecast/curve.ts). */
 export const CurveSchema = z.object({
-  p0: z.number().min(0, 'must be 0 to 100').max(100, 'must be 0 to 100'),
-  a: z.number().positive('must be more than 0').max(100, 'must be 100 or less'),
-  b: z.number().min(1, 'must be 1 to 3').max(3, 'must be 1 to 3'),
+  p0: z.number('must be a number').min(0, 'must be 0 to 100').max(100, 'must be 0 to 100'),
+  a: z.number('must be a number').positive('must be more than 0').max(100, 'must be 100 or less'),
+  b: z.number('must be a number').min(1, 'must be 1 to 3').max(3, 'must be 1 to 3'),
 });
 export type Curve = z.infer<typeof CurveSchema>;
 
