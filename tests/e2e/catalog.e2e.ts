@@ -69,11 +69,14 @@ describe('catalog, acting as an admin', () => {
       expect(second.slice(0, 5)).toEqual([DENSE, 'Price ($/ton)', '$74.00/ton', '$76.50/ton', '2027-01-15']);
       expect(second[6]).toBe('Dana Whitlock');
 
-      // Economics: a rate over 100 % is refused at its field; a good one is kept after a reload.
-      const rate = page.getByLabel('Discount rate, real (%)');
-      await rate.fill('150');
+      // Economics: an analysis period of 0 years is refused at its field; a good rate is kept after a reload.
+      const period = page.getByLabel('Analysis period (yr)');
+      await period.fill('0');
       await page.getByRole('button', { name: 'Save economics' }).click();
-      await page.getByRole('alert').filter({ hasText: 'Must be less than 100 %' }).waitFor();
+      await page.getByRole('alert').filter({ hasText: 'Must be 1 to 100 years' }).waitFor();
+      expect(await period.getAttribute('aria-invalid')).toBe('true');
+      await period.fill('40');
+      const rate = page.getByLabel('Discount rate, real (%)');
       await rate.fill('3.5');
       await page.getByRole('button', { name: 'Save economics' }).click();
       await page.getByText('Economics saved').waitFor();
