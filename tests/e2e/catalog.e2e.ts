@@ -2,6 +2,9 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { type Harness, newPage, signIn, startHarness } from './harness';
 
+// A refetch after a save can take seconds on a loaded machine.
+const LOOK_AGAIN = { timeout: 20_000 };
+
 let h: Harness;
 beforeAll(async () => {
   h = await startHarness();
@@ -42,7 +45,7 @@ describe('catalog, acting as an admin', () => {
       await page.getByText(`${DENSE} saved; its price takes effect on 2027-01-15`).waitFor();
       expect(writes).toHaveLength(1);
       // Look again: the row shows the new price and its date, out of edit mode.
-      await expect.poll(() => mixRow(page, DENSE).textContent()).toMatch(/\$76\.50[\s\S]*2027-01-15/);
+      await expect.poll(() => mixRow(page, DENSE).textContent(), LOOK_AGAIN).toMatch(/\$76\.50[\s\S]*2027-01-15/);
       expect(await page.getByLabel(`Price ($/ton) — ${DENSE}`).count()).toBe(0);
 
       // A treatment's cost item, typed per SY.
@@ -81,7 +84,7 @@ describe('catalog, acting as an admin', () => {
       await page.getByRole('button', { name: 'Save economics' }).click();
       await page.getByText('Economics saved').waitFor();
       await page.reload();
-      await expect.poll(() => page.getByLabel('Discount rate, real (%)').inputValue()).toBe('3.5');
+      await expect.poll(() => page.getByLabel('Discount rate, real (%)').inputValue(), LOOK_AGAIN).toBe('3.5');
       expect(outside).toEqual([]);
       expect(consoleErrors).toEqual([]);
     } finally {

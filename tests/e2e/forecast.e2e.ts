@@ -1,6 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { type Harness, newPage, signIn, startHarness } from './harness';
 
+// A refetch after a save can take seconds on a loaded machine.
+const LOOK_AGAIN = { timeout: 20_000 };
+
 let h: Harness;
 beforeAll(async () => {
   h = await startHarness();
@@ -45,23 +48,23 @@ describe('forecast, acting as an engineer', () => {
       await page.getByText('Curve saved; plans use it from their next run').waitFor();
 
       // Look again: the curve plans use has moved, the fit stays as a dashed line.
-      await expect.poll(() => used.getAttribute('d')).not.toBe(fittedPath);
+      await expect.poll(() => used.getAttribute('d'), LOOK_AGAIN).not.toBe(fittedPath);
       await page.getByTestId('curve-fit').waitFor();
       // Ages by the curve's inverse, age = ((P0 − PCI) / a)^(1/b), worked by hand:
       // (30 / 0.1)^(1/2.2) = 13.36 and (60 / 0.1)^(1/2.2) = 18.32.
       const edited = await caption.textContent();
       expect(edited).toContain('PCI = 100.00 − 0.100 × age^2.20 (set by hand for this agency)');
       expect(edited).toContain('reaches PCI 70 after 13.4 years and 40 after 18.3 years');
-      await expect.poll(() => pick.textContent()).toMatch(/set by hand/);
+      await expect.poll(() => pick.textContent(), LOOK_AGAIN).toMatch(/set by hand/);
 
       // Kept after a reload.
       await page.reload();
       await page.getByTestId('families').getByRole('button', { name: FAMILY }).click();
-      await expect.poll(() => caption.textContent()).toContain('set by hand for this agency');
+      await expect.poll(() => caption.textContent(), LOOK_AGAIN).toContain('set by hand for this agency');
 
       await page.getByRole('button', { name: 'Go back to the fitted curve' }).click();
-      await page.getByText('Back to the fitted curve').waitFor();
-      await expect.poll(() => caption.textContent()).toBe(fittedCaption);
+      await page.getByText('Back to the fitted curve', { exact: true }).waitFor();
+      await expect.poll(() => caption.textContent(), LOOK_AGAIN).toBe(fittedCaption);
       expect(await used.getAttribute('d')).toBe(fittedPath);
       expect(await page.getByTestId('curve-fit').count()).toBe(0);
       expect(outside).toEqual([]);
