@@ -58,7 +58,12 @@ export function useFormErrors() {
     setErrors(r.success ? {} : toFieldErrors(r.error.issues));
     return r.success ? r.data : undefined;
   }, []);
-  const fromError = useCallback((err: unknown) => setErrors(toFieldErrors(issuesOf(err))), []);
+  /** Takes what a save threw; true when its issues went to fields, false when the caller must say it another way. */
+  const fromError = useCallback((err: unknown) => {
+    const issues = issuesOf(err);
+    setErrors(toFieldErrors(issues));
+    return issues.length > 0;
+  }, []);
   /** Forget one field's message (the user is changing it), or all of them. */
   const clear = useCallback((key?: string) => {
     setErrors((e) => {

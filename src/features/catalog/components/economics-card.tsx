@@ -2,10 +2,9 @@ import { useId, useState } from 'react';
 import { toast } from 'sonner';
 import { type Economics, EconomicsSchema } from '@shared/schemas/catalog';
 import { Button } from '@/components/ui/button';
-import { describedBy, FieldMessage } from '@/components/ui/field-message';
-import { TextInput } from '@/components/ui/field';
+import { CheckedInput } from '@/components/ui/field-message';
 import { Card } from '@/components/ui/page';
-import { issuesOf, numberFrom, useFormErrors } from '@/lib/form-errors';
+import { numberFrom, useFormErrors } from '@/lib/form-errors';
 import { useUpdateEconomics } from '../api/update-economics';
 
 type NumberKey = Exclude<keyof Economics, 'discountRateSource'>;
@@ -46,48 +45,41 @@ export function EconomicsCard({ e, canEdit, agencyId }: { e: Economics; canEdit:
         setSource(saved.discountRateSource ?? '');
         toast.success('Economics saved');
       },
-      onError: (err) => {
-        form.fromError(err);
-        if (!issuesOf(err).length) toast.error(err.message);
-      },
+      onError: (err) => form.fromError(err) || toast.error(err.message),
     });
   };
   return (
     <Card title="Economics">
       <div className="grid grid-cols-2 gap-3 md:grid-cols-4">
         {FIELDS.map((f) => (
-          <label key={f.key} className="text-sm">
-            <span className="block text-xs text-asphalt-muted">{f.label}</span>
-            <TextInput
-              aria-label={f.label}
-              inputMode="decimal"
-              disabled={!canEdit}
-              value={text[f.key]}
-              onChange={(ev) => {
-                setText({ ...text, [f.key]: ev.target.value });
-                form.clear(f.key);
-              }}
-              {...describedBy(`${id}-${f.key}`, form.error(f.key))}
-            />
-            <FieldMessage id={`${id}-${f.key}`} message={form.error(f.key)} />
-          </label>
+          <CheckedInput
+            key={f.key}
+            id={`${id}-${f.key}`}
+            label={f.label}
+            inputMode="decimal"
+            disabled={!canEdit}
+            value={text[f.key]}
+            onChange={(v) => {
+              setText({ ...text, [f.key]: v });
+              form.clear(f.key);
+            }}
+            error={form.error(f.key)}
+          />
         ))}
       </div>
-      <label className="mt-3 block text-sm">
-        <span className="block text-xs text-asphalt-muted">Source of the discount rate</span>
-        <TextInput
-          aria-label="Source of the discount rate"
-          disabled={!canEdit}
-          value={source}
-          onChange={(ev) => {
-            setSource(ev.target.value);
-            form.clear('discountRateSource');
-          }}
-          placeholder="e.g. OMB Circular A-94, Appendix C (real rate, year)"
-          {...describedBy(`${id}-source`, form.error('discountRateSource'))}
-        />
-        <FieldMessage id={`${id}-source`} message={form.error('discountRateSource')} />
-      </label>
+      <CheckedInput
+        id={`${id}-source`}
+        label="Source of the discount rate"
+        labelClassName="mt-3 block text-sm"
+        disabled={!canEdit}
+        value={source}
+        onChange={(v) => {
+          setSource(v);
+          form.clear('discountRateSource');
+        }}
+        placeholder="e.g. OMB Circular A-94, Appendix C (real rate, year)"
+        error={form.error('discountRateSource')}
+      />
       {canEdit && (
         <Button className="mt-3" onClick={submit} disabled={save.isPending}>
           Save economics

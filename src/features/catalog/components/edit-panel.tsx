@@ -1,6 +1,6 @@
 import { Button } from '@/components/ui/button';
-import { describedBy, FieldMessage } from '@/components/ui/field-message';
-import { TextInput } from '@/components/ui/field';
+import { CheckedInput } from '@/components/ui/field-message';
+import type { RowEdit } from '../lib/use-row-edit';
 
 export type EditField = {
   key: string;
@@ -11,28 +11,37 @@ export type EditField = {
   className?: string;
 };
 
-/** The form under a catalog row: its fields in a line, each with its message, then Save and Cancel. */
+/** The date a row's new prices take effect. */
+export const effectiveDateField = (key: string, value: string, onChange: (v: string) => void): EditField => ({
+  key,
+  label: 'Takes effect',
+  type: 'date',
+  className: 'w-40',
+  value,
+  onChange,
+});
+
+/**
+ * The form under a catalog row: its fields in a line, each with its message,
+ * then Save and Cancel, and beside them what no field shows.
+ */
 export function EditPanel({
   id,
   colSpan,
   itemName,
   fields,
-  error,
-  others,
+  edit,
   saving,
-  onSave,
-  onCancel,
 }: {
   id: string;
   colSpan: number;
   itemName: string;
   fields: EditField[];
-  error: (key: string) => string | undefined;
-  others: string[];
+  edit: Pick<RowEdit, 'form' | 'submit' | 'cancel'>;
   saving: boolean;
-  onSave: () => void;
-  onCancel: () => void;
 }) {
+  const { form, submit, cancel } = edit;
+  const others = form.others(fields.map((f) => f.key));
   return (
     <tr className="bg-paper">
       <td colSpan={colSpan} className="py-2">
@@ -40,29 +49,26 @@ export function EditPanel({
           className="m-0 flex min-w-0 flex-wrap items-start gap-3 border-0 p-0"
           aria-label={`Change ${itemName}`}
         >
-          {fields.map((f) => {
-            const msgId = `${id}-${f.key}`;
-            return (
-              <label key={f.key} className="text-xs">
-                <span className="block font-semibold text-asphalt">{f.label}</span>
-                <TextInput
-                  aria-label={`${f.label} — ${itemName}`}
-                  type={f.type ?? 'text'}
-                  inputMode={f.type === 'date' ? undefined : 'decimal'}
-                  className={f.className ?? 'w-28 text-right'}
-                  value={f.value}
-                  onChange={(e) => f.onChange(e.target.value)}
-                  {...describedBy(msgId, error(f.key))}
-                />
-                <FieldMessage id={msgId} message={error(f.key)} />
-              </label>
-            );
-          })}
+          {fields.map((f) => (
+            <CheckedInput
+              key={f.key}
+              id={`${id}-${f.key}`}
+              label={f.label}
+              name={`${f.label} — ${itemName}`}
+              labelClassName="text-xs"
+              type={f.type ?? 'text'}
+              inputMode={f.type === 'date' ? undefined : 'decimal'}
+              className={f.className ?? 'w-28 text-right'}
+              value={f.value}
+              onChange={f.onChange}
+              error={form.error(f.key)}
+            />
+          ))}
           <span className="flex gap-1 pt-4">
-            <Button onClick={onSave} disabled={saving}>
+            <Button onClick={submit} disabled={saving}>
               {saving ? 'Saving…' : 'Save'}
             </Button>
-            <Button variant="ghost" onClick={onCancel}>
+            <Button variant="ghost" onClick={cancel}>
               Cancel
             </Button>
           </span>

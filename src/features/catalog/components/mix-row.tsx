@@ -1,53 +1,47 @@
-import { useId, useState } from 'react';
-import { toast } from 'sonner';
+import { useId } from 'react';
 import { type Mix, MixInputSchema, MODIFIER_LABELS } from '@shared/schemas/catalog';
-import { issuesOf, numberFrom, useFormErrors } from '@/lib/form-errors';
+import { numberFrom } from '@/lib/form-errors';
 import { fmt2, fmtMoney } from '@/lib/format';
 import { useUpdateMix } from '../api/update-mix';
 import { today } from '../lib/today';
+import { useRowEdit } from '../lib/use-row-edit';
 import { DemoTag } from './demo-tag';
-import { EditPanel, OpenEdit } from './edit-panel';
+import { EditPanel, effectiveDateField, OpenEdit } from './edit-panel';
 
 type Draft = { pricePerTon: string; refLifeYears: string; priceEffectiveDate: string };
-export const MIX_COLUMNS = 9;
 
-export function MixRow({ m, canEdit, agencyId }: { m: Mix; canEdit: boolean; agencyId: string }) {
+export function MixRow({
+  m,
+  columns,
+  canEdit,
+  agencyId,
+}: {
+  m: Mix;
+  columns: number;
+  canEdit: boolean;
+  agencyId: string;
+}) {
   const id = useId();
-  const [draft, setDraft] = useState<Draft | null>(null);
   const save = useUpdateMix(agencyId);
-  const form = useFormErrors();
   const { id: mixId, isDemo: _demo, ...current } = m;
-  const open = () => {
-    form.clear();
-    setDraft({ pricePerTon: String(m.pricePerTon), refLifeYears: String(m.refLifeYears), priceEffectiveDate: today() });
-  };
-  const change = (key: keyof Draft) => (v: string) => {
-    setDraft((d) => (d ? { ...d, [key]: v } : d));
-    form.clear(key);
-  };
-  const submit = () => {
-    if (!draft) return;
-    const input = form.check(MixInputSchema, {
+  const edit = useRowEdit({
+    schema: MixInputSchema,
+    start: (): Draft => ({
+      pricePerTon: String(m.pricePerTon),
+      refLifeYears: String(m.refLifeYears),
+      priceEffectiveDate: today(),
+    }),
+    toValue: (d) => ({
       ...current,
-      pricePerTon: numberFrom(draft.pricePerTon),
-      refLifeYears: numberFrom(draft.refLifeYears),
-      priceEffectiveDate: draft.priceEffectiveDate,
-    });
-    if (!input) return;
-    save.mutate(
-      { id: mixId, input },
-      {
-        onSuccess: () => {
-          toast.success(`${m.name} saved; its price takes effect on ${input.priceEffectiveDate}`);
-          setDraft(null);
-        },
-        onError: (e) => {
-          form.fromError(e);
-          if (!issuesOf(e).length) toast.error(e.message);
-        },
-      },
-    );
-  };
+      pricePerTon: numberFrom(d.pricePerTon),
+      refLifeYears: numberFrom(d.refLifeYears),
+      priceEffectiveDate: d.priceEffectiveDate,
+    }),
+    mutate: (input, cb) => save.mutate({ id: mixId, input }, cb),
+    savedMessage: (input) => `${m.name} saved; its price takes effect on ${input.priceEffectiveDate}`,
+  });
+  const { draft, open } = edit;
+  const field = (key: keyof Draft) => (v: string) => edit.change(key, (d) => ({ ...d, [key]: v }));
   return (
     <>
       <tr className="border-t border-asphalt-line/60 align-top">
@@ -71,30 +65,20 @@ export function MixRow({ m, canEdit, agencyId }: { m: Mix; canEdit: boolean; age
       {draft && (
         <EditPanel
           id={id}
-          colSpan={MIX_COLUMNS}
+          colSpan={columns}
           itemName={m.name}
           fields={[
-            { key: 'pricePerTon', label: 'Price ($/ton)', value: draft.pricePerTon, onChange: change('pricePerTon') },
+            { key: 'pricePerTon', label: 'Price ($/ton)', value: draft.pricePerTon, onChange: field('pricePerTon') },
             {
               key: 'refLifeYears',
               label: `Life at ${m.refLiftIn} in (yr)`,
               value: draft.refLifeYears,
-              onChange: change('refLifeYears'),
+              onChange: field('refLifeYears'),
             },
-            {
-              key: 'priceEffectiveDate',
-              label: 'Takes effect',
-              type: 'date',
-              className: 'w-40',
-              value: draft.priceEffectiveDate,
-              onChange: change('priceEffectiveDate'),
-            },
+            effectiveDateField('priceEffectiveDate', draft.priceEffectiveDate, field('priceEffectiveDate')),
           ]}
-          error={form.error}
-          others={form.others(Object.keys(draft))}
+          edit={edit}
           saving={save.isPending}
-          onSave={submit}
-          onCancel={() => setDraft(null)}
         />
       )}
     </>

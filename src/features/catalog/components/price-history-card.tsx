@@ -5,6 +5,13 @@ import { Card } from '@/components/ui/page';
 import { fmtDate } from '@/lib/format';
 import { usePriceHistory } from '../api/get-price-history';
 import { priceValueText } from '../lib/labels';
+import { CatalogTable, type Column } from './catalog-table';
+
+const COLUMNS: Column[] = ['Item', 'What changed', 'Before', 'After', 'Takes effect', 'Saved on', 'By'].map(
+  (label) => ({
+    label,
+  }),
+);
 
 /** Every change of a price or a life, newest first, with the date it takes effect. */
 export function PriceHistoryCard({ agencyId }: { agencyId: string }) {
@@ -22,32 +29,19 @@ export function PriceHistoryCard({ agencyId }: { agencyId: string }) {
       ) : history.isError ? (
         <p className="text-sm text-band-failed">The price history could not be read: {history.error.message}</p>
       ) : items.length ? (
-        <table className="num w-full text-sm [&_td]:px-2 [&_th]:px-2" data-testid="price-history">
-          <thead className="text-left text-xs uppercase text-asphalt-muted">
-            <tr>
-              <th className="py-1">Item</th>
-              <th>What changed</th>
-              <th>Before</th>
-              <th>After</th>
-              <th>Takes effect</th>
-              <th>Saved on</th>
-              <th>By</th>
+        <CatalogTable testId="price-history" columns={COLUMNS}>
+          {items.map((h, i) => (
+            <tr key={i} className="border-t border-asphalt-line/60 align-top">
+              <td className="py-1">{h.name}</td>
+              <td>{PRICE_FIELD_LABELS[h.field]}</td>
+              <td className="max-w-xs">{h.before === null ? 'new item' : priceValueText(h.field, h.before)}</td>
+              <td className="max-w-xs">{priceValueText(h.field, h.after)}</td>
+              <td>{h.effectiveDate}</td>
+              <td>{fmtDate(h.at)}</td>
+              <td>{h.userName ?? '—'}</td>
             </tr>
-          </thead>
-          <tbody>
-            {items.map((h, i) => (
-              <tr key={i} className="border-t border-asphalt-line/60 align-top">
-                <td className="py-1">{h.name}</td>
-                <td>{PRICE_FIELD_LABELS[h.field]}</td>
-                <td className="max-w-xs">{h.before === null ? 'new item' : priceValueText(h.field, h.before)}</td>
-                <td className="max-w-xs">{priceValueText(h.field, h.after)}</td>
-                <td>{h.effectiveDate}</td>
-                <td>{fmtDate(h.at)}</td>
-                <td>{h.userName ?? '—'}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+          ))}
+        </CatalogTable>
       ) : (
         <p className="text-sm text-asphalt-muted">No price changes yet.</p>
       )}

@@ -1,5 +1,4 @@
-import { useId, useState } from 'react';
-import { toast } from 'sonner';
+import { useId } from 'react';
 import {
   COST_BASIS_LABELS,
   type CostItem,
@@ -8,15 +7,15 @@ import {
   TREATMENT_KIND_LABELS,
   TreatmentInputSchema,
 } from '@shared/schemas/catalog';
-import { issuesOf, numberFrom, useFormErrors } from '@/lib/form-errors';
+import { numberFrom } from '@/lib/form-errors';
 import { useUpdateTreatment } from '../api/update-treatment';
 import { appliesText, classesText, costItemText, effectText, lifeText, surfacesText } from '../lib/labels';
 import { today } from '../lib/today';
+import { useRowEdit } from '../lib/use-row-edit';
 import { DemoTag } from './demo-tag';
-import { EditPanel, OpenEdit } from './edit-panel';
+import { EditPanel, effectiveDateField, OpenEdit } from './edit-panel';
 
 type Draft = { amounts: string[]; date: string };
-export const TREATMENT_COLUMNS = 8;
 
 // Percent add-ons are typed in percent and stored as fractions.
 const shown = (c: CostItem) => String(c.basis === 'percent' ? +(c.amount * 100).toFixed(6) : c.amount);
@@ -26,51 +25,32 @@ const unit = (c: CostItem) => (c.basis === 'percent' ? '%' : `$ ${COST_BASIS_LAB
 export function TreatmentRow({
   t,
   mixes,
+  columns,
   canEdit,
   agencyId,
 }: {
   t: Treatment;
   mixes: Mix[];
+  columns: number;
   canEdit: boolean;
   agencyId: string;
 }) {
   const id = useId();
-  const [draft, setDraft] = useState<Draft | null>(null);
   const save = useUpdateTreatment(agencyId);
-  const form = useFormErrors();
   const mix = mixes.find((m) => m.id === t.mixId);
   const { id: treatmentId, isDemo: _demo, ...current } = t;
-  const edited = [...t.costItems.map((_, i) => `costItems.${i}.amount`), 'priceEffectiveDate'];
-  const open = () => {
-    form.clear();
-    setDraft({ amounts: t.costItems.map(shown), date: today() });
-  };
-  const submit = () => {
-    if (!draft) return;
-    const input = form.check(TreatmentInputSchema, {
+  const edit = useRowEdit({
+    schema: TreatmentInputSchema,
+    start: (): Draft => ({ amounts: t.costItems.map(shown), date: today() }),
+    toValue: (d) => ({
       ...current,
-      costItems: t.costItems.map((c, i) => ({ ...c, amount: stored(c, draft.amounts[i]) })),
-      priceEffectiveDate: draft.date,
-    });
-    if (!input) return;
-    save.mutate(
-      { id: treatmentId, input },
-      {
-        onSuccess: () => {
-          toast.success(`${t.name} saved; its prices take effect on ${input.priceEffectiveDate}`);
-          setDraft(null);
-        },
-        onError: (e) => {
-          form.fromError(e);
-          if (!issuesOf(e).length) toast.error(e.message);
-        },
-      },
-    );
-  };
-  const change = (key: string, v: (d: Draft) => Draft) => {
-    setDraft((d) => (d ? v(d) : d));
-    form.clear(key);
-  };
+      costItems: t.costItems.map((c, i) => ({ ...c, amount: stored(c, d.amounts[i]) })),
+      priceEffectiveDate: d.date,
+    }),
+    mutate: (input, cb) => save.mutate({ id: treatmentId, input }, cb),
+    savedMessage: (input) => `${t.name} saved; its prices take effect on ${input.priceEffectiveDate}`,
+  });
+  const { draft, open, change } = edit;
   return (
     <>
       <tr className="border-t border-asphalt-line/60 align-top">
@@ -110,7 +90,7 @@ export function TreatmentRow({
       {draft && (
         <EditPanel
           id={id}
-          colSpan={TREATMENT_COLUMNS}
+          colSpan={columns}
           itemName={t.name}
           fields={[
             ...t.costItems.map((c, i) => ({
@@ -120,20 +100,12 @@ export function TreatmentRow({
               onChange: (v: string) =>
                 change(`costItems.${i}.amount`, (d) => ({ ...d, amounts: d.amounts.map((x, k) => (k === i ? v : x)) })),
             })),
-            {
-              key: 'priceEffectiveDate',
-              label: 'Takes effect',
-              type: 'date' as const,
-              className: 'w-40',
-              value: draft.date,
-              onChange: (v: string) => change('priceEffectiveDate', (d) => ({ ...d, date: v })),
-            },
+            effectiveDateField('priceEffectiveDate', draft.date, (v) =>
+              change('priceEffectiveDate', (d) => ({ ...d, date: v })),
+            ),
           ]}
-          error={form.error}
-          others={form.others(edited)}
+          edit={edit}
           saving={save.isPending}
-          onSave={submit}
-          onCancel={() => setDraft(null)}
         />
       )}
     </>

@@ -5,7 +5,7 @@ import { MIN_POINTS_TO_FIT } from '@shared/engine/forecast/families';
 import { CurveSchema, type Family } from '@shared/schemas/forecast';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/page';
-import { issuesOf, numberFrom, useFormErrors } from '@/lib/form-errors';
+import { numberFrom, useFormErrors } from '@/lib/form-errors';
 import { fmt1, fmt2, fmtInt } from '@/lib/format';
 import { useSetCurve } from '../api/set-curve';
 import { familyTitle } from '../lib/labels';
@@ -44,10 +44,7 @@ export function CurveCard({ f, agencyId }: { f: Family; agencyId: string }) {
           toast.success('Curve saved; plans use it from their next run');
           setDraft(null);
         },
-        onError: (e) => {
-          form.fromError(e);
-          if (!issuesOf(e).length) toast.error(e.message);
-        },
+        onError: (e) => form.fromError(e) || toast.error(e.message),
       },
     );
   };

@@ -1,8 +1,7 @@
 import { useId } from 'react';
 import type { Curve } from '@shared/engine/forecast/curve';
 import { Button } from '@/components/ui/button';
-import { describedBy, FieldMessage } from '@/components/ui/field-message';
-import { TextInput } from '@/components/ui/field';
+import { CheckedInput } from '@/components/ui/field-message';
 
 export type CurveDraft = Record<keyof Curve, string>;
 
@@ -32,18 +31,17 @@ export function CurveEditor({
   return (
     <div className="flex flex-wrap items-start gap-3 text-sm">
       {FIELDS.map((f) => (
-        <label key={f.key} className="w-44">
-          <span className="block text-xs font-semibold text-asphalt">{f.label}</span>
-          <TextInput
-            aria-label={f.label}
-            inputMode="decimal"
-            value={draft[f.key]}
-            onChange={(e) => onChange({ ...draft, [f.key]: e.target.value }, f.key)}
-            {...describedBy(`${id}-${f.key}`, error(f.key))}
-          />
-          <span className="block text-xs text-asphalt-muted">{f.hint}</span>
-          <FieldMessage id={`${id}-${f.key}`} message={error(f.key)} />
-        </label>
+        <CheckedInput
+          key={f.key}
+          id={`${id}-${f.key}`}
+          label={f.label}
+          hint={f.hint}
+          labelClassName="w-44"
+          inputMode="decimal"
+          value={draft[f.key]}
+          onChange={(v) => onChange({ ...draft, [f.key]: v }, f.key)}
+          error={error(f.key)}
+        />
       ))}
       <span className="flex gap-2 pt-4">
         <Button onClick={onSave} disabled={saving}>
