@@ -114,9 +114,9 @@ export async function restoreAgency(deps: Deps, userId: string, buf: Buffer, nam
           millDepthIn: i.millDepthIn,
           lifeYears: i.lifeYears,
           productionSyPerDay: i.productionSyPerDay,
-          costItems: JSON.stringify(i.costItems),
-          effect: JSON.stringify(i.effect),
-          applicability: JSON.stringify(i.applicability),
+          costItems: i.costItems,
+          effect: i.effect,
+          applicability: i.applicability,
           priceEffectiveDate: i.priceEffectiveDate,
           isDemo: t.isDemo,
         })

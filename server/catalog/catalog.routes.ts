@@ -11,13 +11,12 @@ import {
 } from '../../shared/schemas/catalog';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
-import * as repo from './catalog.repo';
 import * as service from './catalog.service';
 
 export function catalogRoutes(api: ApiRoutes, deps: Deps) {
   const admin = { kind: 'agency', role: 'admin' } as const;
   const base = '/api/agencies/:agencyId/catalog';
-  api.add({
+  api.typed({
     method: 'get',
     path: base,
     tag: 'Catalog',
@@ -27,7 +26,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     response: CatalogSchema,
     handler: ({ agency }) => service.catalog(deps, agency!.id),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: `${base}/price-history`,
     tag: 'Catalog',
@@ -35,9 +34,9 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     access: { kind: 'agency', role: 'engineer' },
     params: AgencyParamsSchema,
     response: PriceHistorySchema,
-    handler: ({ agency }) => ({ items: repo.history(deps.db, agency!.id) }),
+    handler: ({ agency }) => service.priceHistory(deps, agency!.id),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: `${base}/mixes`,
     tag: 'Catalog',
@@ -49,7 +48,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     status: 201,
     handler: ({ agency, user, body }) => service.saveMix(deps, agency!.id, user!.id, null, body),
   });
-  api.add({
+  api.typed({
     method: 'put',
     path: `${base}/mixes/:itemId`,
     tag: 'Catalog',
@@ -60,7 +59,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     response: MixSchema,
     handler: ({ agency, user, params, body }) => service.saveMix(deps, agency!.id, user!.id, params.itemId, body),
   });
-  api.add({
+  api.typed({
     method: 'delete',
     path: `${base}/mixes/:itemId`,
     tag: 'Catalog',
@@ -68,12 +67,9 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     access: admin,
     params: CatalogItemParamsSchema,
     response: OkSchema,
-    handler: ({ agency, user, params }) => {
-      service.deleteMix(deps, agency!.id, user!.id, params.itemId);
-      return { ok: true };
-    },
+    handler: ({ agency, user, params }) => service.deleteMix(deps, agency!.id, user!.id, params.itemId),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: `${base}/treatments`,
     tag: 'Catalog',
@@ -85,7 +81,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     status: 201,
     handler: ({ agency, user, body }) => service.saveTreatment(deps, agency!.id, user!.id, null, body),
   });
-  api.add({
+  api.typed({
     method: 'put',
     path: `${base}/treatments/:itemId`,
     tag: 'Catalog',
@@ -96,7 +92,7 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     response: TreatmentSchema,
     handler: ({ agency, user, params, body }) => service.saveTreatment(deps, agency!.id, user!.id, params.itemId, body),
   });
-  api.add({
+  api.typed({
     method: 'delete',
     path: `${base}/treatments/:itemId`,
     tag: 'Catalog',
@@ -104,12 +100,9 @@ export function catalogRoutes(api: ApiRoutes, deps: Deps) {
     access: admin,
     params: CatalogItemParamsSchema,
     response: OkSchema,
-    handler: ({ agency, user, params }) => {
-      service.deleteTreatment(deps, agency!.id, user!.id, params.itemId);
-      return { ok: true };
-    },
+    handler: ({ agency, user, params }) => service.deleteTreatment(deps, agency!.id, user!.id, params.itemId),
   });
-  api.add({
+  api.typed({
     method: 'put',
     path: `${base}/economics`,
     tag: 'Catalog',

@@ -1,14 +1,23 @@
-import { and, eq } from 'drizzle-orm';
-import type { Economics, MixInput, TreatmentInput } from '../../shared/schemas/catalog';
+// The catalog's rules: who may change what is decided by the routes; here an
+// item belongs to the agency, a treatment's mix is the agency's own, a mix in
+// use stays, every price change is kept with its effective date, and every
+// write lands in one transaction with its audit entry.
+import {
+  type Economics,
+  MIX_PRICE_FIELDS,
+  type MixInput,
+  type PriceField,
+  type PriceValue,
+  TREATMENT_PRICE_FIELDS,
+  type TreatmentInput,
+} from '../../shared/schemas/catalog';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
 import type { Deps } from '../deps';
-import { agencies, mixes, priceHistory, treatments } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import * as repo from './catalog.repo';
 
-type Tx = Parameters<Parameters<Deps['db']['transaction']>[0]>[0];
-
+/** Mixes, treatments and economics as the Catalog screen and other modules read them. */
 export function catalog(deps: Deps, agencyId: string) {
   const m = repo.listMixes(deps.db, agencyId);
   const t = repo.listTreatments(deps.db, agencyId);
@@ -20,67 +29,49 @@ export function catalog(deps: Deps, agencyId: string) {
   };
 }
 
+// Reads for other modules (comparisons, plans, the agency export): the same
+// shapes as the repo's, reached through the service.
+export const listMixes = (deps: Deps, agencyId: string) => repo.listMixes(deps.db, agencyId);
+export const listTreatments = (deps: Deps, agencyId: string) => repo.listTreatments(deps.db, agencyId);
+export const economicsOf = (deps: Deps, agencyId: string) => repo.economicsOf(deps.db, agencyId);
+
+export const priceHistory = (deps: Deps, agencyId: string) => ({ items: repo.history(deps.db, agencyId) });
+
 function logPrices(
-  tx: Tx,
+  db: repo.Conn,
   agencyId: string,
   userId: string,
-  entity: string,
-  entityId: string,
-  name: string,
-  before: Record<string, unknown> | null,
-  after: Record<string, unknown>,
-  fields: string[],
-  effectiveDate: string,
+  item: { entity: 'mix' | 'treatment'; id: string; name: string; effectiveDate: string },
+  before: Partial<Record<PriceField, PriceValue>> | null,
+  after: Partial<Record<PriceField, PriceValue>>,
+  fields: readonly PriceField[],
 ) {
   for (const f of fields) {
-    const b = before ? before[f] : null;
-    const a = after[f];
+    const b = before?.[f] ?? null;
+    const a = after[f] ?? null;
     if (JSON.stringify(b) === JSON.stringify(a)) continue;
-    tx.insert(priceHistory)
-      .values({
-        agencyId,
-        entity,
-        entityId,
-        name,
-        field: f,
-        before: b === null || b === undefined ? null : JSON.stringify(b),
-        after: JSON.stringify(a),
-        effectiveDate,
-        userId,
-      })
-      .run();
+    repo.insertPriceChange(db, agencyId, {
+      entity: item.entity,
+      entityId: item.id,
+      name: item.name,
+      field: f,
+      before: b,
+      after: a,
+      effectiveDate: item.effectiveDate,
+      userId,
+    });
   }
 }
 
-const MIX_PRICE_FIELDS = ['pricePerTon', 'spreadRateLbPerSyIn', 'refLifeYears'];
-const TREATMENT_PRICE_FIELDS = ['costItems', 'lifeYears'];
-
 export function saveMix(deps: Deps, agencyId: string, userId: string, id: string | null, input: MixInput) {
   return deps.db.transaction((tx) => {
-    const before = id ? repo.mixRow(deps.db, agencyId, id) : null;
+    const before = id ? repo.mixRow(tx, agencyId, id) : null;
     if (id && !before) throw notFound('No such mix');
     const mixId = id ?? newId();
-    if (before)
-      tx.update(mixes)
-        .set({ ...input, isDemo: false })
-        .where(eq(mixes.id, mixId))
-        .run();
-    else
-      tx.insert(mixes)
-        .values({ ...input, id: mixId, agencyId })
-        .run();
-    logPrices(
-      tx,
-      agencyId,
-      userId,
-      'mix',
-      mixId,
-      input.name,
-      before ?? null,
-      input,
-      MIX_PRICE_FIELDS,
-      input.priceEffectiveDate,
-    );
+    if (before) repo.updateMix(tx, agencyId, mixId, input);
+    else repo.insertMix(tx, agencyId, mixId, input);
+    const item = { entity: 'mix', id: mixId, name: input.name, effectiveDate: input.priceEffectiveDate } as const;
+    logPrices(tx, agencyId, userId, item, before ?? null, input, MIX_PRICE_FIELDS);
     recordAudit(tx, {
       agencyId,
       userId,
@@ -89,7 +80,7 @@ export function saveMix(deps: Deps, agencyId: string, userId: string, id: string
       entityId: mixId,
       detail: { before: before ?? null, after: input },
     });
-    return repo.toMix(tx.select().from(mixes).where(eq(mixes.id, mixId)).get()!);
+    return repo.toMix(repo.mixRow(tx, agencyId, mixId)!);
   });
 }
 
@@ -100,37 +91,14 @@ export function saveTreatment(deps: Deps, agencyId: string, userId: string, id: 
     ]);
   }
   return deps.db.transaction((tx) => {
-    const beforeRow = id ? repo.treatmentRow(deps.db, agencyId, id) : null;
+    const beforeRow = id ? repo.treatmentRow(tx, agencyId, id) : null;
     if (id && !beforeRow) throw notFound('No such treatment');
     const before = beforeRow ? repo.toTreatment(beforeRow) : null;
     const tid = id ?? newId();
-    const row = {
-      ...input,
-      costItems: JSON.stringify(input.costItems),
-      effect: JSON.stringify(input.effect),
-      applicability: JSON.stringify(input.applicability),
-    };
-    if (before)
-      tx.update(treatments)
-        .set({ ...row, isDemo: false })
-        .where(eq(treatments.id, tid))
-        .run();
-    else
-      tx.insert(treatments)
-        .values({ ...row, id: tid, agencyId })
-        .run();
-    logPrices(
-      tx,
-      agencyId,
-      userId,
-      'treatment',
-      tid,
-      input.name,
-      before,
-      input,
-      TREATMENT_PRICE_FIELDS,
-      input.priceEffectiveDate,
-    );
+    if (before) repo.updateTreatment(tx, agencyId, tid, input);
+    else repo.insertTreatment(tx, agencyId, tid, input);
+    const item = { entity: 'treatment', id: tid, name: input.name, effectiveDate: input.priceEffectiveDate } as const;
+    logPrices(tx, agencyId, userId, item, before, input, TREATMENT_PRICE_FIELDS);
     recordAudit(tx, {
       agencyId,
       userId,
@@ -139,26 +107,22 @@ export function saveTreatment(deps: Deps, agencyId: string, userId: string, id: 
       entityId: tid,
       detail: { before, after: input },
     });
-    return repo.toTreatment(tx.select().from(treatments).where(eq(treatments.id, tid)).get()!);
+    return repo.toTreatment(repo.treatmentRow(tx, agencyId, tid)!);
   });
 }
 
 export function deleteMix(deps: Deps, agencyId: string, userId: string, id: string) {
   deps.db.transaction((tx) => {
-    const row = repo.mixRow(deps.db, agencyId, id);
+    const row = repo.mixRow(tx, agencyId, id);
     if (!row) throw notFound('No such mix');
-    const used = tx
-      .select({ id: treatments.id, name: treatments.name })
-      .from(treatments)
-      .where(and(eq(treatments.agencyId, agencyId), eq(treatments.mixId, id)))
-      .all();
+    const used = repo.treatmentsUsingMix(tx, agencyId, id);
     if (used.length)
       throw new HttpError(
         409,
         'in_use',
         `${row.name} is used by ${used.map((u) => u.name).join(', ')}; change those treatments first`,
       );
-    tx.delete(mixes).where(eq(mixes.id, id)).run();
+    repo.deleteMix(tx, agencyId, id);
     recordAudit(tx, {
       agencyId,
       userId,
@@ -168,13 +132,14 @@ export function deleteMix(deps: Deps, agencyId: string, userId: string, id: stri
       detail: { before: row },
     });
   });
+  return { ok: true as const };
 }
 
 export function deleteTreatment(deps: Deps, agencyId: string, userId: string, id: string) {
   deps.db.transaction((tx) => {
-    const row = repo.treatmentRow(deps.db, agencyId, id);
+    const row = repo.treatmentRow(tx, agencyId, id);
     if (!row) throw notFound('No such treatment');
-    tx.delete(treatments).where(eq(treatments.id, id)).run();
+    repo.deleteTreatment(tx, agencyId, id);
     recordAudit(tx, {
       agencyId,
       userId,
@@ -184,12 +149,13 @@ export function deleteTreatment(deps: Deps, agencyId: string, userId: string, id
       detail: { before: repo.toTreatment(row) },
     });
   });
+  return { ok: true as const };
 }
 
 export function saveEconomics(deps: Deps, agencyId: string, userId: string, e: Economics) {
   deps.db.transaction((tx) => {
-    const before = repo.economicsOf(deps.db, agencyId);
-    tx.update(agencies).set(e).where(eq(agencies.id, agencyId)).run();
+    const before = repo.economicsOf(tx, agencyId);
+    repo.setEconomics(tx, agencyId, e);
     recordAudit(tx, {
       agencyId,
       userId,

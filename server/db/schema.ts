@@ -3,6 +3,17 @@
 // (the `casing` option in drizzle.config.ts and server/db/client.ts).
 import { sql } from 'drizzle-orm';
 import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import {
+  type Applicability,
+  type CostItem,
+  type Effect,
+  MODIFIERS,
+  PRICE_ENTITIES,
+  PRICE_FIELDS,
+  type PriceValue,
+  TREATMENT_CATEGORIES,
+  TREATMENT_KINDS,
+} from '../../shared/schemas/catalog';
 
 const createdAt = () => text().notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
 
@@ -238,7 +249,7 @@ export const mixes = sqliteTable(
       .references(() => agencies.id, { onDelete: 'cascade' }),
     name: text().notNull(),
     binderGrade: text().notNull(),
-    modifier: text().notNull(),
+    modifier: text({ enum: MODIFIERS }).notNull(),
     pricePerTon: real().notNull(),
     spreadRateLbPerSyIn: real().notNull(),
     minLiftIn: real().notNull(),
@@ -261,16 +272,16 @@ export const treatments = sqliteTable(
       .notNull()
       .references(() => agencies.id, { onDelete: 'cascade' }),
     name: text().notNull(),
-    category: text().notNull(),
-    kind: text().notNull(),
+    category: text({ enum: TREATMENT_CATEGORIES }).notNull(),
+    kind: text({ enum: TREATMENT_KINDS }).notNull(),
     mixId: text().references(() => mixes.id, { onDelete: 'restrict' }),
     defaultThicknessIn: real(),
     millDepthIn: real().notNull().default(0),
     lifeYears: real(),
     productionSyPerDay: real().notNull(),
-    costItems: text().notNull(), // JSON CostItem[]
-    effect: text().notNull(), // JSON
-    applicability: text().notNull(), // JSON
+    costItems: text({ mode: 'json' }).notNull().$type<CostItem[]>(),
+    effect: text({ mode: 'json' }).notNull().$type<Effect>(),
+    applicability: text({ mode: 'json' }).notNull().$type<Applicability>(),
     priceEffectiveDate: text().notNull(),
     isDemo: integer({ mode: 'boolean' }).notNull().default(false),
     createdAt: createdAt(),
@@ -287,12 +298,13 @@ export const priceHistory = sqliteTable(
     agencyId: text()
       .notNull()
       .references(() => agencies.id, { onDelete: 'cascade' }),
-    entity: text().notNull(),
+    entity: text({ enum: PRICE_ENTITIES }).notNull(),
     entityId: text().notNull(),
     name: text().notNull(),
-    field: text().notNull(),
-    before: text(),
-    after: text(),
+    field: text({ enum: PRICE_FIELDS }).notNull(),
+    // JSON: the field's value before (null for a new item) and after.
+    before: text({ mode: 'json' }).$type<PriceValue>(),
+    after: text({ mode: 'json' }).$type<PriceValue>(),
     effectiveDate: text().notNull(),
     userId: text(),
     at: createdAt(),

@@ -1,12 +1,11 @@
-import { z } from 'zod';
 import { AgencyParamsSchema, OkSchema } from '../../shared/schemas/common';
-import { CurveOverrideBodySchema } from '../../shared/schemas/plans';
+import { CurveOverrideBodySchema, FamilyListQuerySchema, FamilyListSchema } from '../../shared/schemas/forecast';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
 import * as service from './forecast.service';
 
 export function forecastRoutes(api: ApiRoutes, deps: Deps) {
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/forecast/families',
     tag: 'Forecast',
@@ -14,10 +13,11 @@ export function forecastRoutes(api: ApiRoutes, deps: Deps) {
       'Pavement families with their deterioration curve (fitted by least squares where there are enough surveys), n, RMSE and the survey points',
     access: { kind: 'agency', role: 'engineer' },
     params: AgencyParamsSchema,
-    query: z.object({ points: z.enum(['true', 'false']).default('true') }),
-    handler: ({ agency, query }) => ({ families: service.families(deps, agency!.id, query.points === 'true') }),
+    query: FamilyListQuerySchema,
+    response: FamilyListSchema,
+    handler: ({ agency, query }) => service.familyList(deps, agency!.id, query.points === 'true'),
   });
-  api.add({
+  api.typed({
     method: 'put',
     path: '/api/agencies/:agencyId/forecast/curves',
     tag: 'Forecast',
@@ -26,9 +26,6 @@ export function forecastRoutes(api: ApiRoutes, deps: Deps) {
     params: AgencyParamsSchema,
     body: CurveOverrideBodySchema,
     response: OkSchema,
-    handler: ({ agency, user, body }) => {
-      service.setOverride(deps, agency!.id, user!.id, body.familyKey, body.curve);
-      return { ok: true };
-    },
+    handler: ({ agency, user, body }) => service.setCurve(deps, agency!.id, user!.id, body.familyKey, body.curve),
   });
 }

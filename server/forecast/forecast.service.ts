@@ -1,44 +1,31 @@
-import { and, eq } from 'drizzle-orm';
 import { type Curve, type FitPoint, fitCurve } from '../../shared/engine/forecast/curve';
-import { DEFAULT_CURVES, familyKey, MIN_POINTS_TO_FIT } from '../../shared/engine/forecast/families';
-import type { FamilyView } from '../../shared/schemas/plans';
+import {
+  classGroup,
+  DEFAULT_CURVES,
+  familyKey,
+  MIN_POINTS_TO_FIT,
+  treatmentGroup,
+} from '../../shared/engine/forecast/families';
+import type { Family, FamilyList } from '../../shared/schemas/forecast';
 import { recordAudit } from '../audit';
 import type { Deps } from '../deps';
-import { curveOverrides, segments, surveys } from '../db/schema';
+import * as repo from './forecast.repo';
 
-export type Family = FamilyView;
+export type { Family };
 
 /** Every family's curve: fitted where it has enough surveys, else the default or the agency's own edit. */
 export function families(deps: Deps, agencyId: string, withPoints = true): Family[] {
-  const rows = deps.db
-    .select({
-      ref: segments.id,
-      surface: segments.surface,
-      cls: segments.functionalClass,
-      lastTreatment: segments.lastTreatment,
-      lastYear: segments.lastTreatmentYear,
-      date: surveys.surveyDate,
-      pci: surveys.pci,
-    })
-    .from(segments)
-    .leftJoin(surveys, eq(surveys.segmentRef, segments.id))
-    .where(eq(segments.agencyId, agencyId))
-    .all();
-  const overrides = new Map(
-    deps.db
-      .select()
-      .from(curveOverrides)
-      .where(eq(curveOverrides.agencyId, agencyId))
-      .all()
-      .map((o) => [o.familyKey, { p0: o.p0, a: o.a, b: o.b }]),
-  );
-  const fams = new Map<string, { segs: Set<number>; pts: FitPoint[]; surface: string }>();
+  const rows = repo.surveyPoints(deps.db, agencyId);
+  const overrides = repo.overrides(deps.db, agencyId);
+  type Group = Pick<Family, 'surface' | 'classGroup' | 'treatmentGroup'> & { segs: Set<number>; pts: FitPoint[] };
+  const fams = new Map<string, Group>();
   for (const r of rows) {
     if (r.surface === 'gravel') continue;
     const key = familyKey(r.surface, r.cls, r.lastTreatment);
     let f = fams.get(key);
     if (!f) {
-      f = { segs: new Set(), pts: [], surface: r.surface };
+      const group = { classGroup: classGroup(r.cls), treatmentGroup: treatmentGroup(r.lastTreatment) };
+      f = { segs: new Set(), pts: [], surface: r.surface, ...group };
       fams.set(key, f);
     }
     f.segs.add(r.ref);
@@ -50,19 +37,18 @@ export function families(deps: Deps, agencyId: string, withPoints = true): Famil
     }
   }
   return [...fams.entries()]
-    .map(([key, f]) => {
-      const [surface, classGroup, treatmentGroup] = key.split('|');
+    .map(([key, f]): Family => {
       const fit = f.pts.length >= 3 ? fitCurve(f.pts) : null;
       const override = overrides.get(key);
-      const fallback = DEFAULT_CURVES[surface] ?? DEFAULT_CURVES.other;
+      const fallback = DEFAULT_CURVES[f.surface] ?? DEFAULT_CURVES.other;
       const useFit = !override && fit && f.pts.length >= MIN_POINTS_TO_FIT;
       const curve = override ?? (useFit ? fit!.curve : fallback);
       const source: Family['source'] = override ? 'edited' : useFit ? 'fitted' : 'default';
       return {
         key,
-        surface,
-        classGroup,
-        treatmentGroup,
+        surface: f.surface,
+        classGroup: f.classGroup,
+        treatmentGroup: f.treatmentGroup,
         segments: f.segs.size,
         n: f.pts.length,
         curve,
@@ -77,13 +63,8 @@ export function families(deps: Deps, agencyId: string, withPoints = true): Famil
 
 export function setOverride(deps: Deps, agencyId: string, userId: string, key: string, curve: Curve | null) {
   deps.db.transaction((tx) => {
-    tx.delete(curveOverrides)
-      .where(and(eq(curveOverrides.agencyId, agencyId), eq(curveOverrides.familyKey, key)))
-      .run();
-    if (curve)
-      tx.insert(curveOverrides)
-        .values({ agencyId, familyKey: key, ...curve })
-        .run();
+    repo.clearOverride(tx, agencyId, key);
+    if (curve) repo.insertOverride(tx, agencyId, key, curve);
     recordAudit(tx, {
       agencyId,
       userId,
@@ -99,4 +80,15 @@ export function setOverride(deps: Deps, agencyId: string, userId: string, key: s
 export function curveLookup(fams: Family[]) {
   const m = new Map(fams.map((f) => [f.key, f.curve]));
   return (key: string) => m.get(key) ?? DEFAULT_CURVES[key.split('|')[0]] ?? DEFAULT_CURVES.other;
+}
+
+/** The Forecast screen's list: every family, with its survey points unless asked not to. */
+export const familyList = (deps: Deps, agencyId: string, withPoints: boolean): FamilyList => ({
+  families: families(deps, agencyId, withPoints),
+});
+
+/** A hand-set curve for one family, or null to go back to the fit or the default. */
+export function setCurve(deps: Deps, agencyId: string, userId: string, key: string, curve: Curve | null) {
+  setOverride(deps, agencyId, userId, key, curve);
+  return { ok: true as const };
 }

@@ -52,24 +52,45 @@ export type RouteDef<
   handler: (ctx: Ctx<Out<PS>, Out<QS>, Out<BS>>) => unknown | Promise<unknown>;
 };
 
+/**
+ * A JSON route whose handler must return what its response schema describes
+ * (checked by the compiler; `response` is required). Opt in with `api.typed`.
+ */
+export type TypedRouteDef<
+  PS extends AnyZod | undefined,
+  QS extends AnyZod | undefined,
+  BS extends AnyZod | undefined,
+  RS extends AnyZod,
+> = Omit<RouteDef<PS, QS, BS>, 'response' | 'handler'> & {
+  response: RS;
+  handler: (ctx: Ctx<Out<PS>, Out<QS>, Out<BS>>) => NoInfer<z.output<RS>> | Promise<NoInfer<z.output<RS>>>;
+};
+
 export type ApiRoutes = {
   list: RouteDef[];
   add: <PS extends AnyZod | undefined, QS extends AnyZod | undefined, BS extends AnyZod | undefined>(
     def: RouteDef<PS, QS, BS>,
   ) => void;
+  /** Like `add`, with the handler's return checked against `response` at compile time. */
+  typed: <
+    PS extends AnyZod | undefined,
+    QS extends AnyZod | undefined,
+    BS extends AnyZod | undefined,
+    RS extends AnyZod,
+  >(
+    def: TypedRouteDef<PS, QS, BS, RS>,
+  ) => void;
 };
 
 export function createApiRoutes(): ApiRoutes {
   const list: RouteDef[] = [];
-  return {
-    list,
-    add(def) {
-      if (def.access.kind === 'agency' && !def.path.includes(':agencyId')) {
-        throw new Error(`Agency route ${def.path} has no :agencyId`);
-      }
-      list.push(def as unknown as RouteDef);
-    },
+  const add = (def: { access: Access; path: string }) => {
+    if (def.access.kind === 'agency' && !def.path.includes(':agencyId')) {
+      throw new Error(`Agency route ${def.path} has no :agencyId`);
+    }
+    list.push(def as unknown as RouteDef);
   };
+  return { list, add, typed: add };
 }
 
 function parsePart(schema: AnyZod | undefined, value: unknown, where: string) {

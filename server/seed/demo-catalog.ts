@@ -1,5 +1,5 @@
 // The demo catalog for the fictional agencies. Every price, life and effect
-// here is invented for the demo scenario (PRODUCT.md) and is shown in the UI
+// here is invented for the demo scenario (docs/PRODUCT.md, The demo) and is shown in the UI
 // with a "demo values" tag; none is a reference value.
 import type { MixInput, TreatmentInput } from '../../shared/schemas/catalog';
 import { FUNCTIONAL_CLASSES } from '../../shared/schemas/segments';

@@ -68,9 +68,6 @@ function insertCatalog(db: Db, agencyId: string) {
         id: newId(),
         agencyId,
         mixId: mixKey ? ids[mixKey] : null,
-        costItems: JSON.stringify(t.costItems),
-        effect: JSON.stringify(t.effect),
-        applicability: JSON.stringify(t.applicability),
         isDemo: true,
       })
       .run();

@@ -1,4 +1,4 @@
-// Quantities (COMPUTATION.md §1). US customary units inside the engine.
+// Quantities (docs/COMPUTATION.md, Cost of one application). US customary units inside the engine.
 
 export const FT_PER_MILE = 5280;
 export const SQ_FT_PER_SY = 9;

@@ -11,19 +11,25 @@ export const MODIFIER_LABELS: Record<(typeof MODIFIERS)[number], string> = {
   other: 'other',
 };
 
-const isoDate = z.iso.date();
+const isoDate = z.iso.date('must be a date (YYYY-MM-DD)');
+/** A number typed into a form: text that is not a number gets these words, not zod's. */
+const num = () => z.number('must be a number');
+const liftIn = () => num().positive('must be more than 0 in').max(12, 'must be 12 in or less');
 
 export const MixInputSchema = z
   .object({
     name: z.string().trim().min(1).max(80),
     binderGrade: z.string().trim().min(1).max(40),
     modifier: ModifierSchema,
-    pricePerTon: z.number().positive().max(10_000),
-    spreadRateLbPerSyIn: z.number().positive().max(300).default(110),
-    minLiftIn: z.number().positive().max(12),
-    maxLiftIn: z.number().positive().max(12),
-    refLiftIn: z.number().positive().max(12),
-    refLifeYears: z.number().positive().max(60),
+    pricePerTon: num().positive('must be more than $0').max(10_000, 'must be $10,000 a ton or less'),
+    spreadRateLbPerSyIn: num()
+      .positive('must be more than 0 lb/SY-in')
+      .max(300, 'must be 300 lb/SY-in or less')
+      .default(110),
+    minLiftIn: liftIn(),
+    maxLiftIn: liftIn(),
+    refLiftIn: liftIn(),
+    refLifeYears: num().positive('must be more than 0 years').max(60, 'must be 60 years or less'),
     coldWeatherNote: z.string().trim().max(500).nullable().default(null),
     priceEffectiveDate: isoDate,
   })
@@ -79,11 +85,23 @@ export const TREATMENT_KIND_LABELS: Record<(typeof TREATMENT_KINDS)[number], str
 };
 export const OVERLAY_KINDS = ['thin_overlay', 'mill_and_overlay', 'structural_overlay'] as const;
 
+export const TREATMENT_CATEGORIES = ['preservation', 'rehabilitation', 'reconstruction'] as const;
+export const TreatmentCategorySchema = z.enum(TREATMENT_CATEGORIES);
+
+export const COST_BASES = ['per_sy', 'per_lane_mile', 'per_job', 'percent'] as const;
+/** How an amount on each basis reads: "$0.40 per SY", "8 % of the job". */
+export const COST_BASIS_LABELS: Record<(typeof COST_BASES)[number], string> = {
+  per_sy: 'per SY',
+  per_lane_mile: 'per lane-mile',
+  per_job: 'per job',
+  percent: '% of the job',
+};
+
 export const CostItemSchema = z.object({
   label: z.string().trim().min(1).max(80),
-  basis: z.enum(['per_sy', 'per_lane_mile', 'per_job', 'percent']),
+  basis: z.enum(COST_BASES),
   /** Dollars per unit, or a fraction (0.08) for percent add-ons. */
-  amount: z.number().min(0).max(1_000_000),
+  amount: num().min(0, 'cannot be negative').max(1_000_000, 'must be $1,000,000 or less'),
 });
 export type CostItem = z.infer<typeof CostItemSchema>;
 
@@ -94,6 +112,7 @@ export const EffectSchema = z.object({
   /** Whether the treatment restarts the age on its family's curve. */
   resetsAge: z.boolean(),
 });
+export type Effect = z.infer<typeof EffectSchema>;
 
 export const ApplicabilitySchema = z.object({
   pciMin: z.number().min(0).max(100),
@@ -102,17 +121,18 @@ export const ApplicabilitySchema = z.object({
   classes: z.array(FunctionalClassSchema).min(1),
   minYearsSinceLast: z.number().int().min(0).max(50),
 });
+export type Applicability = z.infer<typeof ApplicabilitySchema>;
 
 export const TreatmentInputSchema = z
   .object({
     name: z.string().trim().min(1).max(80),
-    category: z.enum(['preservation', 'rehabilitation', 'reconstruction']),
+    category: TreatmentCategorySchema,
     kind: TreatmentKindSchema,
     mixId: z.string().max(64).nullable().default(null),
     defaultThicknessIn: z.number().positive().max(12).nullable().default(null),
     millDepthIn: z.number().min(0).max(12).default(0),
     /** Null: life follows the mix and lift. */
-    lifeYears: z.number().positive().max(60).nullable(),
+    lifeYears: num().positive('must be more than 0 years').max(60, 'must be 60 years or less').nullable(),
     /** Square yards one crew does in a day, for traffic-control days. */
     productionSyPerDay: z.number().positive().max(200_000),
     costItems: z.array(CostItemSchema).max(20),
@@ -137,7 +157,7 @@ export type TreatmentInput = z.infer<typeof TreatmentInputSchema>;
 export const TreatmentSchema = z.object({
   id: z.string().max(64),
   name: z.string().max(80),
-  category: z.enum(['preservation', 'rehabilitation', 'reconstruction']),
+  category: TreatmentCategorySchema,
   kind: TreatmentKindSchema,
   mixId: z.string().max(64).nullable(),
   defaultThicknessIn: z.number().nullable(),
@@ -153,19 +173,19 @@ export const TreatmentSchema = z.object({
 export type Treatment = z.infer<typeof TreatmentSchema>;
 
 export const EconomicsSchema = z.object({
-  // Real rates as published (OMB Circular A-94's real rates have run from slightly below zero
-  // to a few per cent); −99 % or 90 % is a typing slip that would wreck every present value.
-  discountRate: z
-    .number()
-    .min(-0.05, 'is below −5 %; give a real discount rate as a fraction (0.02 for 2 %)')
-    .max(0.2, 'is above 20 %; give a real discount rate as a fraction (0.02 for 2 %)'),
-  discountRateSource: z.string().trim().max(300).nullable(),
-  analysisPeriodYears: z.number().int().min(1).max(100),
-  baseYear: z.number().int().min(1990).max(2100),
-  mobilizationPerJob: z.number().min(0).max(1_000_000),
-  trafficControlPerDay: z.number().min(0).max(1_000_000),
-  engineeringFraction: z.number().min(0).max(1),
-  contingencyFraction: z.number().min(0).max(1),
+  // A fraction (0.02 is 2 %). Real rates as published (OMB Circular A-94's real rates have run from
+  // slightly below zero to a few per cent); −99 % or 90 % is a typing slip that would wreck every present value.
+  discountRate: num().min(-0.05, 'must be at least −5 % (a real rate)').max(0.2, 'must be at most 20 % (a real rate)'),
+  discountRateSource: z.string().trim().max(300, 'must be at most 300 characters').nullable(),
+  analysisPeriodYears: num()
+    .int('must be a whole number of years')
+    .min(1, 'must be 1 to 100 years')
+    .max(100, 'must be 1 to 100 years'),
+  baseYear: num().int('must be a year').min(1990, 'must be 1990 to 2100').max(2100, 'must be 1990 to 2100'),
+  mobilizationPerJob: num().min(0, 'cannot be negative').max(1_000_000, 'must be $1,000,000 or less'),
+  trafficControlPerDay: num().min(0, 'cannot be negative').max(1_000_000, 'must be $1,000,000 or less'),
+  engineeringFraction: num().min(0, 'cannot be negative').max(1, 'must be 100 % or less'),
+  contingencyFraction: num().min(0, 'cannot be negative').max(1, 'must be 100 % or less'),
 });
 export type Economics = z.infer<typeof EconomicsSchema>;
 
@@ -177,21 +197,40 @@ export const CatalogSchema = z.object({
 });
 export type Catalog = z.infer<typeof CatalogSchema>;
 
-export const PriceHistorySchema = z.object({
-  items: z.array(
-    z.object({
-      entity: z.string(),
-      entityId: z.string(),
-      name: z.string(),
-      field: z.string(),
-      before: z.unknown(),
-      after: z.unknown(),
-      effectiveDate: z.string(),
-      at: z.string(),
-      userName: z.string().nullable(),
-    }),
-  ),
+// The fields whose change is a change of price or life, kept in the price history.
+export const MIX_PRICE_FIELDS = ['pricePerTon', 'spreadRateLbPerSyIn', 'refLifeYears'] as const;
+export const TREATMENT_PRICE_FIELDS = ['costItems', 'lifeYears'] as const;
+export const PRICE_FIELDS = [...MIX_PRICE_FIELDS, ...TREATMENT_PRICE_FIELDS] as const;
+export type PriceField = (typeof PRICE_FIELDS)[number];
+export const PRICE_FIELD_LABELS: Record<PriceField, string> = {
+  pricePerTon: 'Price ($/ton)',
+  spreadRateLbPerSyIn: 'Spread rate (lb/SY-in)',
+  refLifeYears: 'Life at the reference lift (yr)',
+  costItems: 'Cost items',
+  lifeYears: 'Life (yr)',
+};
+export const PRICE_ENTITIES = ['mix', 'treatment'] as const;
+
+/** A price field's value: a number, the cost items, or null (no value before, or life by mix and lift). */
+export const PriceValueSchema = z.union([z.number(), z.array(CostItemSchema)]).nullable();
+export type PriceValue = z.infer<typeof PriceValueSchema>;
+
+export const PriceChangeSchema = z.object({
+  entity: z.enum(PRICE_ENTITIES),
+  entityId: z.string(),
+  name: z.string(),
+  field: z.enum(PRICE_FIELDS),
+  before: PriceValueSchema,
+  after: PriceValueSchema,
+  effectiveDate: z.string(),
+  /** When the change was saved (UTC). */
+  at: z.string(),
+  userName: z.string().nullable(),
 });
+export type PriceChange = z.infer<typeof PriceChangeSchema>;
+
+export const PriceHistorySchema = z.object({ items: z.array(PriceChangeSchema) });
+export type PriceHistory = z.infer<typeof PriceHistorySchema>;
 
 export const CatalogItemParamsSchema = z.object({
   agencyId: z.string().min(1).max(64),

@@ -124,28 +124,7 @@ export const OptimizeResultSchema = z.object({
   status: z.string(),
 });
 
-// ---- Forecast ---------------------------------------------------------------
+// ---- Forecast (moved to ./forecast; these names stay for the plan module) ----
 
-export const CurveSchema = z.object({
-  p0: z.number().min(0).max(100),
-  a: z.number().positive().max(100),
-  b: z.number().min(1).max(3),
-});
-export const CurveOverrideBodySchema = z.object({
-  familyKey: z.string().min(3).max(80),
-  curve: CurveSchema.nullable(),
-});
-
-export type FamilyView = {
-  key: string;
-  surface: string;
-  classGroup: string;
-  treatmentGroup: string;
-  segments: number;
-  n: number;
-  curve: z.infer<typeof CurveSchema>;
-  source: 'fitted' | 'default' | 'edited';
-  rmse: number | null;
-  fitted: { curve: z.infer<typeof CurveSchema>; rmse: number } | null;
-  points: { age: number; pci: number }[];
-};
+export { CurveOverrideBodySchema, CurveSchema } from './forecast';
+export type { Family as FamilyView } from './forecast';

@@ -1,4 +1,4 @@
-// Deterioration curves (COMPUTATION.md §4): PCI as a function of age since the
+// Deterioration curves (docs/COMPUTATION.md, Deterioration curves): PCI as a function of age since the
 // last treatment, PCI(t) = P0 − a·t^b clamped to 0–100, with P0 ≤ 100, a > 0
 // and b ≥ 1 so that the curve never rises and stays in the PCI range. The
 // parameters are fitted by least squares to the agency's own surveys.

@@ -1,10 +1,11 @@
 // Pavement families: surface × functional-class group × treatment group.
+import type { ClassGroup, TreatmentGroup } from '../../schemas/forecast';
 import type { Curve } from './curve';
 
-export const classGroup = (cls: string) =>
+export const classGroup = (cls: string): ClassGroup =>
   /arterial|interstate|freeway/.test(cls) ? 'arterial' : /collector/.test(cls) ? 'collector' : 'local';
 
-export function treatmentGroup(lastTreatment: string | null) {
+export function treatmentGroup(lastTreatment: string | null): TreatmentGroup {
   const t = (lastTreatment ?? '').toLowerCase();
   if (/reconstruct|new construction/.test(t)) return 'reconstruction';
   if (/overlay|mill|inlay|resurfac/.test(t)) return 'overlay';

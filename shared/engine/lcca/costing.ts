@@ -1,6 +1,6 @@
 // From catalog items (a treatment, its mix and lift) to cost rates per SY,
 // per lane-mile and per job, with every line kept so a user can see where a
-// number comes from (COMPUTATION.md §1).
+// number comes from (docs/COMPUTATION.md, Cost of one application).
 import type { Economics, Mix, Treatment } from '../../schemas/catalog';
 import { LB_PER_TON } from '../quantities';
 import type { CostRates } from './schedule';

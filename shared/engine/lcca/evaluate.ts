@@ -1,4 +1,4 @@
-// Life-cycle cost of one alternative (COMPUTATION.md §2), following the FHWA
+// Life-cycle cost of one alternative (docs/COMPUTATION.md, Schedule), following the FHWA
 // LCCA method (Interim Technical Bulletin FHWA-SA-98-079, 1998; LCCA Primer, 2002):
 // present value of each activity's cost, less the present value of the
 // remaining service life of the last activity at the end of the analysis

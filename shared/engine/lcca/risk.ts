@@ -1,6 +1,6 @@
 // Sensitivity (one input at a time), break-even discount rate, and Monte Carlo
 // over a model that maps named input values to one net present value per
-// alternative (COMPUTATION.md §3).
+// alternative (docs/COMPUTATION.md, Risk).
 import { type Distribution, rng, sample } from '../random';
 
 export type ModelInput = {

@@ -1,6 +1,6 @@
 // From an inventory, its curves and the catalog's treatments to candidate
 // work (with benefit and cost), and from chosen work back to what the network
-// looks like year by year (COMPUTATION.md §4–5).
+// looks like year by year (docs/COMPUTATION.md, Deterioration curves and the budget plan).
 import { CONDITION_BANDS, conditionBand } from '../../condition';
 import { ageAt, type Curve, pciAt } from '../forecast/curve';
 import type { Instance, OptSegment } from './optimize';

@@ -1,4 +1,4 @@
-// Choosing work under yearly budgets (COMPUTATION.md §5): each segment takes
+// Choosing work under yearly budgets (docs/COMPUTATION.md, the budget plan): each segment takes
 // at most one option (a treatment path, spending in one or several years) or
 // nothing; maximise total benefit so that no year's spending exceeds its
 // budget. A multiple-choice knapsack with one capacity per year.

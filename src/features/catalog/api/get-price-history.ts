@@ -1,13 +1,12 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { z } from 'zod';
-import type { PriceHistorySchema } from '@shared/schemas/catalog';
+import type { PriceHistory } from '@shared/schemas/catalog';
 import { api } from '@/lib/api-client';
+import { catalogKeys, catalogPath } from './keys';
+
+export const getPriceHistory = (agencyId: string) => api<PriceHistory>(`${catalogPath(agencyId)}/price-history`);
 
 export const priceHistoryQueryOptions = (agencyId: string) =>
-  queryOptions({
-    queryKey: ['catalog', agencyId, 'history'],
-    queryFn: () => api<z.infer<typeof PriceHistorySchema>>(`/api/agencies/${agencyId}/catalog/price-history`),
-  });
+  queryOptions({ queryKey: catalogKeys.priceHistory(agencyId), queryFn: () => getPriceHistory(agencyId) });
 
 export const usePriceHistory = (agencyId: string, enabled: boolean) =>
   useQuery({ ...priceHistoryQueryOptions(agencyId), enabled });
