@@ -20,6 +20,8 @@ import { planRoutes } from './plans/plans.routes';
 import { auditRoutes } from './audit-log/audit.routes';
 import { agencyRoutes } from './agencies/agencies.routes';
 import { memberRoutes } from './members/members.routes';
+import { membershipFor } from './agencies/agencies.repo';
+import { runRoutes } from './runs/runs.routes';
 import { buildOpenApiDocument } from './openapi/openapi';
 import { segmentRoutes } from './segments/segments.routes';
 
@@ -86,8 +88,9 @@ export function createApp(deps: Deps) {
   planRoutes(routes, deps);
   auditRoutes(routes, deps);
   agencyRoutes(routes, deps);
+  runRoutes(routes, deps);
   const router = express.Router();
-  mountApiRoutes(router, routes, deps);
+  mountApiRoutes(router, routes, deps, (userId, agencyId) => membershipFor(deps.db, userId, agencyId));
   app.use(router);
 
   const openapi = buildOpenApiDocument(routes.list);

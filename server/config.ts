@@ -1,3 +1,4 @@
+import os from 'node:os';
 import path from 'node:path';
 import { z } from 'zod';
 
@@ -16,7 +17,13 @@ const EnvSchema = z.object({
   TRUST_PROXY: z.enum(['0', '1']).default('0'),
   SIGNIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   SEED_DEMO: z.enum(['0', '1']).default('1'),
+  WORKER_THREADS: z.coerce.number().int().min(1).max(64).optional(),
+  WORKER_TASKS_PER_AGENCY: z.coerce.number().int().min(1).max(64).default(2),
+  WORKER_TASKS_PER_USER: z.coerce.number().int().min(1).max(64).default(2),
 });
+
+/** One worker thread per core, at least two: heavy work runs there, never on the request thread. */
+export const defaultWorkerThreads = () => Math.max(2, os.availableParallelism());
 
 export type AppConfig = {
   env: 'development' | 'production' | 'test';
@@ -33,6 +40,8 @@ export type AppConfig = {
   trustProxy: boolean;
   signInRateLimit: number;
   seedDemo: boolean;
+  /** Heavy tasks at once: in all (the pool's threads), per agency and per user. */
+  workers: { threads: number; perAgency: number; perUser: number };
 };
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
@@ -60,5 +69,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     trustProxy: e.TRUST_PROXY === '1',
     signInRateLimit: e.SIGNIN_RATE_LIMIT,
     seedDemo: e.SEED_DEMO === '1',
+    workers: {
+      threads: e.WORKER_THREADS ?? defaultWorkerThreads(),
+      perAgency: e.WORKER_TASKS_PER_AGENCY,
+      perUser: e.WORKER_TASKS_PER_USER,
+    },
   };
 }

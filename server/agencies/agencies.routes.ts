@@ -8,7 +8,8 @@ import type { ApiRoutes } from '../http/api';
 import multer from 'multer';
 import { HttpError } from '../http/errors';
 import { agencyById } from './agencies.repo';
-import { exportAgency, restoreAgency } from './agency-archive';
+import { restoreAgency } from './agency-archive';
+import { agencyExportTask } from './agencies.tasks';
 
 const archiveUpload = multer({
   storage: multer.memoryStorage(),
@@ -64,8 +65,13 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
     access: { kind: 'agency', role: 'admin' },
     params: AgencyParamsSchema,
     responseDescription: 'application/zip',
+    heavy: true,
     handler: async ({ agency, user, res }) => {
-      const out = await exportAgency(deps, agency!.id);
+      const out = await deps.pool.run(
+        agencyExportTask,
+        { agencyId: agency!.id },
+        { userId: user!.id, agencyId: agency!.id },
+      );
       deps.db.transaction((tx) =>
         recordAudit(tx, {
           agencyId: agency!.id,
@@ -73,15 +79,15 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
           action: 'agency.export',
           entity: 'agency',
           entityId: agency!.id,
-          detail: out.manifest.counts,
+          detail: out.counts,
         }),
       );
       res.setHeader('Content-Type', 'application/zip');
       res.setHeader(
         'Content-Disposition',
-        `attachment; filename="${out.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-export-${out.manifest.exportedAt.slice(0, 10)}.zip"`,
+        `attachment; filename="${out.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-export-${out.exportedAt.slice(0, 10)}.zip"`,
       );
-      res.send(out.buffer);
+      res.send(Buffer.from(out.buffer));
     },
   });
   api.add({

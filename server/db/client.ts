@@ -24,3 +24,10 @@ export function openDb(file: string) {
   migrate(db, { migrationsFolder });
   return { db, sqlite };
 }
+
+/** A read-only connection to an existing, migrated file: what worker threads read with. */
+export function openReadOnlyDb(file: string): Db {
+  const sqlite = new Database(file, { readonly: true, fileMustExist: true });
+  sqlite.pragma('busy_timeout = 5000');
+  return drizzle(sqlite, { schema, casing: 'snake_case' });
+}

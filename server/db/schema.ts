@@ -3,6 +3,7 @@
 // (the `casing` option in drizzle.config.ts and server/db/client.ts).
 import { sql } from 'drizzle-orm';
 import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { RUN_KINDS, RUN_STATUSES, type RunError } from '../../shared/schemas/runs';
 
 const createdAt = () => text().notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
 
@@ -327,6 +328,7 @@ export const plans = sqliteTable(
   (t) => [index('plans_agency').on(t.agencyId)],
 );
 
+// Replaced by `runs`; kept (not dropped) this round. Its rows are copied into `runs` at start.
 export const planRuns = sqliteTable(
   'plan_runs',
   {
@@ -343,4 +345,30 @@ export const planRuns = sqliteTable(
     endedAt: text(),
   },
   (t) => [index('plan_runs_plan').on(t.planId, t.startedAt)],
+);
+
+// Every run (plan, budget search, comparison): who started it, on what, the
+// snapshot of its input, and its outcome. Input and result are JSON text written
+// and read as text, so the request thread never parses a large snapshot.
+export const runs = sqliteTable(
+  'runs',
+  {
+    id: text().primaryKey(),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    userId: text().references(() => users.id, { onDelete: 'set null' }),
+    kind: text({ enum: RUN_KINDS }).notNull(),
+    /** The plan (plan, budget-search) or saved comparison the run belongs to. */
+    subjectId: text(),
+    status: text({ enum: RUN_STATUSES }).notNull(),
+    progress: real().notNull().default(0),
+    input: text().notNull(),
+    result: text(),
+    error: text({ mode: 'json' }).$type<RunError>(),
+    createdAt: createdAt(),
+    startedAt: text(),
+    endedAt: text(),
+  },
+  (t) => [index('runs_subject').on(t.agencyId, t.kind, t.subjectId, t.createdAt), index('runs_status').on(t.status)],
 );

@@ -5,7 +5,6 @@ import type { NextFunction, Request, RequestHandler, Response, Router } from 'ex
 import type { z } from 'zod';
 import { ROLE_RANK, type Role } from '../../shared/schemas/common';
 import type { Deps } from '../deps';
-import { membershipFor } from '../agencies/agencies.repo';
 import { forbidden, HttpError, notFound, unauthorized, zodIssues } from './errors';
 
 export type Access = { kind: 'public' } | { kind: 'signed-in' } | { kind: 'agency'; role: Role };
@@ -13,6 +12,9 @@ export type Access = { kind: 'public' } | { kind: 'signed-in' } | { kind: 'agenc
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
 export type SessionUser = { id: string; email: string; name: string };
+
+/** The caller's role in an agency, or null when not a member: handed in by the app, so http/ imports no module. */
+export type MembershipLookup = (userId: string, agencyId: string) => Role | null;
 
 export type Ctx<P, Q, B> = {
   params: P;
@@ -46,6 +48,8 @@ export type RouteDef<
   response?: AnyZod;
   responseDescription?: string;
   status?: number;
+  /** Runs heavy work in the worker pool: may answer 429 with Retry-After (documented). */
+  heavy?: boolean;
   /** Extra middleware run before validation (uploads, rate limits). */
   before?: RequestHandler[];
   /** Return a value to send it as JSON; return undefined when the handler answered itself. */
@@ -87,13 +91,13 @@ function parsePart(schema: AnyZod | undefined, value: unknown, where: string) {
   return result.data;
 }
 
-function authorize(def: RouteDef, req: Request, deps: Deps) {
+function authorize(def: RouteDef, req: Request, roleIn: MembershipLookup) {
   const user = (req.user as SessionUser | undefined) ?? null;
   let agency: Ctx<unknown, unknown, unknown>['agency'] = null;
   if (def.access.kind !== 'public' && !user) throw unauthorized();
   if (def.access.kind === 'agency' && user) {
     const agencyId = String(req.params.agencyId);
-    const role = membershipFor(deps.db, user.id, agencyId);
+    const role = roleIn(user.id, agencyId);
     // Not a member: answer as if the agency did not exist.
     if (!role) throw notFound('No such agency');
     if (ROLE_RANK[role] < ROLE_RANK[def.access.role]) throw forbidden();
@@ -102,14 +106,14 @@ function authorize(def: RouteDef, req: Request, deps: Deps) {
   return { user, agency };
 }
 
-export function mountApiRoutes(router: Router, routes: ApiRoutes, deps: Deps) {
+export function mountApiRoutes(router: Router, routes: ApiRoutes, deps: Deps, roleIn: MembershipLookup) {
   // Literal path parts win over parameters (…/segments/export before …/segments/:id).
   const paramCount = (p: string) => (p.match(/:/g) ?? []).length;
   const ordered = [...routes.list].sort((a, b) => paramCount(a.path) - paramCount(b.path));
   for (const def of ordered) {
     const run = async (req: Request, res: Response, next: NextFunction) => {
       try {
-        const { user, agency } = authorize(def, req, deps);
+        const { user, agency } = authorize(def, req, roleIn);
         const params = parsePart(def.params, req.params, 'params');
         const query = parsePart(def.query, req.query, 'query');
         if (def.body && !req.is('application/json') && !req.is('multipart/form-data')) {
@@ -129,7 +133,7 @@ export function mountApiRoutes(router: Router, routes: ApiRoutes, deps: Deps) {
     // Access is checked before any upload middleware touches the body.
     const guard: RequestHandler = (req, _res, next) => {
       try {
-        authorize(def, req, deps);
+        authorize(def, req, roleIn);
         next();
       } catch (err) {
         next(err);

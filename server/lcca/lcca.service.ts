@@ -11,7 +11,8 @@ import * as catalogRepo from '../catalog/catalog.repo';
 import type { Deps } from '../deps';
 import { analyses, segments, users } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
-import type { RunState } from '../jobs/job-runner';
+import * as runs from '../runs/runs.service';
+import { comparisonSnapshotTask, comparisonTask } from './lcca.tasks';
 
 export const MAX_MC_ITERATIONS = 20_000;
 
@@ -38,7 +39,7 @@ export function evaluate(body: EvaluateBody) {
 }
 
 /** Recomputes the group from the agency's own segments; a typed-in section stands as given. */
-function resolveGroup(deps: Deps, agencyId: string, g: Group): Group {
+function resolveGroup(deps: Pick<Deps, 'db'>, agencyId: string, g: Group): Group {
   if (g.segmentIds.length === 0) return g;
   const ids = [...new Set(g.segmentIds)];
   const rows = [] as (typeof segments.$inferSelect)[];
@@ -78,7 +79,7 @@ function resolveGroup(deps: Deps, agencyId: string, g: Group): Group {
 }
 
 /** Builds the full, self-contained study input: the catalog items and economics as they are now. */
-export function studyInput(deps: Deps, agencyId: string, req: StudyRequest): StudyInput {
+export function studyInput(deps: Pick<Deps, 'db'>, agencyId: string, req: StudyRequest): StudyInput {
   const econ = { ...catalogRepo.economicsOf(deps.db, agencyId), ...(req.economics ?? {}) };
   const input: StudyInput = {
     economics: econ,
@@ -110,39 +111,45 @@ function checkStudy(input: StudyInput) {
   }
 }
 
-const STUDY_TASK = new URL('../jobs/study-task.ts', import.meta.url);
+/** Snapshot (catalog, economics, the group's quantities) and the cheap check in a worker, then the run: 202. */
+export function startComparison(deps: Deps, agencyId: string, userId: string, req: StudyRequest) {
+  return runs.snapshotThenRun(
+    deps,
+    { agencyId, userId },
+    { task: comparisonSnapshotTask, payload: { agencyId, request: req } },
+    (snap) => ({ kind: 'comparison', subjectId: null, input: snap.input, task: comparisonTask }),
+  );
+}
 
-export function startRun(deps: Deps, agencyId: string, input: StudyInput, analysisId: string | null) {
-  return deps.jobs.start(agencyId, 'study', STUDY_TASK, input, (r: RunState) => {
-    if (analysisId && r.status === 'done')
+/** A saved comparison run again from its own snapshot; the saved result is replaced when it finishes. */
+export function rerunAnalysis(deps: Deps, agencyId: string, userId: string, analysisId: string) {
+  const row = deps.db
+    .select({ input: analyses.input })
+    .from(analyses)
+    .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, analysisId)))
+    .get();
+  if (!row) throw notFound('No such analysis');
+  const slot = runs.reserve(deps, { agencyId, userId });
+  return runs.startRun(deps, slot, {
+    kind: 'comparison',
+    subjectId: analysisId,
+    input: row.input,
+    task: comparisonTask,
+    onDone: (result) =>
       deps.db
         .update(analyses)
-        .set({ result: JSON.stringify(r.result), updatedAt: new Date().toISOString() })
-        .where(eq(analyses.id, analysisId))
-        .run();
+        .set({ result, updatedAt: new Date().toISOString() })
+        .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, analysisId)))
+        .run(),
   });
 }
 
-export function saveAnalysis(
-  deps: Deps,
-  agencyId: string,
-  userId: string,
-  name: string,
-  input: StudyInput,
-  result: unknown | null,
-) {
+/** Saves a finished comparison run with exactly the input snapshot it ran on. */
+export function saveAnalysis(deps: Deps, agencyId: string, userId: string, name: string, runId: string) {
+  const { input, result } = runs.finishedTexts(deps, agencyId, runId, 'comparison');
   const id = newId();
   deps.db.transaction((tx) => {
-    tx.insert(analyses)
-      .values({
-        id,
-        agencyId,
-        name,
-        createdBy: userId,
-        input: JSON.stringify(input),
-        result: result ? JSON.stringify(result) : null,
-      })
-      .run();
+    tx.insert(analyses).values({ id, agencyId, name, createdBy: userId, input, result }).run();
     recordAudit(tx, { agencyId, userId, action: 'analysis.save', entity: 'analysis', entityId: id, detail: { name } });
   });
   return { id };
@@ -195,6 +202,7 @@ export function deleteAnalysis(deps: Deps, agencyId: string, userId: string, id:
       .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, id)))
       .run();
     if (res.changes !== 1) throw notFound('No such analysis');
+    runs.deleteForSubject(tx, agencyId, id);
     recordAudit(tx, { agencyId, userId, action: 'analysis.delete', entity: 'analysis', entityId: id });
   });
 }

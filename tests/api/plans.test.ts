@@ -24,7 +24,7 @@ async function runToEnd(planId: string) {
   const start = await eng.post(`${base}/${planId}/run`);
   expect(start.status).toBe(202);
   for (let i = 0; i < 300; i++) {
-    const r = await eng.get(`${base}/${planId}/runs/${start.body.id}`);
+    const r = await eng.get(`/api/agencies/${t.ids.brannock}/runs/${start.body.id}`);
     if (r.body.status !== 'running') return r.body;
     await new Promise((res) => setTimeout(res, 100));
   }
