@@ -10,7 +10,7 @@ import { Select, TextInput } from '@/components/ui/field';
 import { Card, EmptyState, PageHeader } from '@/components/ui/page';
 import { useCatalog } from '@/features/catalog/api/get-catalog';
 import { useAnalyses, useAnalysis, useRerunAnalysis, useSaveAnalysis } from '@/features/compare/api/analyses';
-import { useCancelStudy, useStartStudy, useStudyRun } from '@/features/compare/api/study-runs';
+import { useStartStudy, useStudyRun } from '@/features/compare/api/study-runs';
 import { AlternativeCard } from '@/features/compare/components/alternative-card';
 import { StudyResults } from '@/features/compare/components/study-results';
 import { useSegments } from '@/features/segments/api/get-segments';
@@ -101,7 +101,6 @@ export function ComparePage() {
   const saved = useAnalysis(agencyId, analysisId);
   const list = useAnalyses(agencyId);
   const start = useStartStudy(agencyId);
-  const cancel = useCancelStudy(agencyId);
   const save = useSaveAnalysis(agencyId);
   const rerun = useRerunAnalysis(agencyId);
   const run = useStudyRun(agencyId, runId);
@@ -306,7 +305,7 @@ export function ComparePage() {
                 >
                   <div className="h-full bg-accent" style={{ width: `${Math.round(run.data.progress * 100)}%` }} />
                 </div>
-                <Button variant="ghost" onClick={() => cancel.mutate(run.data!.id)}>
+                <Button variant="ghost" onClick={run.cancel}>
                   Cancel
                 </Button>
               </>
