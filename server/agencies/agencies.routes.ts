@@ -66,11 +66,12 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
     params: AgencyParamsSchema,
     responseDescription: 'application/zip',
     heavy: true,
-    handler: async ({ agency, user, res }) => {
+    handler: async ({ agency, user, res, signal }) => {
       const out = await deps.pool.run(
         agencyExportTask,
         { agencyId: agency!.id },
         { userId: user!.id, agencyId: agency!.id },
+        { signal },
       );
       deps.db.transaction((tx) =>
         recordAudit(tx, {

@@ -26,6 +26,8 @@ export type Ctx<P, Q, B> = {
   deps: Deps;
   req: Request;
   res: Response;
+  /** Aborted when the client goes away before the answer: pass it to awaited heavy tasks. */
+  signal: AbortSignal;
 };
 
 type AnyZod = z.ZodType;
@@ -112,6 +114,10 @@ export function mountApiRoutes(router: Router, routes: ApiRoutes, deps: Deps, ro
   const ordered = [...routes.list].sort((a, b) => paramCount(a.path) - paramCount(b.path));
   for (const def of ordered) {
     const run = async (req: Request, res: Response, next: NextFunction) => {
+      const gone = new AbortController();
+      res.once('close', () => {
+        if (!res.writableFinished) gone.abort();
+      });
       try {
         const { user, agency } = authorize(def, req, roleIn);
         const params = parsePart(def.params, req.params, 'params');
@@ -120,13 +126,16 @@ export function mountApiRoutes(router: Router, routes: ApiRoutes, deps: Deps, ro
           throw new HttpError(415, 'unsupported_media_type', 'Send the request body as application/json');
         }
         const body = parsePart(def.body, req.body, 'body');
-        const result = await def.handler({ params, query, body, user, agency, deps, req, res } as Ctx<
+        const signal = gone.signal;
+        const result = await def.handler({ params, query, body, user, agency, deps, req, res, signal } as Ctx<
           never,
           never,
           never
         >);
         if (result !== undefined && !res.headersSent) res.status(def.status ?? 200).json(result);
       } catch (err) {
+        // The client went away (its heavy task was stopped for that): nobody is left to answer.
+        if (gone.signal.aborted) return;
         next(err);
       }
     };

@@ -33,7 +33,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     body: OptimizeBodySchema,
     response: OptimizeResultSchema,
     heavy: true,
-    handler: async ({ body, user }) => {
+    handler: async ({ body, user, signal }) => {
       const options = body.segments.reduce((n, s) => n + s.options.length, 0);
       if (body.method === 'exact' && options > MAX_EXACT_STATELESS)
         throw new HttpError(
@@ -42,7 +42,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
           `Invalid request: method — the exact method takes at most ${MAX_EXACT_STATELESS} options here; use fast`,
           [{ path: 'body.method', message: 'too many options for exact' }],
         );
-      return deps.pool.run(optimizeTask, body, { userId: user!.id, agencyId: null });
+      return deps.pool.run(optimizeTask, body, { userId: user!.id, agencyId: null }, { signal });
     },
   });
 
@@ -163,7 +163,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     query: z.object({ format: z.enum(['csv', 'xlsx']).default('csv') }),
     responseDescription: 'text/csv or an XLSX workbook',
     heavy: true,
-    handler: async ({ agency, user, params, query, res }) => {
+    handler: async ({ agency, user, params, query, res, signal }) => {
       const plan = service.getPlan(deps, agency!.id, params.planId, agency!.role);
       const latest = service.latestRun(deps, agency!.id, params.planId, agency!.role);
       if (!latest) throw new HttpError(409, 'not_run', 'Run the plan first');
@@ -176,6 +176,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
         workListTask,
         { agencyId: agency!.id, runId: latest.runId, title: plan.name, format: query.format },
         { userId: user!.id, agencyId: agency!.id },
+        { signal },
       );
       if (query.format === 'xlsx') {
         res.setHeader('Content-Type', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
@@ -198,7 +199,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     params: PlanParamsSchema,
     responseDescription: 'application/pdf',
     heavy: true,
-    handler: async ({ agency, params, res, user }) => {
+    handler: async ({ agency, params, res, user, signal }) => {
       const plan = service.getPlan(deps, agency!.id, params.planId, agency!.role);
       const latest = service.latestRun(deps, agency!.id, params.planId, agency!.role);
       if (!latest) throw new HttpError(409, 'not_run', 'Run the plan first');
@@ -206,6 +207,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
         briefTask,
         { agencyId: agency!.id, planId: params.planId, runId: latest.runId, author: user!.name },
         { userId: user!.id, agencyId: agency!.id },
+        { signal },
       );
       res.setHeader('Content-Type', 'application/pdf');
       res.setHeader(

@@ -13,7 +13,12 @@ import type { TaskAnswer, TaskMessage } from './task-runner';
 
 export type PoolLimits = { threads: number; perAgency: number; perUser: number };
 export type TaskOwner = { userId: string; agencyId: string | null };
-export type RunOptions = { onProgress?: (fraction: number) => void; transfer?: ArrayBuffer[] };
+export type RunOptions = {
+  onProgress?: (fraction: number) => void;
+  transfer?: ArrayBuffer[];
+  /** Aborting it stops the task (e.g. the client went away before the answer). */
+  signal?: AbortSignal;
+};
 
 /** What a 429 asks the client to wait, in seconds: heavy tasks take seconds to minutes. */
 export const RETRY_AFTER_SECONDS = 10;
@@ -28,6 +33,9 @@ export class TaskFailedError extends Error {
     super(message);
   }
 }
+
+/** The pool was closed (the server is stopping) while the task ran: nobody cancelled it. */
+export class PoolClosedError extends Error {}
 
 function revive(f: TaskFailure): Error {
   if (f.status && f.status >= 400 && f.status < 500 && f.code)
@@ -61,6 +69,9 @@ export class Slot {
       opts.onProgress?.(f);
     });
     const message: TaskMessage = { href: task.href, payload, port: port2, databasePath: this.pool.databasePath };
+    const stop = () => this.cancel();
+    opts.signal?.addEventListener('abort', stop);
+    if (opts.signal?.aborted) this.cancel();
     try {
       const answer = (await this.pool.piscina.run(message, {
         transferList: [port2, ...(opts.transfer ?? [])],
@@ -69,11 +80,13 @@ export class Slot {
       if (!answer.ok) throw revive(answer.error);
       return answer.value as O;
     } catch (err) {
+      if (this.pool.closing) throw new PoolClosedError('the server is stopping');
       if (this.abort.signal.aborted) throw new TaskFailedError('cancelled');
       if (err instanceof HttpError || err instanceof TaskFailedError) throw err;
       // The worker itself died (out of memory, a crash in native code).
       throw new TaskFailedError(`the worker stopped unexpectedly (${(err as Error).message})`);
     } finally {
+      opts.signal?.removeEventListener('abort', stop);
       port1.close();
     }
   }
@@ -92,6 +105,7 @@ export class Slot {
 
 export class WorkerPool {
   readonly piscina: Piscina;
+  closing = false;
   private slots = new Set<Slot>();
 
   constructor(
@@ -110,17 +124,18 @@ export class WorkerPool {
 
   /** Takes a slot or throws 429 naming the cap that was hit. */
   reserve(owner: TaskOwner, key: string | null = null): Slot {
+    const tasks = (n: number) => `${n} heavy ${n === 1 ? 'task' : 'tasks'}`;
     const mine = [...this.slots].filter((s) => s.owner.userId === owner.userId).length;
     if (mine >= this.limits.perUser)
       throw tooBusy(
-        `You already have ${mine} heavy ${mine === 1 ? 'task' : 'tasks'} going (runs, exports or the brief), the most one person can run at once. Wait for one to finish or cancel a run, then try again.`,
+        `You already have ${tasks(mine)} going (runs, exports or the brief), the most one person can run at once. Wait for one to finish or cancel a run, then try again.`,
         RETRY_AFTER_SECONDS,
       );
     if (owner.agencyId) {
       const agency = [...this.slots].filter((s) => s.owner.agencyId === owner.agencyId).length;
       if (agency >= this.limits.perAgency)
         throw tooBusy(
-          `This agency already has ${agency} heavy tasks going, the most one agency can run at once. Wait for one to finish or cancel a run, then try again.`,
+          `This agency already has ${tasks(agency)} going, the most one agency can run at once. Wait for one to finish or cancel a run, then try again.`,
           RETRY_AFTER_SECONDS,
         );
     }
@@ -158,8 +173,9 @@ export class WorkerPool {
     this.slots.delete(slot);
   }
 
+  /** Stops every worker. Runs cut off here stay marked running; the next start marks them interrupted. */
   async close() {
-    for (const s of this.slots) s.cancel();
+    this.closing = true;
     await this.piscina.destroy();
   }
 }

@@ -8,7 +8,7 @@ import type { RunError, RunKind, RunView } from '../../shared/schemas/runs';
 import type { Db } from '../db/client';
 import type { Deps } from '../deps';
 import { HttpError, notFound } from '../http/errors';
-import { type Slot, TaskFailedError, type TaskOwner } from '../pool/pool';
+import { PoolClosedError, type Slot, TaskFailedError, type TaskOwner } from '../pool/pool';
 import type { TaskRef } from '../pool/task';
 import * as repo from './runs.repo';
 
@@ -82,6 +82,8 @@ export function startRun(deps: Deps, slot: Slot, spec: RunSpec): RunView {
         if (repo.finishRun(deps.db, id, { status: 'done', result })) spec.onDone?.(result);
       },
       (err) => {
+        // Stopping: the database closes next; the next start marks the run interrupted.
+        if (err instanceof PoolClosedError) return;
         repo.finishRun(
           deps.db,
           id,

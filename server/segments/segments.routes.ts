@@ -94,12 +94,13 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
     query: FilterQuerySchema.extend({ format: z.enum(['csv', 'xlsx']).default('csv') }),
     responseDescription: 'text/csv or an XLSX workbook',
     heavy: true,
-    handler: async ({ agency, user, query, res }) => {
+    handler: async ({ agency, user, query, res, signal }) => {
       const { format, ...filter } = query;
       const out = await deps.pool.run(
         segmentsExportTask,
         { agencyId: agency!.id, query: filter, format },
         { userId: user!.id, agencyId: agency!.id },
+        { signal },
       );
       const base = `${out.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-segments`;
       if (format === 'xlsx') {

@@ -10,14 +10,15 @@ import { DEMO_PASSWORD } from '../../server/auth/passwords';
 import { loadConfig, type AppConfig } from '../../server/config';
 import { createDeps } from '../../server/create-deps';
 import { agencies, caughtMail } from '../../server/db/schema';
-import { seedDemo } from '../../server/seed/seed';
+import { hasAnyAgency, seedDemo } from '../../server/seed/seed';
 
 export const APP_URL = 'http://localhost:3999';
 
 export type TestApp = Awaited<ReturnType<typeof createTestApp>>;
 
 /**
- * opts.databasePath reopens an existing file (a restart: no seed, ids looked up); the caller removes it.
+ * opts.databasePath: use this file and leave it in place (the caller removes it); opening it a second time
+ * is a restart — the demo is seeded only into an empty file.
  */
 export async function createTestApp(
   overrides: Partial<AppConfig> = {},
@@ -40,7 +41,7 @@ export async function createTestApp(
   const ids =
     opts.seed === false
       ? { brannock: '', marlow: '' }
-      : opts.databasePath
+      : hasAnyAgency(db)
         ? { brannock: byName('Brannock County'), marlow: byName('City of Marlow') }
         : await seedDemo(db);
   const { app, routes } = createApp(deps);
