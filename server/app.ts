@@ -9,7 +9,7 @@ import { authRoutes } from './auth/auth.routes';
 import { createPassport } from './auth/passport';
 import type { Deps } from './deps';
 import { cachingClient } from './db/statements';
-import { createApiRoutes, mountApiRoutes } from './http/api';
+import { createApiRoutes, mountApiRoutes, readsRawBody } from './http/api';
 import { errorHandler } from './http/errors';
 import { originCheck, securityHeaders } from './http/security';
 import { catalogRoutes } from './catalog/catalog.routes';
@@ -56,6 +56,8 @@ export function createApp(deps: Deps) {
     res.json({ ok: true });
   });
 
+  const routes = createApiRoutes();
+  const rawBody = readsRawBody(routes);
   const SqliteStore = sqliteStoreFactory(session);
   const pp = createPassport(deps);
   app.use(
@@ -73,11 +75,14 @@ export function createApp(deps: Deps) {
     }),
     pp.initialize(),
     pp.session(),
-    express.json({ limit: JSON_LIMIT }),
+    // Routes that hand a large body to a worker read its bytes instead (RouteDef.bodyInWorker).
+    express.json({
+      limit: JSON_LIMIT,
+      type: (req) => Boolean((req as express.Request).is('application/json')) && !rawBody(req as express.Request),
+    }),
     originCheck(() => deps.config.appUrl),
   );
 
-  const routes = createApiRoutes();
   authRoutes(routes, deps, pp);
   segmentRoutes(routes, deps);
   memberRoutes(routes, deps);
@@ -90,7 +95,10 @@ export function createApp(deps: Deps) {
   agencyRoutes(routes, deps);
   runRoutes(routes, deps);
   const router = express.Router();
-  mountApiRoutes(router, routes, deps, (userId, agencyId) => membershipFor(deps.db, userId, agencyId));
+  mountApiRoutes(router, routes, deps, {
+    roleIn: (userId, agencyId) => membershipFor(deps.db, userId, agencyId),
+    jsonLimit: JSON_LIMIT,
+  });
   app.use(router);
 
   const openapi = buildOpenApiDocument(routes.list);

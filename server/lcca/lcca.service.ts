@@ -112,44 +112,70 @@ function checkStudy(input: StudyInput) {
 }
 
 /** Snapshot (catalog, economics, the group's quantities) and the cheap check in a worker, then the run: 202. */
-export function startComparison(deps: Deps, agencyId: string, userId: string, req: StudyRequest) {
-  return runs.snapshotThenRun(
+export function startComparison(deps: Deps, agencyId: string, userId: string, request: StudyRequest) {
+  return runs.startRun(
     deps,
     { agencyId, userId },
-    { task: comparisonSnapshotTask, payload: { agencyId, request: req } },
-    (snap) => ({ kind: 'comparison', subjectId: null, input: snap.input, task: comparisonTask }),
+    {
+      kind: 'comparison',
+      subjectId: null,
+      snapshot: comparisonSnapshotTask,
+      payload: { agencyId, request },
+      work: comparisonTask,
+    },
   );
 }
 
-/** A saved comparison run again from its own snapshot; the saved result is replaced when it finishes. */
-export function rerunAnalysis(deps: Deps, agencyId: string, userId: string, analysisId: string) {
+/** A saved comparison's stored input snapshot, as text. */
+export function savedInput(deps: Pick<Deps, 'db'>, agencyId: string, analysisId: string) {
   const row = deps.db
     .select({ input: analyses.input })
     .from(analyses)
     .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, analysisId)))
     .get();
   if (!row) throw notFound('No such analysis');
-  const slot = runs.reserve(deps, { agencyId, userId });
-  return runs.startRun(deps, slot, {
-    kind: 'comparison',
-    subjectId: analysisId,
-    input: row.input,
-    task: comparisonTask,
-    onDone: (result) =>
-      deps.db
-        .update(analyses)
-        .set({ result, updatedAt: new Date().toISOString() })
-        .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, analysisId)))
-        .run(),
-  });
+  return row.input;
+}
+
+/** A saved comparison run again from its own snapshot; the saved result is replaced when it finishes. */
+export function rerunAnalysis(deps: Deps, agencyId: string, userId: string, analysisId: string) {
+  savedInput(deps, agencyId, analysisId);
+  return runs.startRun(
+    deps,
+    { agencyId, userId },
+    {
+      kind: 'comparison',
+      subjectId: analysisId,
+      snapshot: comparisonSnapshotTask,
+      payload: { agencyId, analysisId },
+      work: comparisonTask,
+      onDone: (runId) => {
+        const result = runs.resultOf(deps, agencyId, runId)!.toString('utf8');
+        deps.db
+          .update(analyses)
+          .set({ result, updatedAt: new Date().toISOString() })
+          .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, analysisId)))
+          .run();
+      },
+    },
+  );
 }
 
 /** Saves a finished comparison run with exactly the input snapshot it ran on. */
 export function saveAnalysis(deps: Deps, agencyId: string, userId: string, name: string, runId: string) {
-  const { input, result } = runs.finishedTexts(deps, agencyId, runId, 'comparison');
+  const run = runs.finishedRun(deps, agencyId, runId, 'comparison');
   const id = newId();
   deps.db.transaction((tx) => {
-    tx.insert(analyses).values({ id, agencyId, name, createdBy: userId, input, result }).run();
+    tx.insert(analyses)
+      .values({
+        id,
+        agencyId,
+        name,
+        createdBy: userId,
+        input: run.input.toString('utf8'),
+        result: run.result.toString('utf8'),
+      })
+      .run();
     recordAudit(tx, { agencyId, userId, action: 'analysis.save', entity: 'analysis', entityId: id, detail: { name } });
   });
   return { id };

@@ -16,8 +16,6 @@ import { HttpError } from '../http/errors';
 import * as service from './plans.service';
 import { briefTask, optimizeTask, workListTask } from './plans.tasks';
 
-export const MAX_EXACT_STATELESS = 20_000;
-
 export function planRoutes(api: ApiRoutes, deps: Deps) {
   const engineer = { kind: 'agency', role: 'engineer' } as const;
   const viewer = { kind: 'agency', role: 'viewer' } as const;
@@ -33,17 +31,9 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     body: OptimizeBodySchema,
     response: OptimizeResultSchema,
     heavy: true,
-    handler: async ({ body, user, signal }) => {
-      const options = body.segments.reduce((n, s) => n + s.options.length, 0);
-      if (body.method === 'exact' && options > MAX_EXACT_STATELESS)
-        throw new HttpError(
-          400,
-          'invalid_request',
-          `Invalid request: method — the exact method takes at most ${MAX_EXACT_STATELESS} options here; use fast`,
-          [{ path: 'body.method', message: 'too many options for exact' }],
-        );
-      return deps.pool.run(optimizeTask, body, { userId: user!.id, agencyId: null }, { signal });
-    },
+    bodyInWorker: true,
+    handler: ({ rawBody, user, signal }) =>
+      deps.pool.run(optimizeTask, rawBody!, { userId: user!.id, agencyId: null }, { signal, transfer: [rawBody!] }),
   });
 
   api.add({

@@ -222,28 +222,19 @@ export function planInput(deps: Deps, agencyId: string, planId: string): PlanInp
   return input;
 }
 
-/** Snapshot in a worker (its 4xx answers the request), then the run in the same pool slot: 202 with the run. */
-export async function startRun(deps: Deps, agencyId: string, userId: string, planId: string) {
+/** Snapshot and run in a worker (a 4xx of the snapshot answers the request): 202 with the run. */
+export function startRun(deps: Deps, agencyId: string, userId: string, planId: string) {
   planRow(deps, agencyId, planId, 'engineer');
-  return runs.snapshotThenRun(
+  return runs.startRun(
     deps,
     { agencyId, userId },
-    { task: planSnapshotTask, payload: { agencyId, planId } },
-    (snap, runId) => ({
+    {
       kind: 'plan',
       subjectId: planId,
-      input: snap.input,
-      task: planRunTask,
-      alsoInTx: (tx) =>
-        recordAudit(tx, {
-          agencyId,
-          userId,
-          action: 'plan.run',
-          entity: 'plan',
-          entityId: planId,
-          detail: { runId, method: snap.method },
-        }),
-    }),
+      snapshot: planSnapshotTask,
+      payload: { agencyId, planId, userId },
+      work: planRunTask,
+    },
   );
 }
 
@@ -254,17 +245,17 @@ export function latestRun(deps: Pick<Deps, 'db'>, agencyId: string, planId: stri
   return r ? { runId: r.id, endedAt: r.endedAt } : null;
 }
 
-/** `{ latest: { runId, endedAt, result } | null }` as JSON text, the stored result spliced in unparsed. */
+/** `{ latest: { runId, endedAt, result } | null }` as JSON bytes, the stored result copied in unparsed. */
 export function latestResultJson(deps: Deps, agencyId: string, planId: string, role: string) {
   const latest = latestRun(deps, agencyId, planId, role);
-  if (!latest) return '{"latest":null}';
-  const { result } = runs.finishedTexts(deps, agencyId, latest.runId, 'plan');
-  return `{"latest":{"runId":${JSON.stringify(latest.runId)},"endedAt":${JSON.stringify(latest.endedAt)},"result":${result}}}`;
+  if (!latest) return Buffer.from('{"latest":null}');
+  const inner = runs.withResult(latest, runs.resultOf(deps, agencyId, latest.runId));
+  return Buffer.concat([Buffer.from('{"latest":'), inner, Buffer.from('}')]);
 }
 
 /** The result of one finished plan run, parsed: for the brief and the work list, which are built in workers. */
 export function runResult(deps: Pick<Deps, 'db'>, agencyId: string, runId: string): PlanResult {
-  return JSON.parse(runs.finishedTexts(deps, agencyId, runId, 'plan').result) as PlanResult;
+  return JSON.parse(runs.finishedRun(deps, agencyId, runId, 'plan').result.toString('utf8')) as PlanResult;
 }
 
 export async function publish(
@@ -316,24 +307,18 @@ export async function publish(
 }
 
 /** The flat budget that holds a target PCI: a run of its own, on the plan's snapshot. */
-export async function startBudgetSearch(
-  deps: Deps,
-  agencyId: string,
-  userId: string,
-  planId: string,
-  targetPci: number,
-) {
+export function startBudgetSearch(deps: Deps, agencyId: string, userId: string, planId: string, targetPci: number) {
   planRow(deps, agencyId, planId, 'engineer');
-  return runs.snapshotThenRun(
+  return runs.startRun(
     deps,
     { agencyId, userId },
-    { task: planSnapshotTask, payload: { agencyId, planId } },
-    (snap) => ({
+    {
       kind: 'budget-search',
       subjectId: planId,
-      input: `{"targetPci":${JSON.stringify(targetPci)},"plan":${snap.input}}`,
-      task: budgetSearchTask,
-    }),
+      snapshot: planSnapshotTask,
+      payload: { agencyId, planId, userId, targetPci },
+      work: budgetSearchTask,
+    },
   );
 }
 

@@ -15,7 +15,8 @@ export type PoolLimits = { threads: number; perAgency: number; perUser: number }
 export type TaskOwner = { userId: string; agencyId: string | null };
 export type RunOptions = {
   onProgress?: (fraction: number) => void;
-  transfer?: ArrayBuffer[];
+  /** Bytes to move to the worker rather than copy (when they own their whole memory); unusable here afterwards. */
+  transfer?: Uint8Array[];
   /** Aborting it stops the task (e.g. the client went away before the answer). */
   signal?: AbortSignal;
 };
@@ -74,7 +75,12 @@ export class Slot {
     if (opts.signal?.aborted) this.cancel();
     try {
       const answer = (await this.pool.piscina.run(message, {
-        transferList: [port2, ...(opts.transfer ?? [])],
+        transferList: [
+          port2,
+          ...(opts.transfer ?? [])
+            .filter((b) => b.byteOffset === 0 && b.byteLength === b.buffer.byteLength)
+            .map((b) => b.buffer as ArrayBuffer),
+        ],
         signal: this.abort.signal,
       })) as TaskAnswer;
       if (!answer.ok) throw revive(answer.error);
@@ -119,6 +125,9 @@ export class WorkerPool {
       // A warm thread has tsx and the task modules loaded; keep it a while.
       idleTimeout: 60_000,
       atomics: 'disabled',
+      // Workers run at a lower priority than the request thread, so on a busy machine answers come
+      // first and heavy work takes the CPU left over (needs piscina's optional @napi-rs/nice; else no-op).
+      niceIncrement: 10,
     });
   }
 

@@ -2,20 +2,22 @@
 // through a MessagePort, a read-only database), and answers { ok, value } or
 // { ok: false, error } so that errors keep their status, code and field path.
 import type { MessagePort } from 'node:worker_threads';
-import { type Db, openReadOnlyDb } from '../db/client';
+import { type Db, openReadOnlyDb, openWriteDb } from '../db/client';
 import type { Task, TaskFailure } from './task';
 
 export type TaskMessage = { href: string; payload: unknown; port: MessagePort; databasePath: string };
 export type TaskAnswer = { ok: true; value: unknown } | { ok: false; error: TaskFailure };
 
-let readDb: { path: string; db: Db } | null = null;
+// One of each per worker thread, for the database the pool was made for.
+const connections = { read: null as { path: string; db: Db } | null, write: null as { path: string; db: Db } | null };
 
-function dbFor(path: string) {
-  if (readDb?.path !== path) {
-    readDb?.db.$client.close();
-    readDb = { path, db: openReadOnlyDb(path) };
-  }
-  return readDb.db;
+function connection(kind: 'read' | 'write', path: string) {
+  const c = connections[kind];
+  if (c?.path === path) return c.db;
+  c?.db.$client.close();
+  const db = kind === 'read' ? openReadOnlyDb(path) : openWriteDb(path);
+  connections[kind] = { path, db };
+  return db;
 }
 
 function failure(err: unknown): TaskFailure {
@@ -37,7 +39,8 @@ export async function runTask({ href, payload, port, databasePath }: TaskMessage
       last = f;
       port.postMessage(Math.max(0, Math.min(1, f)));
     },
-    db: () => dbFor(databasePath),
+    db: () => connection('read', databasePath),
+    writer: () => connection('write', databasePath),
   };
   try {
     const mod = (await import(href)) as { default: Task<unknown, unknown> };

@@ -8,6 +8,11 @@ export type TaskContext = {
   progress: (fraction: number) => void;
   /** A read-only connection to the app's database, opened once per worker thread. */
   db: () => Db;
+  /**
+   * A writable connection, opened once per worker thread. Keep each write transaction short (one row, or
+   * chunks): the request thread's own writes wait while it is open.
+   */
+  writer: () => Db;
 };
 
 export type Task<I, O> = (input: I, ctx: TaskContext) => O | Promise<O>;

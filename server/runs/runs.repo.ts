@@ -3,7 +3,7 @@ import type { RunError, RunKind, RunStatus } from '../../shared/schemas/runs';
 import type { Db } from '../db/client';
 import { runs } from '../db/schema';
 
-// Everything but the input and result texts, which can be megabytes.
+// Everything but the input and result bytes, which can be megabytes.
 const meta = {
   id: runs.id,
   agencyId: runs.agencyId,
@@ -35,7 +35,7 @@ const now = () => new Date().toISOString();
 
 export function insertRun(
   db: Pick<Db, 'insert'>,
-  r: { id: string; agencyId: string; userId: string; kind: RunKind; subjectId: string | null; input: string },
+  r: { id: string; agencyId: string; userId: string; kind: RunKind; subjectId: string | null; input: Buffer },
 ) {
   db.insert(runs)
     .values({ ...r, status: 'running', startedAt: now() })
@@ -50,12 +50,22 @@ export function runMeta(db: Db, agencyId: string, id: string): RunMeta | undefin
     .get();
 }
 
-export function runTexts(db: Db, agencyId: string, id: string) {
+export function runInput(db: Db, agencyId: string, id: string) {
   return db
-    .select({ input: runs.input, result: runs.result })
+    .select({ input: runs.input })
     .from(runs)
     .where(and(eq(runs.agencyId, agencyId), eq(runs.id, id)))
-    .get();
+    .get()?.input;
+}
+
+export function runResult(db: Db, agencyId: string, id: string) {
+  return (
+    db
+      .select({ result: runs.result })
+      .from(runs)
+      .where(and(eq(runs.agencyId, agencyId), eq(runs.id, id)))
+      .get()?.result ?? null
+  );
 }
 
 export function latestOf(db: Db, agencyId: string, kind: RunKind, subjectId: string, status?: RunStatus) {
@@ -75,11 +85,11 @@ export function latestOf(db: Db, agencyId: string, kind: RunKind, subjectId: str
     .get();
 }
 
-/** Ends a run that is still running; a run already cancelled stays cancelled. */
+/** Ends a run that is still running (a run already cancelled stays cancelled); 1 when it did. */
 export function finishRun(
   db: Db,
   id: string,
-  end: { status: Exclude<RunStatus, 'running'>; result?: string; error?: RunError },
+  end: { status: Exclude<RunStatus, 'running'>; result?: Buffer; error?: RunError },
 ) {
   return db
     .update(runs)
@@ -105,7 +115,8 @@ export function copyLegacyPlanRuns(db: Db) {
   return db.run(sql`
     INSERT OR IGNORE INTO runs (id, agency_id, user_id, kind, subject_id, status, progress, input, result, error, created_at, started_at, ended_at)
     SELECT p.id, p.agency_id, NULL, 'plan', p.plan_id, p.status, CASE p.status WHEN 'done' THEN 1 ELSE 0 END,
-           p.input, p.result, CASE WHEN p.error IS NULL THEN NULL ELSE json_object('message', p.error) END,
+           CAST(p.input AS BLOB), CAST(p.result AS BLOB),
+           CASE WHEN p.error IS NULL THEN NULL ELSE json_object('message', p.error) END,
            p.started_at, p.started_at, p.ended_at
     FROM plan_runs p JOIN agencies a ON a.id = p.agency_id`).changes;
 }

@@ -1,36 +1,36 @@
 // Runs: heavy work that outlives its request (plan runs, budget searches,
-// comparisons). A module starts one with the snapshot of its input; the run's
-// task turns that text into a result text in a worker; both are kept in the
-// runs table, so results survive a restart. Polling and cancelling are the same
-// for every kind (runs.routes.ts).
+// comparisons). A module starts one with two task files of its own — one that
+// builds the input snapshot, one that turns the snapshot's text into a result
+// text — and both run in the worker pool, in one slot, where the run's row and
+// its bytes are written (run-start.task.ts, run-work.task.ts). Results survive a
+// restart; polling and cancelling are the same for every kind (runs.routes.ts).
 import { randomUUID } from 'node:crypto';
 import type { RunError, RunKind, RunView } from '../../shared/schemas/runs';
+import type { AuditEntry } from '../audit';
 import type { Db } from '../db/client';
 import type { Deps } from '../deps';
 import { HttpError, notFound } from '../http/errors';
-import { PoolClosedError, type Slot, TaskFailedError, type TaskOwner } from '../pool/pool';
+import { PoolClosedError, TaskFailedError, type TaskOwner } from '../pool/pool';
 import type { TaskRef } from '../pool/task';
 import * as repo from './runs.repo';
+import { runStartTask, runWorkTask } from './runs.tasks';
 
 export const INTERRUPTED: RunError = { message: 'interrupted by a server restart — run it again' };
 
-export type RunSpec = {
+/** What a module's snapshot task returns: the whole input as JSON text, and the audit entry to write with it. */
+export type Snapshot = { input: string; audit?: AuditEntry };
+
+export type RunSpec<P> = {
   kind: RunKind;
   subjectId: string | null;
-  /** The whole input as JSON text: what the task gets, and what a later re-run would need. */
-  input: string;
+  /** Builds the input in a worker from payload + runId; a 4xx it throws answers the request. */
+  snapshot: TaskRef<P & { runId: string }, Snapshot>;
+  payload: P;
   /** input text → result text, in a worker. */
-  task: TaskRef<string, string>;
-  /** Written in the same transaction as the new run, e.g. its audit entry. */
-  alsoInTx?: (tx: Pick<Db, 'insert'>) => void;
-  /** Called with the result text once the run is done. */
-  onDone?: (result: string) => void;
+  work: TaskRef<string, string>;
+  /** Called on the request thread once the run is done (small follow-ups, e.g. a saved comparison's result). */
+  onDone?: (runId: string) => void;
 };
-
-/** Takes a pool slot for a new run (429 when over a cap); the slot's key is the run's id. */
-export function reserve(deps: Deps, owner: TaskOwner & { agencyId: string }) {
-  return deps.pool.reserve(owner, randomUUID());
-}
 
 function toView(deps: Deps, m: repo.RunMeta): RunView {
   const slot = m.status === 'running' ? deps.pool.find(m.id) : null;
@@ -55,66 +55,45 @@ function errorOf(err: unknown): RunError {
   return { message: (err as Error).message ?? String(err) };
 }
 
-/** Starts a run in a slot from reserve() (perhaps already used for the snapshot); the slot is freed when it ends. */
-export function startRun(deps: Deps, slot: Slot, spec: RunSpec): RunView {
-  const id = slot.key!;
-  const agencyId = slot.owner.agencyId!;
+/**
+ * Takes a pool slot (429 when over a cap), builds the snapshot and writes the run (awaited: its 4xx
+ * answers the request), then runs the work in the same slot and answers at once with the run.
+ */
+export async function startRun<P>(deps: Deps, owner: TaskOwner & { agencyId: string }, spec: RunSpec<P>) {
+  const runId = randomUUID();
+  const slot = deps.pool.reserve(owner, runId);
   try {
-    deps.db.transaction((tx) => {
-      repo.insertRun(tx, {
-        id,
-        agencyId,
-        userId: slot.owner.userId,
-        kind: spec.kind,
-        subjectId: spec.subjectId,
-        input: spec.input,
-      });
-      spec.alsoInTx?.(tx);
+    await slot.run(runStartTask, {
+      runId,
+      agencyId: owner.agencyId,
+      userId: owner.userId,
+      kind: spec.kind,
+      subjectId: spec.subjectId,
+      snapshot: { href: spec.snapshot.href, payload: { ...spec.payload, runId } },
     });
   } catch (err) {
     slot.release();
     throw err;
   }
   slot
-    .run(spec.task, spec.input)
+    .run(runWorkTask, { runId, agencyId: owner.agencyId, work: spec.work.href })
     .then(
-      (result) => {
-        if (repo.finishRun(deps.db, id, { status: 'done', result })) spec.onDone?.(result);
+      ({ written }) => {
+        if (written) spec.onDone?.(runId);
       },
       (err) => {
         // Stopping: the database closes next; the next start marks the run interrupted.
         if (err instanceof PoolClosedError) return;
         repo.finishRun(
           deps.db,
-          id,
+          runId,
           slot.cancelled ? { status: 'cancelled' } : { status: 'failed', error: errorOf(err) },
         );
       },
     )
-    .catch((err) => console.error(`run ${id}: could not record its end`, err))
+    .catch((err) => console.error(`run ${runId}: could not record its end`, err))
     .finally(() => slot.release());
-  return toView(deps, repo.runMeta(deps.db, agencyId, id)!);
-}
-
-/**
- * reserve → snapshot task (awaited; its 4xx answers the request) → startRun. The snapshot is built in a
- * worker because reading and shaping a large inventory would hold the request thread for seconds.
- */
-export async function snapshotThenRun<P, S extends { input: string }>(
-  deps: Deps,
-  owner: TaskOwner & { agencyId: string },
-  snapshot: { task: TaskRef<P, S>; payload: P },
-  spec: (snap: S, runId: string) => RunSpec,
-) {
-  const slot = reserve(deps, owner);
-  let snap: S;
-  try {
-    snap = await slot.run(snapshot.task, snapshot.payload);
-  } catch (err) {
-    slot.release();
-    throw err;
-  }
-  return startRun(deps, slot, spec(snap, slot.key!));
+  return toView(deps, repo.runMeta(deps.db, owner.agencyId, runId)!);
 }
 
 function metaOr404(deps: Pick<Deps, 'db'>, agencyId: string, runId: string) {
@@ -123,18 +102,16 @@ function metaOr404(deps: Pick<Deps, 'db'>, agencyId: string, runId: string) {
   return m;
 }
 
-export function getRun(deps: Deps, agencyId: string, runId: string): RunView {
-  const v = toView(deps, metaOr404(deps, agencyId, runId));
-  const texts = v.status === 'done' ? repo.runTexts(deps.db, agencyId, runId) : undefined;
-  return { ...v, result: texts?.result ? JSON.parse(texts.result) : null };
+/** JSON bytes with the stored result bytes spliced in: the request thread copies them, never parses them. */
+export function withResult(head: object, result: Buffer | null): Buffer {
+  const text = JSON.stringify({ ...head, result: null });
+  return Buffer.concat([Buffer.from(text.slice(0, -'null}'.length)), result ?? Buffer.from('null'), Buffer.from('}')]);
 }
 
-/** The poll answer as JSON text: the stored result is spliced in as it is, never parsed on the request thread. */
-export function runJson(deps: Deps, agencyId: string, runId: string): string {
+/** The poll answer as JSON bytes. */
+export function runJson(deps: Deps, agencyId: string, runId: string): Buffer {
   const v = toView(deps, metaOr404(deps, agencyId, runId));
-  const result = v.status === 'done' ? (repo.runTexts(deps.db, agencyId, runId)?.result ?? 'null') : 'null';
-  const head = JSON.stringify({ ...v, result: null });
-  return `${head.slice(0, -'null}'.length)}${result}}`;
+  return withResult(v, v.status === 'done' ? repo.runResult(deps.db, agencyId, runId) : null);
 }
 
 export function cancelRun(deps: Deps, agencyId: string, runId: string): RunView {
@@ -146,14 +123,13 @@ export function cancelRun(deps: Deps, agencyId: string, runId: string): RunView 
   return toView(deps, metaOr404(deps, agencyId, runId));
 }
 
-/** The input and result texts of a finished run of this kind (409 while it is not done). */
-export function finishedTexts(deps: Pick<Deps, 'db'>, agencyId: string, runId: string, kind: RunKind) {
+/** The input and result bytes of a finished run of this kind (409 while it is not done). */
+export function finishedRun(deps: Pick<Deps, 'db'>, agencyId: string, runId: string, kind: RunKind) {
   const m = metaOr404(deps, agencyId, runId);
   if (m.kind !== kind) throw notFound('No such run');
   if (m.status !== 'done')
     throw new HttpError(409, 'not_finished', 'Only a finished run can be used here; wait for it to finish');
-  const t = repo.runTexts(deps.db, agencyId, runId)!;
-  return { input: t.input, result: t.result! };
+  return { input: repo.runInput(deps.db, agencyId, runId)!, result: repo.runResult(deps.db, agencyId, runId)! };
 }
 
 export function latest(deps: Pick<Deps, 'db'>, agencyId: string, kind: RunKind, subjectId: string) {
@@ -163,6 +139,10 @@ export function latest(deps: Pick<Deps, 'db'>, agencyId: string, kind: RunKind, 
 /** The latest finished run of a subject, without its result. */
 export function latestDone(deps: Pick<Deps, 'db'>, agencyId: string, kind: RunKind, subjectId: string) {
   return repo.latestOf(deps.db, agencyId, kind, subjectId, 'done') ?? null;
+}
+
+export function resultOf(deps: Pick<Deps, 'db'>, agencyId: string, runId: string) {
+  return repo.runResult(deps.db, agencyId, runId);
 }
 
 export function deleteForSubject(tx: Pick<Db, 'delete'>, agencyId: string, subjectId: string) {
