@@ -101,7 +101,8 @@ function authorize(def: RouteDef, req: Request, roleIn: MembershipLookup) {
   return { user, agency };
 }
 
-const pathPattern = (p: string) => new RegExp(`^${p.replace(/:[A-Za-z]+/g, '[^/]+')}$`);
+const pathPattern = (p: string) =>
+  new RegExp(`^${p.replace(/[.+*?^$()[\]{}|\\]/g, '\\$&').replace(/:[A-Za-z]+/g, '[^/]+')}$`);
 
 /** For the JSON parser in front of the routes: true for requests to bodyInWorker routes, which read bytes. */
 export function readsRawBody(routes: ApiRoutes) {

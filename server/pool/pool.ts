@@ -122,8 +122,8 @@ export class WorkerPool {
       filename: HOST,
       minThreads: 0,
       maxThreads: limits.threads,
-      // A warm thread has tsx and the task modules loaded; keep it a while.
-      idleTimeout: 60_000,
+      // A warm thread has tsx and the task modules loaded (a cold one took ~4 s here); keep it a while.
+      idleTimeout: 5 * 60_000,
       atomics: 'disabled',
       // Workers run at a lower priority than the request thread, so on a busy machine answers come
       // first and heavy work takes the CPU left over (needs piscina's optional @napi-rs/nice; else no-op).
