@@ -1,13 +1,10 @@
-// Worker for the plan benchmark: HiGHS on one instance, so the parent can stop it from outside.
-import { parentPort, workerData } from 'node:worker_threads';
+// Pool task for the plan benchmark: HiGHS on one instance, so the parent can stop it from outside.
 import loadHighs from 'highs';
 import { type Highs, type Instance, solveExact } from '../shared/engine/plan/optimize';
+import { defineTask } from '../server/pool/task';
 
-const { instance, limit } = workerData.payload as { instance: Instance; limit: number };
-const highs = (await loadHighs()) as unknown as Highs;
-try {
+export default defineTask(async ({ instance, limit }: { instance: Instance; limit: number }) => {
+  const highs = (await loadHighs()) as unknown as Highs;
   const s = solveExact(instance, highs, { timeLimitSeconds: limit, gap: 1e-4 });
-  parentPort!.postMessage({ ok: true, status: s.status, benefit: s.totalBenefit });
-} catch (err) {
-  parentPort!.postMessage({ ok: false, message: (err as Error).message });
-}
+  return { status: s.status, benefit: s.totalBenefit };
+});

@@ -8,9 +8,7 @@ import Papa from 'papaparse';
 import request from 'supertest';
 import { createApp } from '../server/app';
 import { loadConfig } from '../server/config';
-import { openDb } from '../server/db/client';
-import { JobRunner } from '../server/jobs/job-runner';
-import { createMailer } from '../server/mail/mailer';
+import { createDeps } from '../server/create-deps';
 import { seedDemo } from '../server/seed/seed';
 import { syntheticCsv } from './synthetic-network';
 
@@ -24,15 +22,10 @@ const config = loadConfig({
   DATABASE_PATH: path.join(dir, 'bench.db'),
   APP_URL: 'http://localhost:1',
 });
-const { db, sqlite } = openDb(config.databasePath);
+const built = await createDeps(config, { mailCatcher: false });
+const { db } = built.deps;
 const ids = await seedDemo(db);
-const { app } = createApp({
-  db,
-  sqlite,
-  config,
-  mailer: createMailer({ catcherPort: 1, from: config.mailFrom }),
-  jobs: new JobRunner(),
-});
+const { app } = createApp(built.deps);
 const agent = request.agent(app);
 await agent
   .post('/api/auth/sign-in/email')
@@ -80,6 +73,6 @@ console.log(
   `ratio: Wearcourse import takes ${(importMs / bareMs).toFixed(1)}× the bare loop (it validates, reprojects, measures, diffs, writes history and surveys)`,
 );
 bare.close();
-sqlite.close();
+await built.close();
 fs.rmSync(dir, { recursive: true, force: true });
 process.exit(0);

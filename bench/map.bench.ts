@@ -5,10 +5,8 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium } from 'playwright-core';
 import { loadConfig } from '../server/config';
-import { openDb } from '../server/db/client';
+import { createDeps } from '../server/create-deps';
 import { runImport } from '../server/imports/imports.service';
-import { JobRunner } from '../server/jobs/job-runner';
-import { createMailer } from '../server/mail/mailer';
 import { DEMO_ACCOUNTS } from '../server/seed/seed';
 import { seedDemo } from '../server/seed/seed';
 import { startServerProcess } from '../tests/helpers/server-process';
@@ -26,19 +24,20 @@ if (!fs.existsSync('dist/index.html')) {
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wearcourse-mapbench-'));
 const dbPath = path.join(dir, 'map.db');
 const config = loadConfig({ NODE_ENV: 'test', DATABASE_PATH: dbPath, APP_URL: 'http://localhost:1' });
-const { db, sqlite } = openDb(dbPath);
+const built = await createDeps(config, { mailCatcher: false });
+const { deps } = built;
+const { db, sqlite } = deps;
 const ids = await seedDemo(db);
-const deps = {
-  db,
-  sqlite,
-  config,
-  mailer: createMailer({ catcherPort: 1, from: config.mailFrom }),
-  jobs: new JobRunner(),
-};
 const consultant = db.$client.prepare('SELECT id FROM users WHERE email = ?').get(DEMO_ACCOUNTS[5].email) as {
   id: string;
 };
-const opts = { kind: 'segments' as const, mode: 'all-or-nothing' as const, dryRun: false, saveMapping: false };
+const opts = {
+  kind: 'segments' as const,
+  mode: 'all-or-nothing' as const,
+  dryRun: false,
+  dateFormat: 'auto' as const,
+  saveMapping: false,
+};
 sqlite.exec(`DELETE FROM segments WHERE agency_id = '${ids.marlow}'`);
 await runImport(deps, ids.marlow, consultant.id, { name: 'syn5k.csv', buffer: Buffer.from(syntheticCsv(5_000)) }, opts);
 sqlite.exec(`DELETE FROM segments WHERE agency_id = '${ids.brannock}'`);
@@ -49,7 +48,7 @@ await runImport(
   { name: 'syn50k.csv', buffer: Buffer.from(syntheticCsv(50_000)) },
   opts,
 );
-sqlite.close();
+await built.close();
 
 const { child: server, url } = await startServerProcess({ DATABASE_PATH: dbPath });
 const browser = await chromium.launch({

@@ -1,12 +1,13 @@
 // 20,000 segments × 10 years: the fast method's time and value beside HiGHS on
 // the same instance (its answer or its bound within a time limit) and beside worst-first.
-import { Worker } from 'node:worker_threads';
 import { resolveTreatment } from '../shared/engine/lcca/costing';
 import { buildCandidates, type PlanSegment, type PlanTreatment } from '../shared/engine/plan/network-plan';
 import { solveFast, solveRanking } from '../shared/engine/plan/optimize';
 import { DEFAULT_CURVES } from '../shared/engine/forecast/families';
 import { rng } from '../shared/engine/random';
 import type { Mix, Treatment } from '../shared/schemas/catalog';
+import { WorkerPool } from '../server/pool/pool';
+import { taskRef } from '../server/pool/task';
 import { DEMO_ECONOMICS, DEMO_MIXES, DEMO_TREATMENTS } from '../server/seed/demo-catalog';
 
 const N = Number(process.env.BENCH_SEGMENTS ?? 20_000);
@@ -97,40 +98,32 @@ const rank = solveRanking(instance);
 console.log(
   `worst-first: ${(performance.now() - t).toFixed(0)} ms, benefit ${rank.totalBenefit.toFixed(0)} (${((1 - rank.totalBenefit / fast.totalBenefit) * 100).toFixed(1)} % below fast)`,
 );
-// HiGHS runs in a worker with a hard stop: on very large models it can spend longer than its own
-// time limit reading and presolving the model.
+// HiGHS runs in the worker pool with a hard stop (the slot is cancelled, which terminates the worker):
+// on very large models it can spend longer than its own time limit reading and presolving the model.
 t = performance.now();
-const worker = new Worker(new URL('../server/jobs/ts-worker.mjs', import.meta.url), {
-  workerData: { entry: new URL('./highs-task.ts', import.meta.url).href, payload: { instance, limit: LIMIT } },
-});
-const answer = await new Promise<{ ok: boolean; status?: string; benefit?: number; message?: string } | null>(
-  (resolve) => {
-    const stop = setTimeout(
-      () => {
-        void worker.terminate();
-        resolve(null);
-      },
-      (LIMIT + 60) * 1000,
-    );
-    worker.once('message', (m) => {
-      clearTimeout(stop);
-      void worker.terminate();
-      resolve(m);
-    });
-    worker.once('error', (e) => {
-      clearTimeout(stop);
-      resolve({ ok: false, message: e.message });
-    });
-  },
-);
+const pool = new WorkerPool({ threads: 1, perAgency: 1, perUser: 1 }, ':memory:');
+const slot = pool.reserve({ userId: 'bench', agencyId: null });
+const stop = setTimeout(() => slot.cancel(), (LIMIT + 60) * 1000);
+const answer = await slot
+  .run(taskRef<typeof import('./highs-task').default>(new URL('./highs-task.ts', import.meta.url)), {
+    instance,
+    limit: LIMIT,
+  })
+  .then(
+    (r) => ({ ok: true as const, ...r }),
+    (e: Error) => (slot.cancelled ? null : { ok: false as const, message: e.message }),
+  );
+clearTimeout(stop);
+slot.release();
+await pool.close();
 const secs = ((performance.now() - t) / 1000).toFixed(1);
 if (answer?.ok)
   console.log(
-    `HiGHS (limit ${LIMIT} s): ${secs} s, ${answer.status}, benefit ${answer.benefit!.toFixed(0)}; fast is ${((1 - fast.totalBenefit / answer.benefit!) * 100).toFixed(3)} % below it`,
+    `HiGHS (limit ${LIMIT} s): ${secs} s, ${answer.status}, benefit ${answer.benefit.toFixed(0)}; fast is ${((1 - fast.totalBenefit / answer.benefit) * 100).toFixed(3)} % below it`,
   );
 else
   console.log(
-    `HiGHS: ${answer ? answer.message : `no answer within ${LIMIT + 60} s (stopped)`}; fast's own Lagrangian bound stands: it is within ${(fast.gap * 100).toFixed(3)} % of the optimum`,
+    `HiGHS: ${answer && !answer.ok ? answer.message : `no answer within ${LIMIT + 60} s (stopped)`}; fast's own Lagrangian bound stands: it is within ${(fast.gap * 100).toFixed(3)} % of the optimum`,
   );
 const mem = process.memoryUsage();
 console.log(`memory: RSS ${(mem.rss / 1024 / 1024).toFixed(0)} MB, heap ${(mem.heapUsed / 1024 / 1024).toFixed(0)} MB`);

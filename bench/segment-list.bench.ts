@@ -5,9 +5,7 @@ import path from 'node:path';
 import request from 'supertest';
 import { createApp } from '../server/app';
 import { loadConfig } from '../server/config';
-import { openDb } from '../server/db/client';
-import { JobRunner } from '../server/jobs/job-runner';
-import { createMailer } from '../server/mail/mailer';
+import { createDeps } from '../server/create-deps';
 import { seedDemo } from '../server/seed/seed';
 
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wearcourse-bench-'));
@@ -16,17 +14,14 @@ const config = loadConfig({
   DATABASE_PATH: path.join(dir, 'bench.db'),
   APP_URL: 'http://localhost:1',
 });
-const { db, sqlite } = openDb(config.databasePath);
+const built = await createDeps(config, { mailCatcher: false });
+const { db } = built.deps;
+// The query path itself, not the list cache (npm run bench load measures the cached answers).
+built.deps.listCache = undefined;
 let t = performance.now();
 const ids = await seedDemo(db);
 console.log(`seed demo agencies: ${(performance.now() - t).toFixed(0)} ms`);
-const { app } = createApp({
-  db,
-  sqlite,
-  config,
-  mailer: createMailer({ catcherPort: 1, from: config.mailFrom }),
-  jobs: new JobRunner(),
-});
+const { app } = createApp(built.deps);
 const agent = request.agent(app);
 await agent
   .post('/api/auth/sign-in/email')
@@ -43,6 +38,6 @@ for (let i = 0; i < N; i++) {
 times.sort((a, b) => a - b);
 const q = (p: number) => times[Math.min(times.length - 1, Math.floor(p * times.length))].toFixed(2);
 console.log(`GET segments?limit=100 (${N} requests, in process): p50 ${q(0.5)} ms, p99 ${q(0.99)} ms`);
-sqlite.close();
+await built.close();
 fs.rmSync(dir, { recursive: true, force: true });
 process.exit(0);

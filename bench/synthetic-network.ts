@@ -21,3 +21,31 @@ export function syntheticCsv(n: number, withGeometry = true) {
   }
   return `${lines.join('\n')}\n`;
 }
+
+/**
+ * A body for POST /api/plan/optimize that HiGHS cannot close quickly: a multi-year multiple-choice
+ * knapsack with random costs and benefits (seeded) and budgets for about half of the work. Short ids
+ * keep 20,000 options under the 1 MB JSON limit.
+ */
+export function syntheticOptimizeBody(segments: number, optionsEach: number, years: number, timeLimitSeconds: number) {
+  let a = 7;
+  const u = () => {
+    a = (a * 1103515245 + 12345) % 2147483648;
+    return a / 2147483648;
+  };
+  const letters = 'abcdefghijklmnopqrstuvwxyz';
+  return {
+    method: 'exact' as const,
+    timeLimitSeconds,
+    budgets: new Array(years).fill(Math.round((segments * 5500) / years / 2)),
+    segments: Array.from({ length: segments }, (_, i) => ({
+      id: String(i),
+      options: Array.from({ length: optionsEach }, (_, j) => ({
+        id: letters[j % 26],
+        year: Math.floor(u() * years),
+        cost: Math.round(1000 + u() * 8999),
+        benefit: Math.round(100 + u() * 899),
+      })),
+    })),
+  };
+}

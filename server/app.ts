@@ -9,7 +9,7 @@ import { authRoutes } from './auth/auth.routes';
 import { createPassport } from './auth/passport';
 import type { Deps } from './deps';
 import { cachingClient } from './db/statements';
-import { createApiRoutes, mountApiRoutes } from './http/api';
+import { createApiRoutes, mountApiRoutes, readsRawBody } from './http/api';
 import { errorHandler } from './http/errors';
 import { originCheck, securityHeaders } from './http/security';
 import { catalogRoutes } from './catalog/catalog.routes';
@@ -21,6 +21,8 @@ import { auditRoutes } from './audit-log/audit.routes';
 import { installPlainZodMessages } from '../shared/schemas/plain-errors';
 import { agencyRoutes } from './agencies/agencies.routes';
 import { memberRoutes } from './members/members.routes';
+import { membershipFor } from './agencies/agencies.repo';
+import { runRoutes } from './runs/runs.routes';
 import { buildOpenApiDocument } from './openapi/openapi';
 import { segmentRoutes } from './segments/segments.routes';
 import { segmentHistoryRoutes } from './segment-history/segment-history.routes';
@@ -58,6 +60,8 @@ export function createApp(deps: Deps) {
     res.json({ ok: true });
   });
 
+  const routes = createApiRoutes();
+  const rawBody = readsRawBody(routes);
   const SqliteStore = sqliteStoreFactory(session);
   const pp = createPassport(deps);
   app.use(
@@ -75,14 +79,17 @@ export function createApp(deps: Deps) {
     }),
     pp.initialize(),
     pp.session(),
-    express.json({ limit: JSON_LIMIT }),
+    // Routes that hand a large body to a worker read its bytes instead (RouteDef.bodyInWorker).
+    express.json({
+      limit: JSON_LIMIT,
+      type: (req) => Boolean((req as express.Request).is('application/json')) && !rawBody(req as express.Request),
+    }),
     originCheck(
       () => deps.config.appUrl,
       () => deps.config.allowedOrigins,
     ),
   );
 
-  const routes = createApiRoutes();
   authRoutes(routes, deps, pp);
   segmentRoutes(routes, deps);
   segmentHistoryRoutes(routes, deps);
@@ -94,8 +101,12 @@ export function createApp(deps: Deps) {
   planRoutes(routes, deps);
   auditRoutes(routes, deps);
   agencyRoutes(routes, deps);
+  runRoutes(routes, deps);
   const router = express.Router();
-  mountApiRoutes(router, routes, deps);
+  mountApiRoutes(router, routes, deps, {
+    roleIn: (userId, agencyId) => membershipFor(deps.db, userId, agencyId),
+    jsonLimit: JSON_LIMIT,
+  });
   app.use(router);
 
   const openapi = buildOpenApiDocument(routes.list);

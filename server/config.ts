@@ -1,3 +1,4 @@
+import os from 'node:os';
 import path from 'node:path';
 import { z } from 'zod';
 
@@ -19,7 +20,13 @@ const EnvSchema = z.object({
   ALLOWED_ORIGINS: z.string().optional(),
   ALLOW_RESTORE_BY_ANY_USER: z.enum(['0', '1']).default('0'),
   RESTORE_RATE_LIMIT: z.coerce.number().int().min(1).default(5),
+  WORKER_THREADS: z.coerce.number().int().min(1).max(64).optional(),
+  WORKER_TASKS_PER_AGENCY: z.coerce.number().int().min(1).max(64).default(2),
+  WORKER_TASKS_PER_USER: z.coerce.number().int().min(1).max(64).default(2),
 });
+
+/** One worker thread per core, at least two: heavy work runs there, never on the request thread. */
+export const defaultWorkerThreads = () => Math.max(2, os.availableParallelism());
 
 export type AppConfig = {
   env: 'development' | 'production' | 'test';
@@ -42,6 +49,8 @@ export type AppConfig = {
   restoreByAnyUser: boolean;
   /** Restores per user per hour. */
   restoreRateLimit: number;
+  /** Heavy tasks at once: in all (the pool's threads), per agency and per user. */
+  workers: { threads: number; perAgency: number; perUser: number };
 };
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
@@ -82,5 +91,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       }),
     restoreByAnyUser: e.ALLOW_RESTORE_BY_ANY_USER === '1',
     restoreRateLimit: e.RESTORE_RATE_LIMIT,
+    workers: {
+      threads: e.WORKER_THREADS ?? defaultWorkerThreads(),
+      perAgency: e.WORKER_TASKS_PER_AGENCY,
+      perUser: e.WORKER_TASKS_PER_USER,
+    },
   };
 }

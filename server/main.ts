@@ -2,13 +2,9 @@ import type { Server } from 'node:http';
 import { createApp } from './app';
 import { DEMO_PASSWORD } from './auth/passwords';
 import type { AppConfig } from './config';
-import { openDb } from './db/client';
+import { createDeps } from './create-deps';
 import type { Deps } from './deps';
-import { startMailCatcher, type MailCatcher } from './mail/catcher';
-import { JobRunner } from './jobs/job-runner';
-import { ListCache } from './segments/list-cache';
-import { createMailer } from './mail/mailer';
-import { failInterruptedRuns } from './plans/plans.service';
+import type { MailCatcher } from './mail/catcher';
 import { DEMO_ACCOUNTS, hasAnyAgency, seedDemo } from './seed/seed';
 
 export type Running = {
@@ -21,17 +17,17 @@ export type Running = {
 
 /** Opens the database, seeds the demo on a fresh file, starts the catcher and listens. */
 export async function startWearcourse(config: AppConfig, log = console.log): Promise<Running> {
-  const { db, sqlite } = openDb(config.databasePath);
+  const built = await createDeps(config);
+  const { deps, catcher } = built;
   let seeded = false;
-  if (config.seedDemo && !hasAnyAgency(db)) {
-    await seedDemo(db);
+  if (config.seedDemo && !hasAnyAgency(deps.db)) {
+    await seedDemo(deps.db);
     seeded = true;
   }
-  const catcher = config.smtpUrl ? null : await startMailCatcher(db, config.mailCatcherPort, config.env !== 'test');
-  const mailer = createMailer({ smtpUrl: config.smtpUrl, catcherPort: catcher?.port, from: config.mailFrom });
-  const deps: Deps = { db, sqlite, config, mailer, jobs: new JobRunner(), listCache: new ListCache() };
-  const interrupted = failInterruptedRuns(deps);
-  if (interrupted) log(`${interrupted} plan run(s) left running by an earlier stop are marked failed.`);
+  if (built.interruptedRuns)
+    log(
+      `${built.interruptedRuns} run(s) left running by an earlier stop are marked failed (interrupted by a restart).`,
+    );
   const { app } = createApp(deps);
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.port, config.host, () => resolve(s));
@@ -54,10 +50,7 @@ export async function startWearcourse(config: AppConfig, log = console.log): Pro
   }
   const stop = async () => {
     await new Promise<void>((resolve) => server.close(() => resolve()));
-    await deps.jobs.close();
-    await catcher?.close();
-    mailer.close();
-    sqlite.close();
+    await built.close();
   };
   return { server, deps, url, catcher, stop };
 }

@@ -10,7 +10,8 @@ import type { ApiRoutes, SessionUser } from '../http/api';
 import multer from 'multer';
 import { HttpError } from '../http/errors';
 import { agencyById } from './agencies.repo';
-import { exportAgency, restoreAgency } from './agency-archive';
+import { restoreAgency } from './agency-archive';
+import { agencyExportTask } from './agencies.tasks';
 import { AgencyNameSchema } from './archive-schemas';
 
 export const MAX_ARCHIVE_UPLOAD_BYTES = 200 * 1024 * 1024;
@@ -93,8 +94,14 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
     access: { kind: 'agency', role: 'admin' },
     params: AgencyParamsSchema,
     responseDescription: 'application/zip',
-    handler: async ({ agency, user, res }) => {
-      const out = await exportAgency(deps, agency!.id);
+    heavy: true,
+    handler: async ({ agency, user, res, signal }) => {
+      const out = await deps.pool.run(
+        agencyExportTask,
+        { agencyId: agency!.id },
+        { userId: user!.id, agencyId: agency!.id },
+        { signal },
+      );
       deps.db.transaction((tx) =>
         recordAudit(tx, {
           agencyId: agency!.id,
@@ -102,15 +109,15 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
           action: 'agency.export',
           entity: 'agency',
           entityId: agency!.id,
-          detail: out.manifest.counts,
+          detail: out.counts,
         }),
       );
       res.setHeader('Content-Type', 'application/zip');
       res.setHeader(
         'Content-Disposition',
-        `attachment; filename="${out.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-export-${out.manifest.exportedAt.slice(0, 10)}.zip"`,
+        `attachment; filename="${out.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-export-${out.exportedAt.slice(0, 10)}.zip"`,
       );
-      res.send(out.buffer);
+      res.send(Buffer.from(out.buffer));
     },
   });
   api.add({

@@ -15,12 +15,30 @@ const migrationsFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url
 // applies the committed migrations.
 export function openDb(file: string) {
   fs.mkdirSync(path.dirname(file), { recursive: true });
-  const sqlite = new Database(file);
+  const { db, sqlite } = connect(new Database(file));
+  migrate(db, { migrationsFolder });
+  return { db, sqlite };
+}
+
+function connect(sqlite: Database.Database) {
   sqlite.pragma('journal_mode = WAL');
   sqlite.pragma('foreign_keys = ON');
   sqlite.pragma('busy_timeout = 5000');
   sqlite.pragma('synchronous = NORMAL');
-  const db = drizzle(sqlite, { schema, casing: 'snake_case' });
-  migrate(db, { migrationsFolder });
-  return { db, sqlite };
+  return { db: drizzle(sqlite, { schema, casing: 'snake_case' }), sqlite };
+}
+
+/**
+ * A second writer on an existing, migrated file: what worker threads write with. SQLite takes one write
+ * transaction at a time, so a worker's transaction must stay short — the request thread waits for it.
+ */
+export function openWriteDb(file: string): Db {
+  return connect(new Database(file, { fileMustExist: true })).db;
+}
+
+/** A read-only connection to an existing, migrated file: what worker threads read with. */
+export function openReadOnlyDb(file: string): Db {
+  const sqlite = new Database(file, { readonly: true, fileMustExist: true });
+  sqlite.pragma('busy_timeout = 5000');
+  return drizzle(sqlite, { schema, casing: 'snake_case' });
 }

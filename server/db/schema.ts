@@ -2,7 +2,7 @@
 // SQL migrations in drizzle/. Property names are camelCase, columns snake_case
 // (the `casing` option in drizzle.config.ts and server/db/client.ts).
 import { sql } from 'drizzle-orm';
-import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { blob, index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import {
   type Applicability,
   type CostItem,
@@ -14,6 +14,7 @@ import {
   TREATMENT_CATEGORIES,
   TREATMENT_KINDS,
 } from '../../shared/schemas/catalog';
+import { RUN_KINDS, RUN_STATUSES, type RunError } from '../../shared/schemas/runs';
 
 const createdAt = () => text().notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
 
@@ -365,6 +366,7 @@ export const plans = sqliteTable(
   (t) => [index('plans_agency').on(t.agencyId)],
 );
 
+// Replaced by `runs`; kept (not dropped) this round. Its rows are copied into `runs` at start.
 export const planRuns = sqliteTable(
   'plan_runs',
   {
@@ -381,4 +383,31 @@ export const planRuns = sqliteTable(
     endedAt: text(),
   },
   (t) => [index('plan_runs_plan').on(t.planId, t.startedAt)],
+);
+
+// Every run (plan, budget search, comparison): who started it, on what, the
+// snapshot of its input, and its outcome. Input and result are UTF-8 JSON kept as
+// bytes: workers write and parse them, and the request thread only copies result
+// bytes into an answer (a 14 MB snapshot as TEXT costs the writing thread ~250 ms).
+export const runs = sqliteTable(
+  'runs',
+  {
+    id: text().primaryKey(),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    userId: text().references(() => users.id, { onDelete: 'set null' }),
+    kind: text({ enum: RUN_KINDS }).notNull(),
+    /** The plan (plan, budget-search) or saved comparison the run belongs to. */
+    subjectId: text(),
+    status: text({ enum: RUN_STATUSES }).notNull(),
+    progress: real().notNull().default(0),
+    input: blob({ mode: 'buffer' }).notNull(),
+    result: blob({ mode: 'buffer' }),
+    error: text({ mode: 'json' }).$type<RunError>(),
+    createdAt: createdAt(),
+    startedAt: text(),
+    endedAt: text(),
+  },
+  (t) => [index('runs_subject').on(t.agencyId, t.kind, t.subjectId, t.createdAt), index('runs_status').on(t.status)],
 );

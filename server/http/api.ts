@@ -1,18 +1,21 @@
 // One way to declare an API route: its access rule, its zod schemas and its
 // handler together. The same list drives Express, the OpenAPI document and the
 // authorization-matrix test, so a route without a rule cannot exist.
-import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
+import express, { type NextFunction, type Request, type RequestHandler, type Response, type Router } from 'express';
 import type { z } from 'zod';
 import { ROLE_RANK, type Role } from '../../shared/schemas/common';
 import type { Deps } from '../deps';
-import { membershipFor } from '../agencies/agencies.repo';
-import { forbidden, HttpError, notFound, unauthorized, zodIssues } from './errors';
+import { forbidden, HttpError, notFound, unauthorized } from './errors';
+import { parsePart } from './validate';
 
 export type Access = { kind: 'public' } | { kind: 'signed-in' } | { kind: 'agency'; role: Role };
 
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
 export type SessionUser = { id: string; email: string; name: string };
+
+/** The caller's role in an agency, or null when not a member: handed in by the app, so http/ imports no module. */
+export type MembershipLookup = (userId: string, agencyId: string) => Role | null;
 
 export type Ctx<P, Q, B> = {
   params: P;
@@ -24,6 +27,10 @@ export type Ctx<P, Q, B> = {
   deps: Deps;
   req: Request;
   res: Response;
+  /** Aborted when the client goes away before the answer: pass it to awaited heavy tasks. */
+  signal: AbortSignal;
+  /** Set for bodyInWorker routes: the JSON body's bytes, unparsed (body is then undefined). */
+  rawBody: Buffer | null;
 };
 
 type AnyZod = z.ZodType;
@@ -46,6 +53,13 @@ export type RouteDef<
   response?: AnyZod;
   responseDescription?: string;
   status?: number;
+  /** Runs heavy work in the worker pool: may answer 429 with Retry-After (documented). */
+  heavy?: boolean;
+  /**
+   * The JSON body can be large (up to the 1 MB limit): the request thread only reads its bytes (ctx.rawBody)
+   * and the route's task parses and checks them against `body` (parseJsonBody), off the request thread.
+   */
+  bodyInWorker?: boolean;
   /** Extra middleware run before validation (uploads, rate limits). */
   before?: RequestHandler[];
   /** Return a value to send it as JSON; return undefined when the handler answered itself. */
@@ -93,28 +107,13 @@ export function createApiRoutes(): ApiRoutes {
   return { list, add, typed: add };
 }
 
-function parsePart(schema: AnyZod | undefined, value: unknown, where: string) {
-  if (!schema) return undefined;
-  const result = schema.safeParse(value ?? {});
-  if (!result.success) {
-    const issues = zodIssues(result.error, where);
-    throw new HttpError(
-      400,
-      'invalid_request',
-      `Invalid request: ${issues.map((i) => `${i.path} — ${i.message}`).join('; ')}`,
-      issues,
-    );
-  }
-  return result.data;
-}
-
-function authorize(def: RouteDef, req: Request, deps: Deps) {
+function authorize(def: RouteDef, req: Request, roleIn: MembershipLookup) {
   const user = (req.user as SessionUser | undefined) ?? null;
   let agency: Ctx<unknown, unknown, unknown>['agency'] = null;
   if (def.access.kind !== 'public' && !user) throw unauthorized();
   if (def.access.kind === 'agency' && user) {
     const agencyId = String(req.params.agencyId);
-    const role = membershipFor(deps.db, user.id, agencyId);
+    const role = roleIn(user.id, agencyId);
     // Not a member: answer as if the agency did not exist.
     if (!role) throw notFound('No such agency');
     if (ROLE_RANK[role] < ROLE_RANK[def.access.role]) throw forbidden();
@@ -123,40 +122,78 @@ function authorize(def: RouteDef, req: Request, deps: Deps) {
   return { user, agency };
 }
 
-export function mountApiRoutes(router: Router, routes: ApiRoutes, deps: Deps) {
+const pathPattern = (p: string) =>
+  new RegExp(`^${p.replace(/[.+*?^$()[\]{}|\\]/g, '\\$&').replace(/:[A-Za-z]+/g, '[^/]+')}$`);
+
+/** For the JSON parser in front of the routes: true for requests to bodyInWorker routes, which read bytes. */
+export function readsRawBody(routes: ApiRoutes) {
+  let raw: { method: string; pattern: RegExp }[] | null = null;
+  return (req: Request) => {
+    raw ??= routes.list
+      .filter((r) => r.bodyInWorker)
+      .map((r) => ({ method: r.method.toUpperCase(), pattern: pathPattern(r.path) }));
+    const p = req.originalUrl.split('?')[0];
+    return raw.some((r) => r.method === req.method && r.pattern.test(p));
+  };
+}
+
+export function mountApiRoutes(
+  router: Router,
+  routes: ApiRoutes,
+  deps: Deps,
+  opts: { roleIn: MembershipLookup; jsonLimit: string },
+) {
+  const { roleIn } = opts;
   // Literal path parts win over parameters (…/segments/export before …/segments/:id).
   const paramCount = (p: string) => (p.match(/:/g) ?? []).length;
   const ordered = [...routes.list].sort((a, b) => paramCount(a.path) - paramCount(b.path));
   for (const def of ordered) {
     const run = async (req: Request, res: Response, next: NextFunction) => {
+      const gone = new AbortController();
+      res.once('close', () => {
+        if (!res.writableFinished) gone.abort();
+      });
       try {
-        const { user, agency } = authorize(def, req, deps);
-        const params = parsePart(def.params, req.params, 'params');
-        const query = parsePart(def.query, req.query, 'query');
+        const { user, agency } = authorize(def, req, roleIn);
+        const params = def.params ? parsePart(def.params, req.params, 'params') : undefined;
+        const query = def.query ? parsePart(def.query, req.query, 'query') : undefined;
         if (def.body && !req.is('application/json') && !req.is('multipart/form-data')) {
           throw new HttpError(415, 'unsupported_media_type', 'Send the request body as application/json');
         }
-        const body = parsePart(def.body, req.body, 'body');
-        const result = await def.handler({ params, query, body, user, agency, deps, req, res } as Ctx<
+        // No body reads as {}, as the JSON parser would give it.
+        const rawBody = !def.bodyInWorker
+          ? null
+          : Buffer.isBuffer(req.body) && req.body.length
+            ? req.body
+            : Buffer.from('{}');
+        const body = def.body && !def.bodyInWorker ? parsePart(def.body, req.body, 'body') : undefined;
+        const signal = gone.signal;
+        const result = await def.handler({ params, query, body, user, agency, deps, req, res, signal, rawBody } as Ctx<
           never,
           never,
           never
         >);
         if (result !== undefined && !res.headersSent) res.status(def.status ?? 200).json(result);
       } catch (err) {
+        // The client went away (its heavy task was stopped for that): nobody is left to answer.
+        if (gone.signal.aborted) return;
         next(err);
       }
     };
     // Access is checked before any upload middleware touches the body.
     const guard: RequestHandler = (req, _res, next) => {
       try {
-        authorize(def, req, deps);
+        authorize(def, req, roleIn);
         next();
       } catch (err) {
         next(err);
       }
     };
-    const chain: RequestHandler[] = def.before?.length ? [guard, ...def.before] : [];
+    const before = [
+      ...(def.bodyInWorker ? [express.raw({ type: 'application/json', limit: opts.jsonLimit })] : []),
+      ...(def.before ?? []),
+    ];
+    const chain: RequestHandler[] = before.length ? [guard, ...before] : [];
     router[def.method](def.path, ...chain, run);
   }
 }

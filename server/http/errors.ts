@@ -8,6 +8,8 @@ export class HttpError extends Error {
     public code: string,
     message: string,
     public issues?: { path: string; message: string }[],
+    /** Extra response headers, e.g. Retry-After on 429. */
+    public headers?: Record<string, string>,
   ) {
     super(message);
   }
@@ -16,6 +18,9 @@ export class HttpError extends Error {
 export const notFound = (what = 'Not found') => new HttpError(404, 'not_found', what);
 export const forbidden = (what = 'Your role does not allow this') => new HttpError(403, 'forbidden', what);
 export const unauthorized = () => new HttpError(401, 'unauthorized', 'Sign in first');
+/** 429 with a Retry-After header; the message says in plain words what to do. */
+export const tooBusy = (message: string, retryAfterSeconds: number) =>
+  new HttpError(429, 'too_busy', message, undefined, { 'Retry-After': String(retryAfterSeconds) });
 export const badRequest = (message: string, issues?: { path: string; message: string }[]) =>
   new HttpError(400, 'bad_request', message, issues);
 
@@ -60,6 +65,7 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, _next) => {
   if (err instanceof HttpError) {
     status = err.status;
     body = { error: { code: err.code, message: err.message, issues: err.issues } };
+    if (err.headers) res.set(err.headers);
   } else if (err instanceof ZodError) {
     status = 400;
     const issues = zodIssues(err);

@@ -6,20 +6,15 @@ import {
   AnalysisParamsSchema,
   EvaluateBodySchema,
   EvaluateResultSchema,
-  RunParamsSchema,
-  RunStateSchema,
   SaveAnalysisBodySchema,
-  type StudyInput,
   StudyRequestSchema,
 } from '../../shared/schemas/lcca';
+import { RunViewSchema } from '../../shared/schemas/runs';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
 import { HttpError } from '../http/errors';
 import { studyCsv, studyXlsx } from './lcca.export';
 import * as service from './lcca.service';
-
-// Inputs of finished runs, so that "save" stores exactly what was run.
-const runInputs = new Map<string, StudyInput>();
 
 export function lccaRoutes(api: ApiRoutes, deps: Deps) {
   const engineer = { kind: 'agency', role: 'engineer' } as const;
@@ -39,39 +34,14 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     path: '/api/agencies/:agencyId/analyses/runs',
     tag: 'Life-cycle cost',
     summary:
-      'Start a comparison of 2–6 catalog-based alternatives on a group of segments (or a typed-in section); runs off the request thread with Monte Carlo. Answers 202 with the run to poll.',
+      'Start a comparison of 2–6 catalog-based alternatives on a group of segments (or a typed-in section); runs off the request thread with Monte Carlo. Answers 202 with the run to poll at /api/agencies/{agencyId}/runs/{runId}.',
     access: engineer,
     params: AgencyParamsSchema,
     body: StudyRequestSchema,
-    response: RunStateSchema,
+    response: RunViewSchema,
     status: 202,
-    handler: ({ agency, body }) => {
-      const input = service.studyInput(deps, agency!.id, body);
-      const run = service.startRun(deps, agency!.id, input, null);
-      runInputs.set(run.id, input);
-      setTimeout(() => runInputs.delete(run.id), 60 * 60 * 1000).unref();
-      return run;
-    },
-  });
-  api.add({
-    method: 'get',
-    path: '/api/agencies/:agencyId/analyses/runs/:runId',
-    tag: 'Life-cycle cost',
-    summary: 'Progress and, when done, the result of a comparison run',
-    access: engineer,
-    params: RunParamsSchema,
-    response: RunStateSchema,
-    handler: ({ agency, params }) => deps.jobs.get(agency!.id, params.runId),
-  });
-  api.add({
-    method: 'delete',
-    path: '/api/agencies/:agencyId/analyses/runs/:runId',
-    tag: 'Life-cycle cost',
-    summary: 'Cancel a running comparison',
-    access: engineer,
-    params: RunParamsSchema,
-    response: RunStateSchema,
-    handler: ({ agency, params }) => deps.jobs.cancel(agency!.id, params.runId),
+    heavy: true,
+    handler: ({ agency, user, body }) => service.startComparison(deps, agency!.id, user!.id, body),
   });
   api.add({
     method: 'post',
@@ -84,12 +54,7 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     body: SaveAnalysisBodySchema,
     status: 201,
     response: z.object({ id: z.string() }),
-    handler: ({ agency, user, body }) => {
-      const run = deps.jobs.get(agency!.id, body.runId);
-      const input = runInputs.get(body.runId);
-      if (run.status !== 'done' || !input) throw new HttpError(409, 'not_finished', 'Only a finished run can be saved');
-      return service.saveAnalysis(deps, agency!.id, user!.id, body.name, input, run.result);
-    },
+    handler: ({ agency, user, body }) => service.saveAnalysis(deps, agency!.id, user!.id, body.name, body.runId),
   });
   api.add({
     method: 'get',
@@ -115,17 +80,13 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     path: '/api/agencies/:agencyId/analyses/:analysisId/rerun',
     tag: 'Life-cycle cost',
     summary:
-      'Run a saved comparison again from its own snapshot (its own prices); the saved result is replaced when it finishes',
+      'Run a saved comparison again from its own snapshot (its own prices); answers 202 with the run to poll, and the saved result is replaced when it finishes',
     access: engineer,
     params: AnalysisParamsSchema,
-    response: RunStateSchema,
+    response: RunViewSchema,
     status: 202,
-    handler: ({ agency, params }) => {
-      const a = service.getAnalysis(deps, agency!.id, params.analysisId);
-      const run = service.startRun(deps, agency!.id, a.input, a.id);
-      runInputs.set(run.id, a.input);
-      return run;
-    },
+    heavy: true,
+    handler: ({ agency, user, params }) => service.rerunAnalysis(deps, agency!.id, user!.id, params.analysisId),
   });
   api.add({
     method: 'delete',

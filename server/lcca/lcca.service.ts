@@ -11,7 +11,8 @@ import * as catalogRepo from '../catalog/catalog.repo';
 import type { Deps } from '../deps';
 import { analyses, segments, users } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
-import type { RunState } from '../jobs/job-runner';
+import * as runs from '../runs/runs.service';
+import { comparisonSnapshotTask, comparisonTask } from './lcca.tasks';
 
 export const MAX_MC_ITERATIONS = 20_000;
 
@@ -38,7 +39,7 @@ export function evaluate(body: EvaluateBody) {
 }
 
 /** Recomputes the group from the agency's own segments; a typed-in section stands as given. */
-function resolveGroup(deps: Deps, agencyId: string, g: Group): Group {
+function resolveGroup(deps: Pick<Deps, 'db'>, agencyId: string, g: Group): Group {
   if (g.segmentIds.length === 0) return g;
   const ids = [...new Set(g.segmentIds)];
   const rows = [] as (typeof segments.$inferSelect)[];
@@ -80,7 +81,7 @@ function resolveGroup(deps: Deps, agencyId: string, g: Group): Group {
 }
 
 /** Builds the full, self-contained study input: the catalog items and economics as they are now. */
-export function studyInput(deps: Deps, agencyId: string, req: StudyRequest): StudyInput {
+export function studyInput(deps: Pick<Deps, 'db'>, agencyId: string, req: StudyRequest): StudyInput {
   const econ = { ...catalogRepo.economicsOf(deps.db, agencyId), ...(req.economics ?? {}) };
   const input: StudyInput = {
     economics: econ,
@@ -112,27 +113,59 @@ function checkStudy(input: StudyInput) {
   }
 }
 
-const STUDY_TASK = new URL('../jobs/study-task.ts', import.meta.url);
-
-export function startRun(deps: Deps, agencyId: string, input: StudyInput, analysisId: string | null) {
-  return deps.jobs.start(agencyId, 'study', STUDY_TASK, input, (r: RunState) => {
-    if (analysisId && r.status === 'done')
-      deps.db
-        .update(analyses)
-        .set({ result: JSON.stringify(r.result), updatedAt: new Date().toISOString() })
-        .where(eq(analyses.id, analysisId))
-        .run();
-  });
+/** Snapshot (catalog, economics, the group's quantities) and the cheap check in a worker, then the run: 202. */
+export function startComparison(deps: Deps, agencyId: string, userId: string, request: StudyRequest) {
+  return runs.startRun(
+    deps,
+    { agencyId, userId },
+    {
+      kind: 'comparison',
+      subjectId: null,
+      snapshot: comparisonSnapshotTask,
+      payload: { agencyId, request },
+      work: comparisonTask,
+    },
+  );
 }
 
-export function saveAnalysis(
-  deps: Deps,
-  agencyId: string,
-  userId: string,
-  name: string,
-  input: StudyInput,
-  result: unknown | null,
-) {
+/** A saved comparison's stored input snapshot, as text. */
+export function savedInput(deps: Pick<Deps, 'db'>, agencyId: string, analysisId: string) {
+  const row = deps.db
+    .select({ input: analyses.input })
+    .from(analyses)
+    .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, analysisId)))
+    .get();
+  if (!row) throw notFound('No such analysis');
+  return row.input;
+}
+
+/** A saved comparison run again from its own snapshot; the saved result is replaced when it finishes. */
+export function rerunAnalysis(deps: Deps, agencyId: string, userId: string, analysisId: string) {
+  savedInput(deps, agencyId, analysisId);
+  return runs.startRun(
+    deps,
+    { agencyId, userId },
+    {
+      kind: 'comparison',
+      subjectId: analysisId,
+      snapshot: comparisonSnapshotTask,
+      payload: { agencyId, analysisId },
+      work: comparisonTask,
+      onDone: (runId) => {
+        const result = runs.resultOf(deps, agencyId, runId)!.toString('utf8');
+        deps.db
+          .update(analyses)
+          .set({ result, updatedAt: new Date().toISOString() })
+          .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, analysisId)))
+          .run();
+      },
+    },
+  );
+}
+
+/** Saves a finished comparison run with exactly the input snapshot it ran on. */
+export function saveAnalysis(deps: Deps, agencyId: string, userId: string, name: string, runId: string) {
+  const run = runs.finishedRun(deps, agencyId, runId, 'comparison');
   const id = newId();
   deps.db.transaction((tx) => {
     tx.insert(analyses)
@@ -141,8 +174,8 @@ export function saveAnalysis(
         agencyId,
         name,
         createdBy: userId,
-        input: JSON.stringify(input),
-        result: result ? JSON.stringify(result) : null,
+        input: run.input.toString('utf8'),
+        result: run.result.toString('utf8'),
       })
       .run();
     recordAudit(tx, { agencyId, userId, action: 'analysis.save', entity: 'analysis', entityId: id, detail: { name } });
@@ -197,6 +230,7 @@ export function deleteAnalysis(deps: Deps, agencyId: string, userId: string, id:
       .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, id)))
       .run();
     if (res.changes !== 1) throw notFound('No such analysis');
+    runs.deleteForSubject(tx, agencyId, id);
     recordAudit(tx, { agencyId, userId, action: 'analysis.delete', entity: 'analysis', entityId: id });
   });
 }

@@ -40,6 +40,18 @@ export function buildOpenApiDocument(routes: RouteDef[]) {
           : { description: r.responseDescription ?? 'OK' },
         400: { description: 'Invalid request; issues name each field', ...error },
         ...(r.access.kind === 'public' ? {} : { 401: { description: 'Not signed in', ...error } }),
+        ...(r.heavy
+          ? {
+              429: {
+                description:
+                  'Too many heavy tasks at once (for you, your agency or the whole server); the message says which. Try again after Retry-After seconds.',
+                headers: {
+                  'Retry-After': { description: 'Seconds to wait before trying again', schema: { type: 'integer' } },
+                },
+                ...error,
+              },
+            }
+          : {}),
         ...(r.access.kind === 'agency'
           ? {
               403: { description: 'Role too low', ...error },

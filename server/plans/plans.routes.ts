@@ -1,7 +1,4 @@
-import loadHighs from 'highs';
 import { z } from 'zod';
-import { type Highs, type Instance, solveExact, solveFast, solveRanking } from '../../shared/engine/plan/optimize';
-import type { PlanResult } from '../../shared/engine/plan/run-plan';
 import { AgencyParamsSchema, OkSchema } from '../../shared/schemas/common';
 import {
   BudgetSearchBodySchema,
@@ -9,22 +6,15 @@ import {
   OptimizeResultSchema,
   PlanBodySchema,
   PlanParamsSchema,
-  PlanRunParamsSchema,
   PlanSummarySchema,
   PublishBodySchema,
 } from '../../shared/schemas/plans';
-import { RunParamsSchema, RunStateSchema } from '../../shared/schemas/lcca';
+import { RunViewSchema } from '../../shared/schemas/runs';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
 import { HttpError } from '../http/errors';
-import { briefPdf } from './brief-pdf';
-import { workListCsv, workListXlsx } from './plans.export';
 import * as service from './plans.service';
-
-let highsPromise: Promise<Highs> | null = null;
-const highs = () => (highsPromise ??= loadHighs() as unknown as Promise<Highs>);
-
-export const MAX_EXACT_STATELESS = 20_000;
+import { briefTask, optimizeTask, workListTask } from './plans.tasks';
 
 export function planRoutes(api: ApiRoutes, deps: Deps) {
   const engineer = { kind: 'agency', role: 'engineer' } as const;
@@ -40,32 +30,10 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     access: { kind: 'signed-in' },
     body: OptimizeBodySchema,
     response: OptimizeResultSchema,
-    handler: async ({ body }) => {
-      const inst: Instance = {
-        budgets: body.budgets,
-        segments: body.segments.map((s) => ({
-          id: s.id,
-          priority: s.priority,
-          options: s.options.map((o) => ({
-            id: o.id,
-            benefit: o.benefit,
-            costs: o.costs ?? [{ year: o.year!, cost: o.cost! }],
-          })),
-        })),
-      };
-      const options = inst.segments.reduce((n, s) => n + s.options.length, 0);
-      if (body.method === 'exact') {
-        if (options > MAX_EXACT_STATELESS)
-          throw new HttpError(
-            400,
-            'invalid_request',
-            `Invalid request: method — the exact method takes at most ${MAX_EXACT_STATELESS} options here; use fast`,
-            [{ path: 'body.method', message: 'too many options for exact' }],
-          );
-        return solveExact(inst, await highs(), { timeLimitSeconds: body.timeLimitSeconds });
-      }
-      return body.method === 'fast' ? solveFast(inst) : solveRanking(inst);
-    },
+    heavy: true,
+    bodyInWorker: true,
+    handler: ({ rawBody, user, signal }) =>
+      deps.pool.run(optimizeTask, rawBody!, { userId: user!.id, agencyId: null }, { signal, transfer: [rawBody!] }),
   });
 
   api.add({
@@ -129,29 +97,14 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     method: 'post',
     path: `${base}/:planId/run`,
     tag: 'Plans',
-    summary: 'Run the plan in a worker; answers 202 with the run id to poll. The run keeps a snapshot of its inputs.',
+    summary:
+      'Run the plan in a worker; answers 202 with the run (poll it at /api/agencies/{agencyId}/runs/{runId}). The run keeps a snapshot of its inputs.',
     access: engineer,
     params: PlanParamsSchema,
+    response: RunViewSchema,
     status: 202,
+    heavy: true,
     handler: ({ agency, user, params }) => service.startRun(deps, agency!.id, user!.id, params.planId),
-  });
-  api.add({
-    method: 'get',
-    path: `${base}/:planId/runs/:runId`,
-    tag: 'Plans',
-    summary: 'Progress and result of a plan run',
-    access: engineer,
-    params: PlanRunParamsSchema,
-    handler: ({ agency, params }) => service.runView(deps, agency!.id, params.planId, params.runId, agency!.role),
-  });
-  api.add({
-    method: 'delete',
-    path: `${base}/:planId/runs/:runId`,
-    tag: 'Plans',
-    summary: 'Cancel a running plan',
-    access: engineer,
-    params: PlanRunParamsSchema,
-    handler: ({ agency, params }) => service.cancelRun(deps, agency!.id, params.planId, params.runId),
   });
   api.add({
     method: 'get',
@@ -160,7 +113,9 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     summary: 'The latest finished result (viewers: published plans only)',
     access: viewer,
     params: PlanParamsSchema,
-    handler: ({ agency, params }) => ({ latest: service.latestResult(deps, agency!.id, params.planId, agency!.role) }),
+    handler: ({ agency, params, res }) => {
+      res.type('application/json').send(service.latestResultJson(deps, agency!.id, params.planId, agency!.role));
+    },
   });
   api.add({
     method: 'post',
@@ -178,23 +133,15 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     path: `${base}/:planId/budget-search`,
     tag: 'Plans',
     summary:
-      'Start the search for the flat annual budget that holds the network at a target PCI; poll the run at /api/agencies/{agencyId}/jobs/{runId}',
+      'Start the search for the flat annual budget that holds the network at a target PCI; answers 202 with the run to poll at /api/agencies/{agencyId}/runs/{runId}',
     access: engineer,
     params: PlanParamsSchema,
     body: BudgetSearchBodySchema,
-    response: RunStateSchema,
+    response: RunViewSchema,
     status: 202,
-    handler: ({ agency, params, body }) => service.startBudgetSearch(deps, agency!.id, params.planId, body.targetPci),
-  });
-  api.add({
-    method: 'get',
-    path: '/api/agencies/:agencyId/jobs/:runId',
-    tag: 'Plans',
-    summary: 'Progress and result of a background job (budget search)',
-    access: engineer,
-    params: RunParamsSchema,
-    response: RunStateSchema,
-    handler: ({ agency, params }) => deps.jobs.get(agency!.id, params.runId),
+    heavy: true,
+    handler: ({ agency, user, params, body }) =>
+      service.startBudgetSearch(deps, agency!.id, user!.id, params.planId, body.targetPci),
   });
   api.add({
     method: 'get',
@@ -205,23 +152,30 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     params: PlanParamsSchema,
     query: z.object({ format: z.enum(['csv', 'xlsx']).default('csv') }),
     responseDescription: 'text/csv or an XLSX workbook',
-    handler: async ({ agency, params, query, res }) => {
+    heavy: true,
+    handler: async ({ agency, user, params, query, res, signal }) => {
       const plan = service.getPlan(deps, agency!.id, params.planId, agency!.role);
-      const latest = service.latestResult(deps, agency!.id, params.planId, agency!.role);
+      const latest = service.latestRun(deps, agency!.id, params.planId, agency!.role);
       if (!latest) throw new HttpError(409, 'not_run', 'Run the plan first');
       const name =
         plan.name
           .toLowerCase()
           .replace(/[^a-z0-9]+/g, '-')
           .slice(0, 60) || 'plan';
+      const body = await deps.pool.run(
+        workListTask,
+        { agencyId: agency!.id, runId: latest.runId, title: plan.name, format: query.format },
+        { userId: user!.id, agencyId: agency!.id },
+        { signal },
+      );
       if (query.format === 'xlsx') {
         res.setHeader('Content-Type', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
         res.setHeader('Content-Disposition', `attachment; filename="${name}-work-list.xlsx"`);
-        res.send(await workListXlsx(latest.result as PlanResult, plan.name));
+        res.send(Buffer.from(body as Uint8Array));
       } else {
         res.setHeader('Content-Type', 'text/csv; charset=utf-8');
         res.setHeader('Content-Disposition', `attachment; filename="${name}-work-list.csv"`);
-        res.send(workListCsv(latest.result as PlanResult));
+        res.send(body);
       }
     },
   });
@@ -234,24 +188,23 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     access: viewer,
     params: PlanParamsSchema,
     responseDescription: 'application/pdf',
-    handler: async ({ agency, params, res, user }) => {
+    heavy: true,
+    handler: async ({ agency, params, res, user, signal }) => {
       const plan = service.getPlan(deps, agency!.id, params.planId, agency!.role);
-      const latest = service.latestResult(deps, agency!.id, params.planId, agency!.role);
+      const latest = service.latestRun(deps, agency!.id, params.planId, agency!.role);
       if (!latest) throw new HttpError(409, 'not_run', 'Run the plan first');
-      const geo = service.segmentGeometries(deps, agency!.id);
-      const pdf = await briefPdf({
-        plan,
-        result: latest.result as PlanResult,
-        geometries: geo,
-        author: user!.name,
-        agencyName: service.agencyName(deps, agency!.id),
-      });
+      const pdf = await deps.pool.run(
+        briefTask,
+        { agencyId: agency!.id, planId: params.planId, runId: latest.runId, author: user!.name },
+        { userId: user!.id, agencyId: agency!.id },
+        { signal },
+      );
       res.setHeader('Content-Type', 'application/pdf');
       res.setHeader(
         'Content-Disposition',
         `inline; filename="${plan.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-brief.pdf"`,
       );
-      res.send(pdf);
+      res.send(Buffer.from(pdf));
     },
   });
 }

@@ -2,7 +2,7 @@ import { and, desc, eq, isNotNull } from 'drizzle-orm';
 import { resolveTreatment } from '../../shared/engine/lcca/costing';
 import { familyKey } from '../../shared/engine/forecast/families';
 import type { PlanSegment, PlanTreatment } from '../../shared/engine/plan/network-plan';
-import { candidates, MAX_EXACT_OPTIONS, type PlanInput } from '../../shared/engine/plan/run-plan';
+import { candidates, MAX_EXACT_OPTIONS, type PlanInput, type PlanResult } from '../../shared/engine/plan/run-plan';
 import { areaSy, laneMiles } from '../../shared/engine/quantities';
 import { budgetsOf, type PlanSettingsInput } from '../../shared/schemas/plans';
 import { agencyById } from '../agencies/agencies.repo';
@@ -10,24 +10,18 @@ import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
 import * as catalogRepo from '../catalog/catalog.repo';
 import type { Deps } from '../deps';
-import { memberships, planRuns, plans, segments, users } from '../db/schema';
+import { memberships, plans, segments, users } from '../db/schema';
 import { curveLookup, families } from '../forecast/forecast.service';
 import { HttpError, notFound } from '../http/errors';
-import type { RunState } from '../jobs/job-runner';
+import * as runs from '../runs/runs.service';
+import { budgetSearchTask, planRunTask, planSnapshotTask } from './plans.tasks';
 
 export const MAX_PLAN_SEGMENTS = 60_000;
-const PLAN_TASK = new URL('../jobs/plan-task.ts', import.meta.url);
 
 type PlanRow = typeof plans.$inferSelect;
 
-function view(deps: Deps, row: PlanRow) {
-  const last = deps.db
-    .select()
-    .from(planRuns)
-    .where(eq(planRuns.planId, row.id))
-    .orderBy(desc(planRuns.startedAt))
-    .limit(1)
-    .get();
+function view(deps: Pick<Deps, 'db'>, row: PlanRow) {
+  const last = runs.latest(deps, row.agencyId, 'plan', row.id);
   return {
     id: row.id,
     name: row.name,
@@ -36,12 +30,14 @@ function view(deps: Deps, row: PlanRow) {
     createdAt: row.createdAt,
     updatedAt: row.updatedAt,
     publishedAt: row.publishedAt,
-    lastRun: last ? { id: last.id, status: last.status, startedAt: last.startedAt, endedAt: last.endedAt } : null,
+    lastRun: last
+      ? { id: last.id, status: last.status, startedAt: last.startedAt ?? last.createdAt, endedAt: last.endedAt }
+      : null,
   };
 }
 
 /** Viewers see published plans only; anything else answers as if it did not exist. */
-function planRow(deps: Deps, agencyId: string, planId: string, role: string) {
+function planRow(deps: Pick<Deps, 'db'>, agencyId: string, planId: string, role: string) {
   const row = deps.db
     .select()
     .from(plans)
@@ -56,7 +52,7 @@ export function listPlans(deps: Deps, agencyId: string, role: string) {
   return { items: rows.filter((r) => role !== 'viewer' || r.status === 'published').map((r) => view(deps, r)) };
 }
 
-export function getPlan(deps: Deps, agencyId: string, planId: string, role: string) {
+export function getPlan(deps: Pick<Deps, 'db'>, agencyId: string, planId: string, role: string) {
   return view(deps, planRow(deps, agencyId, planId, role));
 }
 
@@ -107,6 +103,7 @@ export function updatePlan(
 export function deletePlan(deps: Deps, agencyId: string, userId: string, planId: string) {
   deps.db.transaction((tx) => {
     planRow(deps, agencyId, planId, 'engineer');
+    runs.deleteForSubject(tx, agencyId, planId);
     tx.delete(plans).where(eq(plans.id, planId)).run();
     recordAudit(tx, { agencyId, userId, action: 'plan.delete', entity: 'plan', entityId: planId });
   });
@@ -225,105 +222,40 @@ export function planInput(deps: Deps, agencyId: string, planId: string): PlanInp
   return input;
 }
 
+/** Snapshot and run in a worker (a 4xx of the snapshot answers the request): 202 with the run. */
 export function startRun(deps: Deps, agencyId: string, userId: string, planId: string) {
-  const input = planInput(deps, agencyId, planId);
-  const runId = newId();
-  deps.db.transaction((tx) => {
-    tx.insert(planRuns)
-      .values({ id: runId, planId, agencyId, status: 'running', input: JSON.stringify(input) })
-      .run();
-    recordAudit(tx, {
-      agencyId,
-      userId,
-      action: 'plan.run',
-      entity: 'plan',
-      entityId: planId,
-      detail: { runId, method: input.method },
-    });
-  });
-  const finish = (r: RunState) => {
-    deps.db
-      .update(planRuns)
-      .set({
-        status: r.status,
-        result: r.result ? JSON.stringify(r.result) : null,
-        error: r.error?.message ?? null,
-        endedAt: new Date().toISOString(),
-      })
-      .where(eq(planRuns.id, runId))
-      .run();
-  };
-  try {
-    const job = deps.jobs.start(agencyId, 'plan', PLAN_TASK, { input }, finish);
-    jobOfRun.set(runId, job.id);
-  } catch (err) {
-    deps.db
-      .update(planRuns)
-      .set({ status: 'failed', error: (err as Error).message, endedAt: new Date().toISOString() })
-      .where(eq(planRuns.id, runId))
-      .run();
-    throw err;
-  }
-  return runView(deps, agencyId, planId, runId, 'engineer');
+  planRow(deps, agencyId, planId, 'engineer');
+  return runs.startRun(
+    deps,
+    { agencyId, userId },
+    {
+      kind: 'plan',
+      subjectId: planId,
+      snapshot: planSnapshotTask,
+      payload: { agencyId, planId, userId },
+      work: planRunTask,
+    },
+  );
 }
 
-// Run id → job id, so progress can be read from the worker while it runs.
-const jobOfRun = new Map<string, string>();
-
-export function runView(deps: Deps, agencyId: string, planId: string, runId: string, role: string) {
+/** The latest finished run of the plan, without its result (null when it never finished). */
+export function latestRun(deps: Pick<Deps, 'db'>, agencyId: string, planId: string, role: string) {
   planRow(deps, agencyId, planId, role);
-  const r = deps.db
-    .select()
-    .from(planRuns)
-    .where(and(eq(planRuns.id, runId), eq(planRuns.planId, planId)))
-    .get();
-  if (!r) throw notFound('No such run');
-  let progress = r.status === 'running' ? 0 : 1;
-  const jobId = jobOfRun.get(runId);
-  if (r.status === 'running' && jobId) {
-    try {
-      progress = deps.jobs.get(agencyId, jobId).progress;
-    } catch {
-      progress = 0;
-    }
-  }
-  return {
-    id: r.id,
-    status: r.status,
-    progress,
-    startedAt: r.startedAt,
-    endedAt: r.endedAt,
-    error: r.error,
-    result: r.result ? JSON.parse(r.result) : null,
-  };
+  const r = runs.latestDone(deps, agencyId, 'plan', planId);
+  return r ? { runId: r.id, endedAt: r.endedAt } : null;
 }
 
-export function latestResult(deps: Deps, agencyId: string, planId: string, role: string) {
-  planRow(deps, agencyId, planId, role);
-  const r = deps.db
-    .select()
-    .from(planRuns)
-    .where(and(eq(planRuns.planId, planId), eq(planRuns.status, 'done')))
-    .orderBy(desc(planRuns.startedAt))
-    .limit(1)
-    .get();
-  return r ? { runId: r.id, endedAt: r.endedAt, result: JSON.parse(r.result!) } : null;
+/** `{ latest: { runId, endedAt, result } | null }` as JSON bytes, the stored result copied in unparsed. */
+export function latestResultJson(deps: Deps, agencyId: string, planId: string, role: string) {
+  const latest = latestRun(deps, agencyId, planId, role);
+  if (!latest) return Buffer.from('{"latest":null}');
+  const inner = runs.withResult(latest, runs.resultOf(deps, agencyId, latest.runId));
+  return Buffer.concat([Buffer.from('{"latest":'), inner, Buffer.from('}')]);
 }
 
-export function cancelRun(deps: Deps, agencyId: string, planId: string, runId: string) {
-  const v = runView(deps, agencyId, planId, runId, 'engineer');
-  const jobId = jobOfRun.get(runId);
-  if (v.status === 'running' && jobId) deps.jobs.cancel(agencyId, jobId);
-  return runView(deps, agencyId, planId, runId, 'engineer');
-}
-
-/** After a crash or restart no worker is left: runs still marked running did not finish. */
-export function failInterruptedRuns(deps: Deps) {
-  return deps.db
-    .update(planRuns)
-    .set({ status: 'failed', error: 'interrupted by a server restart', endedAt: new Date().toISOString() })
-    .where(eq(planRuns.status, 'running'))
-    .run().changes;
+/** The result of one finished plan run, parsed: for the brief and the work list, which are built in workers. */
+export function runResult(deps: Pick<Deps, 'db'>, agencyId: string, runId: string): PlanResult {
+  return JSON.parse(runs.finishedRun(deps, agencyId, runId, 'plan').result.toString('utf8')) as PlanResult;
 }
 
 export async function publish(
@@ -335,7 +267,7 @@ export async function publish(
   notify: boolean,
 ) {
   const row = planRow(deps, agencyId, planId, 'engineer');
-  if (publishIt && !latestResult(deps, agencyId, planId, 'engineer'))
+  if (publishIt && !latestRun(deps, agencyId, planId, 'engineer'))
     throw new HttpError(409, 'not_run', 'Run the plan before publishing it');
   deps.db.transaction((tx) => {
     tx.update(plans)
@@ -374,12 +306,23 @@ export async function publish(
   return { ...getPlan(deps, agencyId, planId, 'engineer'), notified };
 }
 
-export function startBudgetSearch(deps: Deps, agencyId: string, planId: string, targetPci: number) {
-  const input = planInput(deps, agencyId, planId);
-  return deps.jobs.start(agencyId, 'budget-search', PLAN_TASK, { input, targetPci });
+/** The flat budget that holds a target PCI: a run of its own, on the plan's snapshot. */
+export function startBudgetSearch(deps: Deps, agencyId: string, userId: string, planId: string, targetPci: number) {
+  planRow(deps, agencyId, planId, 'engineer');
+  return runs.startRun(
+    deps,
+    { agencyId, userId },
+    {
+      kind: 'budget-search',
+      subjectId: planId,
+      snapshot: planSnapshotTask,
+      payload: { agencyId, planId, userId, targetPci },
+      work: budgetSearchTask,
+    },
+  );
 }
 
-export function segmentGeometries(deps: Deps, agencyId: string) {
+export function segmentGeometries(deps: Pick<Deps, 'db'>, agencyId: string) {
   const rows = deps.db
     .select({ ref: segments.id, geometry: segments.geometry })
     .from(segments)
@@ -390,4 +333,4 @@ export function segmentGeometries(deps: Deps, agencyId: string) {
   );
 }
 
-export const agencyName = (deps: Deps, agencyId: string) => agencyById(deps.db, agencyId)!.name;
+export const agencyName = (deps: Pick<Deps, 'db'>, agencyId: string) => agencyById(deps.db, agencyId)!.name;

@@ -11,10 +11,9 @@ import {
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
 import { z } from 'zod';
-import { agencyById } from '../agencies/agencies.repo';
-import { allSegments, segmentsGeoJson } from './segments.repo';
-import { segmentsCsv, segmentsXlsx } from './segments.export';
+import { segmentsGeoJson } from './segments.repo';
 import * as service from './segments.service';
+import { segmentsExportTask } from './segments.tasks';
 
 const FilterQuerySchema = SegmentListQuerySchema.omit({ limit: true, offset: true });
 
@@ -105,18 +104,24 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
     params: AgencyParamsSchema,
     query: FilterQuerySchema.extend({ format: z.enum(['csv', 'xlsx']).default('csv') }),
     responseDescription: 'text/csv or an XLSX workbook',
-    handler: async ({ agency, query, res }) => {
-      const rows = allSegments(deps.db, agency!.id, { ...query, limit: 0, offset: 0 });
-      const name = agencyById(deps.db, agency!.id)!.name;
-      const base = `${name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-segments`;
-      if (query.format === 'xlsx') {
+    heavy: true,
+    handler: async ({ agency, user, query, res, signal }) => {
+      const { format, ...filter } = query;
+      const out = await deps.pool.run(
+        segmentsExportTask,
+        { agencyId: agency!.id, query: filter, format },
+        { userId: user!.id, agencyId: agency!.id },
+        { signal },
+      );
+      const base = `${out.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-segments`;
+      if (format === 'xlsx') {
         res.setHeader('Content-Type', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
         res.setHeader('Content-Disposition', `attachment; filename="${base}.xlsx"`);
-        res.send(await segmentsXlsx(rows, name));
+        res.send(Buffer.from(out.body as Uint8Array));
       } else {
         res.setHeader('Content-Type', 'text/csv; charset=utf-8');
         res.setHeader('Content-Disposition', `attachment; filename="${base}.csv"`);
-        res.send(segmentsCsv(rows));
+        res.send(out.body);
       }
     },
   });

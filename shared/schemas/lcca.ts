@@ -198,23 +198,10 @@ export const StudyRequestSchema = z.object({
 });
 export type StudyRequest = z.infer<typeof StudyRequestSchema>;
 
-export const RunParamsSchema = z.object({ agencyId: z.string().min(1).max(64), runId: z.string().min(1).max(64) });
 export const AnalysisParamsSchema = z.object({
   agencyId: z.string().min(1).max(64),
   analysisId: z.string().min(1).max(64),
 });
-
-export const RunStateSchema = z.object({
-  id: z.string(),
-  kind: z.string(),
-  status: z.enum(['running', 'done', 'failed', 'cancelled']),
-  progress: z.number(),
-  result: z.unknown().optional(),
-  error: z.object({ message: z.string(), path: z.string().optional() }).optional(),
-  startedAt: z.string(),
-  endedAt: z.string().optional(),
-});
-export type RunStateView = z.infer<typeof RunStateSchema>;
 
 export const SaveAnalysisBodySchema = z.object({
   name: z.string().trim().min(1).max(120),

@@ -54,11 +54,6 @@ export const PlanSummarySchema = z.object({
 });
 
 export const PlanParamsSchema = z.object({ agencyId: z.string().min(1).max(64), planId: z.string().min(1).max(64) });
-export const PlanRunParamsSchema = z.object({
-  agencyId: z.string().min(1).max(64),
-  planId: z.string().min(1).max(64),
-  runId: z.string().min(1).max(64),
-});
 
 export const PublishBodySchema = z.object({ publish: z.boolean(), notifyViewers: z.boolean().default(false) });
 export const BudgetSearchBodySchema = z.object({ targetPci: z.number().min(1).max(100) });

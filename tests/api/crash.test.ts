@@ -45,7 +45,10 @@ const inspect = () => {
     synthetic: (db.prepare("SELECT count(*) AS n FROM segments WHERE segment_id LIKE 'SYN-%'").get() as { n: number })
       .n,
     imports: (db.prepare('SELECT count(*) AS n FROM imports').get() as { n: number }).n,
-    runs: db.prepare('SELECT status, error FROM plan_runs').all() as { status: string; error: string | null }[],
+    runs: db.prepare("SELECT status, error FROM runs WHERE kind = 'plan'").all() as {
+      status: string;
+      error: string | null;
+    }[],
     agencies: (db.prepare('SELECT count(*) AS n FROM agencies').get() as { n: number }).n,
     strays: (
       db
@@ -113,10 +116,21 @@ describe('crash safety (SIGKILL)', () => {
     url = await start();
     const after = inspect();
     expect(after.integrity).toBe('ok');
-    expect(after.runs).toEqual([{ status: 'failed', error: 'interrupted by a server restart' }]);
+    expect(after.runs).toEqual([
+      { status: 'failed', error: JSON.stringify({ message: 'interrupted by a server restart — run it again' }) },
+    ]);
     expect(await (await fetch(`${url}/api/health`)).json()).toEqual({ ok: true });
-    // And the plan can run again to the end.
+    // Polling the cut-off run says so (not a 404).
     const again = await signIn(url);
+    const polled = await fetch(`${url}/api/agencies/${agencyId}/runs/${((await run.json()) as { id: string }).id}`, {
+      headers: { Cookie: again.cookie },
+    });
+    expect(polled.status).toBe(200);
+    expect(await polled.json()).toMatchObject({
+      status: 'failed',
+      error: { message: 'interrupted by a server restart — run it again' },
+    });
+    // And the plan can run again.
     const r2 = await fetch(`${url}/api/agencies/${agencyId}/plans/${plan.id}/run`, {
       method: 'POST',
       headers: { ...headers, Cookie: again.cookie, Origin: url },

@@ -204,7 +204,7 @@ describe('catalog-based comparisons', () => {
     const start = await eng.post(`/api/agencies/${t.ids.brannock}/analyses/runs`).send(request());
     expect(start.status).toBe(202);
     expect(start.body.status).toBe('running');
-    const done = await poll(`/api/agencies/${t.ids.brannock}/analyses/runs/${start.body.id}`);
+    const done = await poll(`/api/agencies/${t.ids.brannock}/runs/${start.body.id}`);
     expect(done.body.status).toBe('done');
     const r = done.body.result;
     expect(r.alternatives).toHaveLength(3);
@@ -234,7 +234,7 @@ describe('catalog-based comparisons', () => {
     await admin.put(`/api/agencies/${t.ids.brannock}/catalog/mixes/${id}`).send({ ...input, pricePerTon: 120 });
     const rerun = await eng.post(`/api/agencies/${t.ids.brannock}/analyses/${saved.body.id}/rerun`);
     expect(rerun.status).toBe(202);
-    const again = await poll(`/api/agencies/${t.ids.brannock}/analyses/runs/${rerun.body.id}`);
+    const again = await poll(`/api/agencies/${t.ids.brannock}/runs/${rerun.body.id}`);
     expect(again.body.result).toEqual(r);
 
     const csv = await eng.get(`/api/agencies/${t.ids.brannock}/analyses/${saved.body.id}/export?format=csv`);
@@ -289,7 +289,7 @@ describe('catalog-based comparisons', () => {
 
     const big = { ...request(), risk: { iterations: 20_000, seed: 1 } };
     const start = await eng.post(`/api/agencies/${t.ids.brannock}/analyses/runs`).send(big);
-    const cancelled = await eng.delete(`/api/agencies/${t.ids.brannock}/analyses/runs/${start.body.id}`);
+    const cancelled = await eng.post(`/api/agencies/${t.ids.brannock}/runs/${start.body.id}/cancel`);
     expect(['cancelled', 'done']).toContain(cancelled.body.status);
   });
 

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { syntheticOptimizeBody } from '../../bench/synthetic-network';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
 let t: TestApp;
@@ -24,7 +25,7 @@ async function runToEnd(planId: string) {
   const start = await eng.post(`${base}/${planId}/run`);
   expect(start.status).toBe(202);
   for (let i = 0; i < 300; i++) {
-    const r = await eng.get(`${base}/${planId}/runs/${start.body.id}`);
+    const r = await eng.get(`/api/agencies/${t.ids.brannock}/runs/${start.body.id}`);
     if (r.body.status !== 'running') return r.body;
     await new Promise((res) => setTimeout(res, 100));
   }
@@ -219,5 +220,16 @@ describe('POST /api/plan/optimize', () => {
       .send({ budgets: [10], segments: [{ id: 'A', options: [{ id: 'a', year: 3, cost: 1, benefit: 1 }] }] });
     expect(late.status).toBe(400);
     expect(late.body.error.issues[0].path).toBe('body.segments.0.options.0');
+  });
+
+  it('the exact method takes at most 20,000 options (checked in the worker, naming the field)', async () => {
+    const over = syntheticOptimizeBody(2001, 10, 10, 1);
+    const res = await eng.post('/api/plan/optimize').send(over);
+    expect(res.status).toBe(400);
+    expect(res.body.error.issues).toEqual([{ path: 'body.method', message: 'too many options for exact' }]);
+    expect(res.body.error.message).toMatch(/at most 20,000 options/);
+    const bad = await eng.post('/api/plan/optimize').set('Content-Type', 'application/json').send('{"budgets": [1,');
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.message).toBe('The request body is not valid JSON');
   });
 });

@@ -29,6 +29,13 @@ describe('budget plan, end to end', () => {
       );
       for (const id of ['pci-by-year', 'bands-by-year', 'backlog-by-year']) await page.getByTestId(id).waitFor();
       expect(await page.getByTestId('work-list').locator('tbody tr').count()).toBeGreaterThan(5);
+      // Find the budget: a run of its own, polled at the same runs endpoint as the plan run.
+      await page.getByLabel('Target PCI').fill('65');
+      await page.getByRole('button', { name: 'Find', exact: true }).click();
+      await page.getByTestId('budget-search').waitFor({ timeout: 120_000 });
+      expect(await page.getByTestId('budget-search').textContent()).toMatch(
+        /About \$[\d,.]+[MK]? a year reaches PCI 65|PCI 65 is out of reach/,
+      );
       // The map colours planned work: rendered features with a planned year exist.
       await page.waitForFunction(
         () => {

@@ -5,8 +5,12 @@ import { type ChildProcess, spawn } from 'node:child_process';
 
 export type ServerProcess = { child: ChildProcess; url: string };
 
-export function startServerProcess(env: Record<string, string>, timeoutMs = 120_000): Promise<ServerProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+export function startServerProcess(
+  env: Record<string, string>,
+  timeoutMs = 120_000,
+  nodeArgs: string[] = [],
+): Promise<ServerProcess> {
+  const child = spawn(process.execPath, ['--import', 'tsx', ...nodeArgs, 'server/index.ts'], {
     env: { ...process.env, NODE_ENV: 'development', PORT: '0', MAIL_CATCHER_PORT: '0', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
   });

@@ -8,30 +8,42 @@ import request from 'supertest';
 import { createApp } from '../../server/app';
 import { DEMO_PASSWORD } from '../../server/auth/passwords';
 import { loadConfig, type AppConfig } from '../../server/config';
-import { openDb } from '../../server/db/client';
+import { createDeps } from '../../server/create-deps';
 import { agencies, caughtMail } from '../../server/db/schema';
-import type { Deps } from '../../server/deps';
-import { startMailCatcher } from '../../server/mail/catcher';
-import { JobRunner } from '../../server/jobs/job-runner';
-import { ListCache } from '../../server/segments/list-cache';
-import { createMailer } from '../../server/mail/mailer';
-import { seedDemo } from '../../server/seed/seed';
+import { hasAnyAgency, seedDemo } from '../../server/seed/seed';
 
 export const APP_URL = 'http://localhost:3999';
 
 export type TestApp = Awaited<ReturnType<typeof createTestApp>>;
 
-export async function createTestApp(overrides: Partial<AppConfig> = {}, opts: { seed?: boolean } = {}) {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wearcourse-test-'));
+/**
+ * opts.databasePath: use this file and leave it in place (the caller removes it); opening it a second time
+ * is a restart — the demo is seeded only into an empty file.
+ */
+export async function createTestApp(
+  overrides: Partial<AppConfig> = {},
+  opts: { seed?: boolean; databasePath?: string } = {},
+) {
+  const dir = opts.databasePath ? null : fs.mkdtempSync(path.join(os.tmpdir(), 'wearcourse-test-'));
   const config: AppConfig = {
-    ...loadConfig({ NODE_ENV: 'test', APP_URL, DATABASE_PATH: path.join(dir, 'test.db') }),
+    ...loadConfig({
+      NODE_ENV: 'test',
+      APP_URL,
+      DATABASE_PATH: opts.databasePath ?? path.join(dir!, 'test.db'),
+      MAIL_CATCHER_PORT: '0',
+    }),
     ...overrides,
   };
-  const { db, sqlite } = openDb(config.databasePath);
-  const ids = opts.seed === false ? { brannock: '', marlow: '' } : await seedDemo(db);
-  const catcher = await startMailCatcher(db, 0, false);
-  const mailer = createMailer({ catcherPort: catcher.port, from: config.mailFrom });
-  const deps: Deps = { db, sqlite, config, mailer, jobs: new JobRunner(), listCache: new ListCache() };
+  const built = await createDeps(config, { logMail: false });
+  const { deps } = built;
+  const { db, sqlite } = deps;
+  const byName = (name: string) => db.select().from(agencies).where(eq(agencies.name, name)).get()?.id ?? '';
+  const ids =
+    opts.seed === false
+      ? { brannock: '', marlow: '' }
+      : hasAnyAgency(db)
+        ? { brannock: byName('Brannock County'), marlow: byName('City of Marlow') }
+        : await seedDemo(db);
   const { app, routes } = createApp(deps);
 
   /** A signed-in client that sends the Origin header like a browser would. */
@@ -61,16 +73,27 @@ export async function createTestApp(overrides: Partial<AppConfig> = {}, opts: { 
   }
 
   async function close() {
-    await deps.jobs.close();
-    await catcher.close();
-    mailer.close();
-    sqlite.close();
-    fs.rmSync(dir, { recursive: true, force: true });
+    await built.close();
+    if (dir) fs.rmSync(dir, { recursive: true, force: true });
   }
 
   const agencyIdByName = (name: string) => db.select().from(agencies).where(eq(agencies.name, name)).get()!.id;
 
-  return { app, routes, deps, db, sqlite, config, ids, as, anonymous, lastMailTo, close, agencyIdByName };
+  return {
+    app,
+    routes,
+    deps,
+    db,
+    sqlite,
+    config,
+    ids,
+    as,
+    anonymous,
+    lastMailTo,
+    close,
+    agencyIdByName,
+    interruptedRuns: built.interruptedRuns,
+  };
 }
 
 export function tokenFrom(text: string, kind: 'invite' | 'reset-password') {

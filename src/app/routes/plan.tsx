@@ -13,8 +13,7 @@ import { useCatalog } from '@/features/catalog/api/get-catalog';
 import { useSegmentsGeoJson } from '@/features/map/api/get-segments-geojson';
 import { LazyNetworkMap } from '@/features/map/components/lazy-network-map';
 import {
-  useCancelPlanRun,
-  useJob,
+  useBudgetSearch,
   usePlan,
   usePlanResult,
   usePlanRun,
@@ -394,7 +393,7 @@ function BudgetSearchCard({ agencyId, planId }: { agencyId: string; planId: stri
   const [target, setTarget] = useState('70');
   const [jobId, setJobId] = useState<string | null>(null);
   const start = useStartBudgetSearch(agencyId, planId);
-  const job = useJob(agencyId, jobId);
+  const job = useBudgetSearch(agencyId, jobId);
   const res = job.data?.status === 'done' ? job.data.result : undefined;
   return (
     <Card title="Find the budget">
@@ -420,6 +419,11 @@ function BudgetSearchCard({ agencyId, planId }: { agencyId: string; planId: stri
           {job.data?.status === 'running' ? `Searching… ${Math.round(job.data.progress * 100)} %` : 'Find'}
         </Button>
       </div>
+      {job.data?.status === 'failed' && (
+        <p role="alert" className="mt-2 text-sm text-band-failed">
+          {job.data.error?.message}
+        </p>
+      )}
       {res && (
         <div className="mt-3" data-testid="budget-search">
           <p className="text-sm font-semibold">
@@ -444,11 +448,10 @@ export function PlanPage() {
   const plan = usePlan(agencyId, planId);
   const latest = usePlanResult(agencyId, planId);
   const runPlan = useRunPlan(agencyId, planId);
-  const cancel = useCancelPlanRun(agencyId, planId);
   const publish = usePublishPlan(agencyId, planId);
   const qc = useQueryClient();
   const [runId, setRunId] = useState<string | null>(null);
-  const run = usePlanRun(agencyId, planId, runId);
+  const run = usePlanRun(agencyId, runId);
   const [notify, setNotify] = useState(true);
   const canEdit = membership?.role !== 'viewer';
   useEffect(() => {
@@ -522,14 +525,14 @@ export function PlanPage() {
                 >
                   <div className="h-full bg-accent" style={{ width: `${Math.round(run.data.progress * 100)}%` }} />
                 </div>
-                <Button variant="ghost" onClick={() => cancel.mutate(run.data!.id)}>
+                <Button variant="ghost" onClick={run.cancel}>
                   Cancel
                 </Button>
               </>
             )}
             {run.data?.status === 'failed' && (
               <span role="alert" className="text-sm text-band-failed">
-                {run.data.error}
+                {run.data.error?.message}
               </span>
             )}
             {run.data?.status === 'cancelled' && <span className="text-sm text-asphalt-muted">Cancelled.</span>}

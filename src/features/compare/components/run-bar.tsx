@@ -1,10 +1,8 @@
 import { Button } from '@/components/ui/button';
-import { useCancelStudy } from '../api/study-runs';
 import type { ComparePage } from '../hooks/use-compare-page';
 
 /** Compare, its progress while the worker runs, cancel, and how a run ended. */
-export function RunBar({ page, agencyId }: { page: ComparePage; agencyId: string }) {
-  const cancel = useCancelStudy(agencyId);
+export function RunBar({ page }: { page: ComparePage; agencyId: string }) {
   const run = page.run.data;
   return (
     <div className="flex items-center gap-3">
@@ -21,7 +19,7 @@ export function RunBar({ page, agencyId }: { page: ComparePage; agencyId: string
           >
             <div className="h-full bg-accent" style={{ width: `${Math.round(run.progress * 100)}%` }} />
           </div>
-          <Button variant="ghost" onClick={() => cancel.mutate(run.id)}>
+          <Button variant="ghost" onClick={page.run.cancel}>
             Cancel
           </Button>
         </>

@@ -2,6 +2,7 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import type { PlanResult } from '@shared/engine/plan/run-plan';
 import type { PlanSettingsInput } from '@shared/schemas/plans';
 import { api } from '@/lib/api-client';
+import { type Run, useRun } from '@/features/runs/api/use-run';
 
 export type PlanSummary = {
   id: string;
@@ -13,13 +14,7 @@ export type PlanSummary = {
   publishedAt: string | null;
   lastRun: { id: string; status: string; startedAt: string; endedAt: string | null } | null;
 };
-export type PlanRun = {
-  id: string;
-  status: 'running' | 'done' | 'failed' | 'cancelled';
-  progress: number;
-  error: string | null;
-  result: PlanResult | null;
-};
+export type PlanRun = Run<PlanResult>;
 
 const base = (agencyId: string) => `/api/agencies/${agencyId}/plans`;
 
@@ -44,15 +39,8 @@ export const planResultQueryOptions = (agencyId: string, planId: string) =>
   });
 export const usePlanResult = (agencyId: string, planId: string) => useQuery(planResultQueryOptions(agencyId, planId));
 
-export const planRunQueryOptions = (agencyId: string, planId: string, runId: string | null) =>
-  queryOptions({
-    queryKey: ['plans', agencyId, 'run', planId, runId],
-    queryFn: () => api<PlanRun>(`${base(agencyId)}/${planId}/runs/${runId}`),
-    enabled: !!runId,
-    refetchInterval: (q) => (!q.state.data || q.state.data.status === 'running' ? 400 : false),
-  });
-export const usePlanRun = (agencyId: string, planId: string, runId: string | null) =>
-  useQuery(planRunQueryOptions(agencyId, planId, runId));
+/** A plan run: polled, with progress, result and cancel (the runs hook, typed). */
+export const usePlanRun = (agencyId: string, runId: string | null) => useRun<PlanResult>(agencyId, runId);
 
 function useInvalidatePlans(agencyId: string) {
   const qc = useQueryClient();
@@ -77,13 +65,6 @@ export function useUpdatePlan(agencyId: string, planId: string) {
 }
 export function useRunPlan(agencyId: string, planId: string) {
   return useMutation({ mutationFn: () => api<PlanRun>(`${base(agencyId)}/${planId}/run`, { method: 'POST' }) });
-}
-export function useCancelPlanRun(agencyId: string, planId: string) {
-  const inv = useInvalidatePlans(agencyId);
-  return useMutation({
-    mutationFn: (runId: string) => api<PlanRun>(`${base(agencyId)}/${planId}/runs/${runId}`, { method: 'DELETE' }),
-    onSuccess: inv,
-  });
 }
 export function usePublishPlan(agencyId: string, planId: string) {
   const inv = useInvalidatePlans(agencyId);
@@ -110,16 +91,7 @@ export type BudgetSearch = {
 export const useStartBudgetSearch = (agencyId: string, planId: string) =>
   useMutation({
     mutationFn: (targetPci: number) =>
-      api<{ id: string }>(`${base(agencyId)}/${planId}/budget-search`, { method: 'POST', json: { targetPci } }),
+      api<Run<BudgetSearch>>(`${base(agencyId)}/${planId}/budget-search`, { method: 'POST', json: { targetPci } }),
   });
-export const jobQueryOptions = (agencyId: string, jobId: string | null) =>
-  queryOptions({
-    queryKey: ['jobs', agencyId, jobId],
-    queryFn: () =>
-      api<{ id: string; status: string; progress: number; result?: BudgetSearch; error?: { message: string } }>(
-        `/api/agencies/${agencyId}/jobs/${jobId}`,
-      ),
-    enabled: !!jobId,
-    refetchInterval: (q) => (!q.state.data || q.state.data.status === 'running' ? 400 : false),
-  });
-export const useJob = (agencyId: string, jobId: string | null) => useQuery(jobQueryOptions(agencyId, jobId));
+/** A budget search run (the runs hook, typed). */
+export const useBudgetSearch = (agencyId: string, runId: string | null) => useRun<BudgetSearch>(agencyId, runId);
