@@ -30,7 +30,7 @@ describe('names in the brief', () => {
     });
     const start = await eng.post(`${base}/${plan.body.id}/run`);
     for (let i = 0; i < 300; i++) {
-      const r = await eng.get(`${base}/${plan.body.id}/runs/${start.body.id}`);
+      const r = await eng.get(`/api/agencies/${t.ids.marlow}/runs/${start.body.id}`);
       if (r.body.status !== 'running') break;
       await new Promise((res) => setTimeout(res, 100));
     }

@@ -117,10 +117,13 @@ describe('the map stays drawn while the user selects', () => {
       expect(run.status()).toBe(202);
       const runId = (await run.json()).id as string;
       await expect
-        .poll(async () => (await (await page.request.get(`${base}/${planId}/runs/${runId}`)).json()).status, {
-          timeout: 120_000,
-          interval: 1000,
-        })
+        .poll(
+          async () => (await (await page.request.get(`${h.url}/api/agencies/${agencyId}/runs/${runId}`)).json()).status,
+          {
+            timeout: 120_000,
+            interval: 1000,
+          },
+        )
         .toBe('done');
 
       await page.goto(`${h.url}/a/${agencyId}/plans/${planId}`);

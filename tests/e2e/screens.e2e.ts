@@ -51,7 +51,7 @@ async function planId(page: Page, base: string) {
   const id = (await plan.json()).id as string;
   const run = (await (await page.request.post(`${api}/${id}/run`, { headers })).json()).id as string;
   await expect
-    .poll(async () => (await (await page.request.get(`${api}/${id}/runs/${run}`)).json()).status, {
+    .poll(async () => (await (await page.request.get(`${api.replace(/\/plans$/, '')}/runs/${run}`)).json()).status, {
       timeout: 120_000,
       interval: 1000,
     })
