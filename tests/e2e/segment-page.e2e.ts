@@ -53,7 +53,7 @@ describe('segment page: surveys, treatments and attributes through the UI', () =
       await expect.poll(() => firstSurvey.textContent(), SLOW).toBe(`${today}4Windshield check`);
       await expect
         .poll(() => attribute(page, 'Latest PCI').textContent())
-        .toMatch(new RegExp(`^4 \\(Failed;.*on ${today}$`));
+        .toMatch(new RegExp(`^4 \\(Broken up;.*on ${today}$`));
 
       // 2. A treatment from the catalog, with a cost.
       await page.getByRole('button', { name: 'Record a treatment' }).click();
