@@ -3,7 +3,6 @@
 import type { ImportIssue, ImportOptions, ImportReport } from '../../shared/schemas/imports';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
-import type { Deps } from '../deps';
 import { imports } from '../db/schema';
 import {
   fitVertices,
@@ -15,7 +14,7 @@ import {
   reproject,
   to2d,
 } from './geometry';
-import { type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
+import { type ImportDeps, type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
 import * as repo from './imports.repo';
 import { normalizeSegmentRow, type ReadOptions, type UnknownValues } from './normalize';
 import { plausibilityWarnings } from './plausibility';
@@ -74,7 +73,7 @@ function lineOf(
 }
 
 export async function importSegments(
-  deps: Deps,
+  deps: ImportDeps,
   agencyId: string,
   userId: string,
   fileName: string,
@@ -156,6 +155,8 @@ export async function importSegments(
   if (opts.dryRun) return { status: 200, report };
 
   const importId = newId();
+  // Built before the transaction opens: the transaction only writes.
+  const rejectedCsv = errors.length ? rejectedRowsCsv(table, errors) : null;
   const now = new Date().toISOString();
   deps.db.transaction((tx) => {
     const write = repo.segmentWriter(deps.sqlite, agencyId);
@@ -201,7 +202,7 @@ export async function importSegments(
         updated: report.updated,
         unchanged: report.unchanged,
         rejected: report.rejected,
-        rejectedCsv: errors.length ? rejectedRowsCsv(table, errors) : null,
+        rejectedCsv,
       })
       .run();
     if (opts.saveMapping) {
