@@ -36,7 +36,13 @@ export type RestoreReport = {
   analysesToRerun: number;
 };
 
-export async function restoreAgency(deps: Deps, userId: string, buf: Buffer, name?: string): Promise<RestoreReport> {
+/** In the pool's worker, `db` is the worker's writable connection and the route bumps the list cache. */
+export async function restoreAgency(
+  deps: Pick<Deps, 'db'> & Partial<Pick<Deps, 'listCache'>>,
+  userId: string,
+  buf: Buffer,
+  name?: string,
+): Promise<RestoreReport> {
   const archive = await readArchive(buf);
   const { data, issues } = validateArchive(archive);
   if (issues.length) throw badArchive(issues);
