@@ -18,7 +18,13 @@ export type ImportResult = { status: 200 | 422; report: ImportReport };
  * What an import needs: a database it may write. In the pool's worker that is the worker's own writable
  * connection (`ctx.writer()`), and the list cache is bumped by the route on the request thread.
  */
-export type ImportDeps = { db: Db; sqlite: Sqlite; listCache?: { bump(agencyId: string): void } };
+export type ImportDeps = {
+  db: Db;
+  sqlite: Sqlite;
+  listCache?: { bump(agencyId: string): void };
+  /** 0 to 1: 0.5 once every row is checked and the write begins, then along the write. */
+  progress?: (fraction: number) => void;
+};
 
 /** A cell kept in the rejected-rows file is cut here: the file is for fixing rows, not for storing 20 MB cells. */
 export const MAX_KEPT_CELL_CHARS = 100_000;

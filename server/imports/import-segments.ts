@@ -160,7 +160,9 @@ export async function importSegments(
   const now = new Date().toISOString();
   deps.db.transaction((tx) => {
     const write = repo.segmentWriter(deps.sqlite, agencyId);
-    for (const p of planned) {
+    deps.progress?.(0.5);
+    for (const [i, p] of planned.entries()) {
+      if (i % 1000 === 0) deps.progress?.(0.5 + (0.5 * i) / planned.length);
       const s = p.a.seg;
       let id = p.id;
       if (p.kind === 'add') {

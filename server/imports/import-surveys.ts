@@ -74,7 +74,9 @@ export async function importSurveys(
   // Built before the transaction opens: the transaction only writes.
   const rejectedCsv = errors.length ? rejectedRowsCsv(table, errors) : null;
   deps.db.transaction((tx) => {
-    for (const a of accepted) {
+    deps.progress?.(0.5);
+    for (const [i, a] of accepted.entries()) {
+      if (i % 1000 === 0) deps.progress?.(0.5 + (0.5 * i) / accepted.length);
       if (a.kind !== 'same')
         repo.upsertSurvey(
           tx,
