@@ -19,5 +19,11 @@ export default defineTask(async (p: ImportTaskInput, ctx) => {
   const db = ctx.writer();
   const buffer = Buffer.from(p.bytes.buffer, p.bytes.byteOffset, p.bytes.byteLength);
   // listCache is left out: it lives on the request thread, and the route bumps it.
-  return runImport({ db, sqlite: db.$client, progress: ctx.progress }, p.agencyId, p.userId, { name: p.name, buffer }, p.options);
+  return runImport(
+    { db, sqlite: db.$client, progress: ctx.progress },
+    p.agencyId,
+    p.userId,
+    { name: p.name, buffer },
+    p.options,
+  );
 });
