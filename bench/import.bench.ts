@@ -1,5 +1,7 @@
-// Import of a generated 50,000-row CSV end to end (HTTP upload → parse →
-// validate → one transaction), beside a bare better-sqlite3 insert loop of the same rows.
+// Import of a generated 50,000-row CSV end to end (HTTP upload → the worker pool: parse → validate → one
+// transaction on the worker's connection), beside a bare better-sqlite3 insert loop of the same rows. Also:
+// the longest the write lock was held at a stretch (what a request-thread write would have waited), and
+// the request thread's longest event-loop stall during the import (it should only move bytes).
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -11,6 +13,7 @@ import { loadConfig } from '../server/config';
 import { createDeps } from '../server/create-deps';
 import { seedDemo } from '../server/seed/seed';
 import { syntheticCsv } from './synthetic-network';
+import { probeWriteLock } from './write-lock-probe';
 
 const N = Number(process.env.BENCH_ROWS ?? 50_000);
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wearcourse-bench-'));
@@ -32,26 +35,52 @@ await agent
   .set('Origin', 'http://localhost:1')
   .send({ email: 'engineer@marlow.example', password: 'wearcourse-demo' });
 
+/** The longest the request thread (this process's event loop) went without a 5 ms timer firing. */
+function loopStalls() {
+  let last = performance.now();
+  let longest = 0;
+  const timer = setInterval(() => {
+    const now = performance.now();
+    longest = Math.max(longest, now - last - 5);
+    last = now;
+  }, 5);
+  return () => {
+    clearInterval(timer);
+    return longest;
+  };
+}
+
 global.gc?.();
 const heap0 = process.memoryUsage().rss;
+let stopLock = probeWriteLock(config.databasePath);
+let stopLoop = loopStalls();
 let t = performance.now();
 const res = await agent
   .post(`/api/agencies/${ids.marlow}/imports`)
   .set('Origin', 'http://localhost:1')
   .attach('file', Buffer.from(csv), 'synthetic.csv');
 const importMs = performance.now() - t;
+const lockMs = stopLock();
+const loopMs = stopLoop();
 if (res.status !== 200) throw new Error(`import failed: ${res.status} ${JSON.stringify(res.body).slice(0, 300)}`);
 console.log(
   `Wearcourse import, end to end: ${importMs.toFixed(0)} ms (${(N / (importMs / 1000)).toFixed(0)} rows/s), added ${res.body.added}; RSS grew ${((process.memoryUsage().rss - heap0) / 1024 / 1024).toFixed(0)} MB`,
 );
+console.log(
+  `  write lock held at most ${lockMs.toFixed(0)} ms at a stretch; request thread's longest stall ${loopMs.toFixed(0)} ms (it builds the multipart body here too)`,
+);
 
+stopLock = probeWriteLock(config.databasePath);
+stopLoop = loopStalls();
 t = performance.now();
 const again = await agent
   .post(`/api/agencies/${ids.marlow}/imports`)
   .set('Origin', 'http://localhost:1')
   .field('dryRun', 'true')
   .attach('file', Buffer.from(csv), 'synthetic.csv');
-console.log(`re-import dry run (all unchanged: ${again.body.unchanged}): ${(performance.now() - t).toFixed(0)} ms`);
+console.log(
+  `re-import dry run (all unchanged: ${again.body.unchanged}): ${(performance.now() - t).toFixed(0)} ms; write lock held at most ${stopLock().toFixed(0)} ms; request thread's longest stall ${stopLoop().toFixed(0)} ms`,
+);
 
 // Baseline: parse with papaparse and insert the same rows with one prepared statement, no checks.
 const bare = new Database(path.join(dir, 'bare.db'));

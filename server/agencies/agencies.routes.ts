@@ -10,8 +10,7 @@ import type { ApiRoutes, SessionUser } from '../http/api';
 import multer from 'multer';
 import { HttpError } from '../http/errors';
 import { agencyById } from './agencies.repo';
-import { restoreAgency } from './agency-archive';
-import { agencyExportTask } from './agencies.tasks';
+import { agencyExportTask, agencyRestoreTask } from './agencies.tasks';
 import { AgencyNameSchema } from './archive-schemas';
 
 export const MAX_ARCHIVE_UPLOAD_BYTES = 200 * 1024 * 1024;
@@ -162,12 +161,23 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
         });
       },
     ],
-    handler: async ({ user, body, req }) => {
+    heavy: true,
+    handler: async ({ user, body, req, signal }) => {
       if (!req.file)
         throw new HttpError(400, 'invalid_request', 'Invalid request: file — attach the archive in the field "file"', [
           { path: 'file', message: 'is required' },
         ]);
-      return restoreAgency(deps, user!.id, req.file.buffer, body.name);
+      // Unzipping, checking and writing run in a worker; the archive's bytes move there (not copied).
+      // The new agency does not exist yet, so the per-person and global caps apply.
+      const bytes = req.file.buffer;
+      const report = await deps.pool.run(
+        agencyRestoreTask,
+        { userId: user!.id, bytes, name: body.name },
+        { userId: user!.id, agencyId: null },
+        { signal, transfer: [bytes] },
+      );
+      deps.listCache?.bump(report.agencyId);
+      return report;
     },
   });
 }

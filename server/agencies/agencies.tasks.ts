@@ -4,3 +4,6 @@ import { taskRef } from '../pool/task';
 export const agencyExportTask = taskRef<typeof import('./agency-export.task').default>(
   new URL('./agency-export.task.ts', import.meta.url),
 );
+export const agencyRestoreTask = taskRef<typeof import('./agency-restore.task').default>(
+  new URL('./agency-restore.task.ts', import.meta.url),
+);

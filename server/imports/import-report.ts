@@ -6,12 +6,25 @@ import {
   type ImportReport,
   MAX_LISTED_ISSUES,
 } from '../../shared/schemas/imports';
+import type { Db, Sqlite } from '../db/client';
 import { toCsv } from '../csv';
 import { echo } from './normalize';
 import type { RawTable } from './read-file';
 import type { Units } from './normalize';
 
 export type ImportResult = { status: 200 | 422; report: ImportReport };
+
+/**
+ * What an import needs: a database it may write. In the pool's worker that is the worker's own writable
+ * connection (`ctx.writer()`), and the list cache is bumped by the route on the request thread.
+ */
+export type ImportDeps = {
+  db: Db;
+  sqlite: Sqlite;
+  listCache?: { bump(agencyId: string): void };
+  /** 0 to 1: 0.5 once every row is checked and the write begins, then along the write. */
+  progress?: (fraction: number) => void;
+};
 
 /** A cell kept in the rejected-rows file is cut here: the file is for fixing rows, not for storing 20 MB cells. */
 export const MAX_KEPT_CELL_CHARS = 100_000;

@@ -3,7 +3,6 @@
 import type { ImportIssue, ImportOptions, ImportReport } from '../../shared/schemas/imports';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
-import type { Deps } from '../deps';
 import { imports } from '../db/schema';
 import {
   fitVertices,
@@ -15,7 +14,7 @@ import {
   reproject,
   to2d,
 } from './geometry';
-import { type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
+import { type ImportDeps, type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
 import * as repo from './imports.repo';
 import { normalizeSegmentRow, type ReadOptions, type UnknownValues } from './normalize';
 import { plausibilityWarnings } from './plausibility';
@@ -74,7 +73,7 @@ function lineOf(
 }
 
 export async function importSegments(
-  deps: Deps,
+  deps: ImportDeps,
   agencyId: string,
   userId: string,
   fileName: string,
@@ -156,19 +155,32 @@ export async function importSegments(
   if (opts.dryRun) return { status: 200, report };
 
   const importId = newId();
+  // Built before the transaction opens: the transaction only writes.
+  const rejectedCsv = errors.length ? rejectedRowsCsv(table, errors) : null;
   const now = new Date().toISOString();
-  deps.db.transaction((tx) => {
-    const write = repo.segmentWriter(deps.sqlite, agencyId);
-    for (const p of planned) {
-      const s = p.a.seg;
-      let id = p.id;
-      if (p.kind === 'add') {
-        id = write.insert(s.segmentId, { lengthMi: s.lengthMi ?? 0, ...p.patch });
-        write.audit(userId, 'segment.import.add', s.segmentId, {
-          importId,
-          after: { ...p.patch, geometry: p.patch.geometry ? '(geometry)' : undefined },
-        });
-      } else if (p.kind === 'update') {
+  // New segments are staged first, outside the transaction (see stagedAdds); the transaction then makes
+  // them visible in a few set-based statements, and writes updates row by row (an update names its row).
+  const source = `import ${fileName}`.slice(0, 120);
+  const adds = repo.stagedAdds(deps.sqlite);
+  deps.progress?.(0.5);
+  for (const [i, p] of planned.entries()) {
+    if (p.kind !== 'add') continue;
+    if (i % 1000 === 0) deps.progress?.(0.5 + (0.4 * i) / planned.length);
+    const s = p.a.seg;
+    adds.add(s.segmentId, { lengthMi: s.lengthMi ?? 0, ...p.patch }, s.pci, s.pciDate, {
+      importId,
+      after: { ...p.patch, geometry: p.patch.geometry ? '(geometry)' : undefined },
+    });
+  }
+  deps.progress?.(0.9);
+  try {
+    deps.db.transaction((tx) => {
+      adds.commit(agencyId, userId, source);
+      const write = repo.segmentWriter(deps.sqlite, agencyId);
+      for (const p of planned) {
+        if (p.kind !== 'update') continue;
+        const s = p.a.seg;
+        const id = p.id!;
         const old = existing.get(s.segmentId) as Record<string, unknown>;
         const changed = Object.fromEntries(
           p.changed.map((k) => [
@@ -176,53 +188,55 @@ export async function importSegments(
             k === 'geometry' ? { before: '(geometry)', after: '(geometry)' } : { before: old[k], after: p.patch[k] },
           ]),
         );
-        write.update(id!, p.patch, now);
+        write.update(id, p.patch, now);
         write.audit(userId, 'segment.import.update', s.segmentId, {
           importId,
           changed,
           pci: s.pci !== null && s.pciDate ? { date: s.pciDate, pci: s.pci } : undefined,
         });
+        if (s.pci !== null) {
+          if (s.pciDate) write.survey(id, s.pciDate, s.pci, source);
+          else write.latestPci(id, s.pci);
+        }
       }
-      if (s.pci !== null && p.kind !== 'same') {
-        if (s.pciDate) write.survey(id!, s.pciDate, s.pci, `import ${fileName}`.slice(0, 120));
-        else write.latestPci(id!, s.pci);
+      tx.insert(imports)
+        .values({
+          id: importId,
+          agencyId,
+          userId,
+          fileName: fileName.slice(0, 200),
+          kind: 'segments',
+          format: table.format,
+          mode: opts.mode,
+          added: report.added,
+          updated: report.updated,
+          unchanged: report.unchanged,
+          rejected: report.rejected,
+          rejectedCsv,
+        })
+        .run();
+      if (opts.saveMapping) {
+        repo.saveMapping(tx, agencyId, 'segments', mapping);
+        if (Object.keys(read.values).length) repo.saveMapping(tx, agencyId, 'segments-values', read.values);
       }
-    }
-    tx.insert(imports)
-      .values({
-        id: importId,
+      recordAudit(tx, {
         agencyId,
         userId,
-        fileName: fileName.slice(0, 200),
-        kind: 'segments',
-        format: table.format,
-        mode: opts.mode,
-        added: report.added,
-        updated: report.updated,
-        unchanged: report.unchanged,
-        rejected: report.rejected,
-        rejectedCsv: errors.length ? rejectedRowsCsv(table, errors) : null,
-      })
-      .run();
-    if (opts.saveMapping) {
-      repo.saveMapping(tx, agencyId, 'segments', mapping);
-      if (Object.keys(read.values).length) repo.saveMapping(tx, agencyId, 'segments-values', read.values);
-    }
-    recordAudit(tx, {
-      agencyId,
-      userId,
-      action: 'import.segments',
-      entity: 'import',
-      entityId: importId,
-      detail: {
-        fileName,
-        added: report.added,
-        updated: report.updated,
-        unchanged: report.unchanged,
-        rejected: report.rejected,
-      },
+        action: 'import.segments',
+        entity: 'import',
+        entityId: importId,
+        detail: {
+          fileName,
+          added: report.added,
+          updated: report.updated,
+          unchanged: report.unchanged,
+          rejected: report.rejected,
+        },
+      });
     });
-  });
+  } finally {
+    adds.clear();
+  }
   deps.listCache?.bump(agencyId);
   report.importId = importId;
   return { status: 200, report };

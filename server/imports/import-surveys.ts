@@ -3,15 +3,14 @@
 import type { ImportIssue, ImportOptions, ImportReport } from '../../shared/schemas/imports';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
-import type { Deps } from '../deps';
 import { imports } from '../db/schema';
-import { type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
+import { type ImportDeps, type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
 import * as repo from './imports.repo';
 import { normalizeSurveyRow, type ReadOptions, type SurveyInput } from './normalize';
 import type { RawTable } from './read-file';
 
 export async function importSurveys(
-  deps: Deps,
+  deps: ImportDeps,
   agencyId: string,
   userId: string,
   fileName: string,
@@ -72,8 +71,12 @@ export async function importSurveys(
   Object.assign(report, report.acceptedRows);
   if (opts.dryRun) return { status: 200, report };
   const importId = newId();
+  // Built before the transaction opens: the transaction only writes.
+  const rejectedCsv = errors.length ? rejectedRowsCsv(table, errors) : null;
   deps.db.transaction((tx) => {
-    for (const a of accepted) {
+    deps.progress?.(0.5);
+    for (const [i, a] of accepted.entries()) {
+      if (i % 1000 === 0) deps.progress?.(0.5 + (0.5 * i) / accepted.length);
       if (a.kind !== 'same')
         repo.upsertSurvey(
           tx,
@@ -97,7 +100,7 @@ export async function importSurveys(
         updated: report.updated,
         unchanged: report.unchanged,
         rejected: report.rejected,
-        rejectedCsv: errors.length ? rejectedRowsCsv(table, errors) : null,
+        rejectedCsv,
       })
       .run();
     if (opts.saveMapping) repo.saveMapping(tx, agencyId, 'surveys', mapping);

@@ -164,3 +164,65 @@ export function segmentWriter(sqlite: Sqlite, agencyId: string) {
     },
   };
 }
+
+const STAGED = Object.keys(COLUMN);
+
+/**
+ * New segments, staged before the import's transaction opens: rows go one by one into a TEMP table of this
+ * connection (its own database, so filling it takes no lock on the app's file), and the transaction then
+ * makes them visible with a few INSERT … SELECT statements — the segments (with their latest PCI), their
+ * audit rows and their surveys. The write lock is held only for that set-based step.
+ */
+export function stagedAdds(sqlite: Sqlite) {
+  sqlite.exec(
+    `CREATE TEMP TABLE IF NOT EXISTS import_stage (seq INTEGER PRIMARY KEY, segment_id TEXT NOT NULL, keyset TEXT NOT NULL, ${STAGED.map((k) => COLUMN[k]).join(', ')}, pci REAL, pci_date TEXT, audit TEXT NOT NULL)`,
+  );
+  sqlite.exec('DELETE FROM temp.import_stage');
+  const stage = sqlite.prepare(
+    `INSERT INTO temp.import_stage (segment_id, keyset, ${STAGED.map((k) => COLUMN[k]).join(', ')}, pci, pci_date, audit) VALUES (${['?', '?', ...STAGED.map(() => '?'), '?', '?', '?'].join(', ')})`,
+  );
+  const keysets = new Set<string>();
+  return {
+    /** Outside the transaction: one new segment, its patch, its PCI (with the survey date, if any) and its audit detail. */
+    add(segmentId: string, patch: Record<string, unknown>, pci: number | null, pciDate: string | null, audit: unknown) {
+      const keys = Object.keys(patch).sort().join(',');
+      keysets.add(keys);
+      stage.run(
+        segmentId,
+        keys,
+        ...STAGED.map((k) => patch[k] ?? null),
+        pci,
+        pci_date(pci, pciDate),
+        JSON.stringify(audit),
+      );
+    },
+    /** Inside the caller's transaction: the staged rows become the agency's, in the order they were staged. */
+    commit(agencyId: string, userId: string, surveySource: string) {
+      for (const keyset of keysets) {
+        const cols = keyset.split(',').map((k) => COLUMN[k]);
+        sqlite
+          .prepare(
+            `INSERT INTO segments (agency_id, segment_id, ${cols.join(', ')}, pci, pci_date) SELECT ?, segment_id, ${cols.join(', ')}, pci, pci_date FROM temp.import_stage WHERE keyset = ? ORDER BY seq`,
+          )
+          .run(agencyId, keyset);
+      }
+      sqlite
+        .prepare(
+          "INSERT INTO audit_log (agency_id, user_id, action, entity, entity_id, detail) SELECT ?, ?, 'segment.import.add', 'segment', segment_id, audit FROM temp.import_stage ORDER BY seq",
+        )
+        .run(agencyId, userId);
+      sqlite
+        .prepare(
+          'INSERT INTO surveys (agency_id, segment_ref, survey_date, pci, source) SELECT ?, s.id, st.pci_date, st.pci, ? FROM temp.import_stage st JOIN segments s ON s.agency_id = ? AND s.segment_id = st.segment_id WHERE st.pci IS NOT NULL AND st.pci_date IS NOT NULL ORDER BY st.seq',
+        )
+        .run(agencyId, surveySource, agencyId);
+    },
+    /** After the transaction (or its failure): the stage is emptied. */
+    clear() {
+      sqlite.exec('DELETE FROM temp.import_stage');
+    },
+  };
+}
+
+/** A PCI without a survey date sets only the latest PCI; with one, the date too (the survey carries it). */
+const pci_date = (pci: number | null, pciDate: string | null) => (pci === null ? null : pciDate);

@@ -13,6 +13,7 @@ import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
 import { HttpError } from '../http/errors';
 import * as service from './imports.service';
+import { importTask } from './imports.tasks';
 
 export const MAX_UPLOAD_BYTES = 25 * 1024 * 1024;
 
@@ -59,7 +60,8 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
     body: ImportOptionsSchema,
     response: ImportReportSchema,
     before: [uploadOne],
-    handler: async ({ agency, user, body, req, res }) => {
+    heavy: true,
+    handler: async ({ agency, user, body, req, res, signal }) => {
       if (!req.file)
         throw new HttpError(
           400,
@@ -74,13 +76,15 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
           .pop()!
           .replace(/[^\w.\- ()]/g, '_')
           .slice(0, 200) || 'upload';
-      const { status, report } = await service.runImport(
-        deps,
-        agency!.id,
-        user!.id,
-        { name, buffer: req.file.buffer },
-        body,
+      // Reading, checking and writing run in a worker; the upload's bytes move there (not copied).
+      const bytes = req.file.buffer;
+      const { status, report } = await deps.pool.run(
+        importTask,
+        { agencyId: agency!.id, userId: user!.id, name, bytes, options: body },
+        { userId: user!.id, agencyId: agency!.id },
+        { signal, transfer: [bytes] },
       );
+      if (report.importId) deps.listCache?.bump(agency!.id);
       res.status(status).json(report);
     },
   });

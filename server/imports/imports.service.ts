@@ -16,7 +16,7 @@ import wkx from 'wkx';
 import { detectCellFormats } from './cell-formats';
 import { resolveCrs } from './crs';
 import { geometryProblem, type LineGeometry, looksLonLat } from './geometry';
-import { baseReport, headerRow, type ImportResult } from './import-report';
+import { baseReport, headerRow, type ImportDeps, type ImportResult } from './import-report';
 import { importSegments } from './import-segments';
 import { importSurveys } from './import-surveys';
 import * as repo from './imports.repo';
@@ -81,7 +81,7 @@ function valueMapFor(saved: unknown, chosen: ValueMap | undefined): ValueMap {
 
 /** Reads, checks and (unless a dry run or refused) writes one upload in one transaction. */
 export async function runImport(
-  deps: Deps,
+  deps: ImportDeps,
   agencyId: string,
   userId: string,
   file: { name: string; buffer: Buffer },

@@ -1,7 +1,38 @@
 // A saved comparison as CSV or XLSX: the ranked results, cost lines and cash flows.
+import { and, eq, isNotNull, sql } from 'drizzle-orm';
 import ExcelJS from 'exceljs';
 import type { StudyResult } from '../../shared/engine/lcca/study';
 import { toCsv } from '../csv';
+import type { Db } from '../db/client';
+import { analyses } from '../db/schema';
+import { HttpError, notFound } from '../http/errors';
+
+/**
+ * What the request thread checks before the export takes a slot: the comparison is the agency's and has a
+ * result. Reads the name and whether a result is stored, never the result itself.
+ */
+export function exportableComparison(db: Db, agencyId: string, analysisId: string) {
+  const row = db
+    .select({ name: analyses.name, hasResult: sql<number>`${analyses.result} IS NOT NULL` })
+    .from(analyses)
+    .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, analysisId)))
+    .get();
+  if (!row) throw notFound('No such analysis');
+  if (!row.hasResult) throw new HttpError(409, 'no_result', 'This comparison has no result yet; run it first');
+  return { name: row.name };
+}
+
+/** The export itself, in a worker: the stored result is read, parsed and written out there. */
+export async function comparisonFile(db: Db, agencyId: string, analysisId: string, format: 'csv' | 'xlsx') {
+  const row = db
+    .select({ name: analyses.name, result: analyses.result })
+    .from(analyses)
+    .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, analysisId), isNotNull(analyses.result)))
+    .get();
+  if (!row?.result) throw notFound('No such analysis with a result');
+  const result = JSON.parse(row.result) as StudyResult;
+  return format === 'xlsx' ? await studyXlsx(row.name, result) : studyCsv(result);
+}
 
 /** One row per alternative, keyed by plain-word headers (the CSV and the workbook's first sheet). */
 export function resultRows(result: StudyResult): Record<string, string | number>[] {

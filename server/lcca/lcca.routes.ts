@@ -1,5 +1,4 @@
 import { z } from 'zod';
-import type { StudyResult } from '../../shared/engine/lcca/study';
 import { AgencyParamsSchema, OkSchema } from '../../shared/schemas/common';
 import {
   AnalysisListSchema,
@@ -12,8 +11,8 @@ import {
 import { RunViewSchema } from '../../shared/schemas/runs';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
-import { HttpError } from '../http/errors';
-import { studyCsv, studyXlsx } from './lcca.export';
+import { exportableComparison } from './lcca.export';
+import { comparisonExportTask } from './lcca.tasks';
 import * as service from './lcca.service';
 
 export function lccaRoutes(api: ApiRoutes, deps: Deps) {
@@ -110,22 +109,30 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     params: AnalysisParamsSchema,
     query: z.object({ format: z.enum(['csv', 'xlsx']).default('csv') }),
     responseDescription: 'text/csv or an XLSX workbook',
-    handler: async ({ agency, params, query, res }) => {
-      const a = service.getAnalysis(deps, agency!.id, params.analysisId);
-      if (!a.result) throw new HttpError(409, 'no_result', 'This comparison has no result yet; run it first');
+    heavy: true,
+    handler: async ({ agency, user, params, query, res, signal }) => {
+      // Cheap checks first (exists, has a result), so a 404 or 409 takes no slot; the file is built in a worker.
+      const a = exportableComparison(deps.db, agency!.id, params.analysisId);
       const base =
         a.name
           .toLowerCase()
           .replace(/[^a-z0-9]+/g, '-')
           .slice(0, 60) || 'comparison';
+      const file = await deps.pool.run(
+        comparisonExportTask,
+        { agencyId: agency!.id, analysisId: params.analysisId, format: query.format },
+        { userId: user!.id, agencyId: agency!.id },
+        { signal },
+      );
       if (query.format === 'xlsx') {
         res.setHeader('Content-Type', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
         res.setHeader('Content-Disposition', `attachment; filename="${base}.xlsx"`);
-        res.send(await studyXlsx(a.name, a.result as StudyResult));
+        const bytes = file as Uint8Array;
+        res.send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
       } else {
         res.setHeader('Content-Type', 'text/csv; charset=utf-8');
         res.setHeader('Content-Disposition', `attachment; filename="${base}.csv"`);
-        res.send(studyCsv(a.result as StudyResult));
+        res.send(file as string);
       }
     },
   });

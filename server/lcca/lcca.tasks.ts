@@ -7,3 +7,6 @@ export const comparisonSnapshotTask = taskRef<typeof import('./comparison-snapsh
 export const comparisonTask = taskRef<typeof import('./comparison.task').default>(
   new URL('./comparison.task.ts', import.meta.url),
 );
+export const comparisonExportTask = taskRef<typeof import('./comparison-export.task').default>(
+  new URL('./comparison-export.task.ts', import.meta.url),
+);

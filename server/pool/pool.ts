@@ -25,11 +25,15 @@ export type RunOptions = {
 export const RETRY_AFTER_SECONDS = 10;
 const HOST = new URL('./task-host.mjs', import.meta.url).href;
 
-/** A task that failed for a reason of its own (not a 4xx): its message, and the input field if it named one. */
+/**
+ * A task that failed for a reason of its own (not a 4xx): its message, the input field if it named one, and
+ * its error code (SQLite's SQLITE_FULL, SQLITE_BUSY… keep their meaning: the error handler words them).
+ */
 export class TaskFailedError extends Error {
   constructor(
     message: string,
     public path?: string,
+    public code?: string,
   ) {
     super(message);
   }
@@ -41,7 +45,7 @@ export class PoolClosedError extends Error {}
 function revive(f: TaskFailure): Error {
   if (f.status && f.status >= 400 && f.status < 500 && f.code)
     return new HttpError(f.status, f.code, f.message, f.issues);
-  return new TaskFailedError(f.message, f.path);
+  return new TaskFailedError(f.message, f.path, f.code);
 }
 
 export class Slot {

@@ -1,6 +1,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
+import Database from 'better-sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { syntheticCsv } from '../../bench/synthetic-network';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
 const sample = (name: string) => path.resolve('data/samples', name);
@@ -580,5 +582,201 @@ describe('audit of imports', () => {
       t.sqlite.prepare("SELECT count(*) AS n FROM audit_log WHERE action = 'segment.import.add'").get() as { n: number }
     ).n;
     expect(adds).toBeGreaterThanOrEqual(58);
+  });
+});
+
+// Imports in the worker pool, proved by ordering (never by timing): while an import cannot finish (this
+// test holds SQLite's write lock on a connection of its own), its slot is taken, /api/health answers and
+// the caps answer 429; what the worker refuses still names the row, column and reason; a worker that
+// fails or is stopped part-way leaves nothing half-written; no agency's rows reach another.
+describe('imports in the worker pool', () => {
+  let p: TestApp;
+  let pEng: Awaited<ReturnType<TestApp['as']>>;
+  let pUrl: string;
+  const n = (sql: string, ...args: unknown[]) => (p.sqlite.prepare(sql).get(...args) as { n: number }).n;
+  /** Everything an import writes, counted: it must move all together or not at all. */
+  const written = () => ({
+    segments: n('SELECT count(*) AS n FROM segments WHERE agency_id = ?', p.ids.brannock),
+    surveys: n('SELECT count(*) AS n FROM surveys WHERE agency_id = ?', p.ids.brannock),
+    imports: n('SELECT count(*) AS n FROM imports WHERE agency_id = ?', p.ids.brannock),
+    audit: n('SELECT count(*) AS n FROM audit_log WHERE agency_id = ?', p.ids.brannock),
+  });
+  const csv = (count: number, prefix: string) => Buffer.from(syntheticCsv(count).replace(/^SYN-/gm, `${prefix}-`));
+  async function until(cond: () => boolean, what: string) {
+    for (let i = 0; i < 3000; i++) {
+      if (cond()) return;
+      await new Promise((r) => setTimeout(r, 10));
+    }
+    throw new Error(`never happened: ${what}`);
+  }
+
+  beforeAll(async () => {
+    p = await createTestApp({ signInRateLimit: 1000, workers: { threads: 2, perAgency: 1, perUser: 1 } });
+    pEng = await p.as('engineer@brannock.example');
+    pUrl = `/api/agencies/${p.ids.brannock}/imports`;
+    // Both worker threads started (a cold one loads its modules for seconds), so the test that holds the
+    // write lock holds it only as long as its own steps take, well inside SQLite's 5 s busy timeout.
+    const marlow = await p.as('engineer@marlow.example');
+    const warm = await Promise.all([
+      pEng.post(pUrl).field('dryRun', 'true').attach('file', csv(5, 'WARM'), 'warm.csv'),
+      marlow
+        .post(`/api/agencies/${p.ids.marlow}/imports`)
+        .field('dryRun', 'true')
+        .attach('file', csv(5, 'WARM'), 'warm.csv'),
+    ]);
+    expect(warm.map((r) => r.status)).toEqual([200, 200]);
+  }, 60_000);
+  afterAll(() => p.close());
+
+  it('while an import cannot finish, its slot is taken, /api/health answers and the caps answer 429', {
+    timeout: 60_000,
+  }, async () => {
+    const admin = await p.as('admin@brannock.example');
+    const marlow = await p.as('engineer@marlow.example');
+    const before = written();
+    const listBefore = (await pEng.get(`/api/agencies/${p.ids.brannock}/segments?limit=1`)).body.total as number;
+    // Each session's first request touches its row in the session store (a write on the request thread,
+    // once a minute), and a write waits for the lock: done here, before the lock is taken.
+    for (const c of [admin, marlow]) expect((await c.get('/api/me')).status).toBe(200);
+    const lock = new Database(p.deps.config.databasePath);
+    lock.exec('BEGIN IMMEDIATE');
+    let answered = false;
+    const pending = pEng
+      .post(pUrl)
+      .attach('file', csv(2000, 'POOL'), 'pool.csv')
+      .then((r) => {
+        answered = true;
+        return r;
+      });
+    try {
+      await until(() => p.deps.pool.busy === 1, 'the import takes its slot');
+      const health = await p.anonymous().get('/api/health');
+      expect(health.status).toBe(200);
+      expect(health.body).toEqual({ ok: true });
+
+      const mine = await pEng.post(pUrl).attach('file', csv(10, 'POOL'), 'again.csv');
+      expect(mine.status).toBe(429);
+      expect(mine.headers['retry-after']).toBe('10');
+      expect(mine.body.error.message).toMatch(/^You already have 1 heavy task going/);
+      const agency = await admin.post(pUrl).attach('file', csv(10, 'POOL'), 'admin.csv');
+      expect(agency.status).toBe(429);
+      expect(agency.body.error.message).toMatch(/^This agency already has 1 heavy task going/);
+      // Another agency's dry run goes on in the other worker (it only reads).
+      const other = await marlow
+        .post(`/api/agencies/${p.ids.marlow}/imports`)
+        .field('dryRun', 'true')
+        .attach('file', csv(10, 'POOL'), 'marlow.csv');
+      expect(other.status).toBe(200);
+      expect(other.body).toMatchObject({ dryRun: true, added: 10 });
+      expect(answered).toBe(false);
+      expect(written()).toEqual(before);
+    } finally {
+      lock.exec('ROLLBACK');
+      lock.close();
+    }
+    const res = await pending;
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ dryRun: false, added: 2000, rejected: 0, importId: expect.any(String) });
+    expect(p.deps.pool.busy).toBe(0);
+    expect(written()).toMatchObject({ segments: before.segments + 2000, imports: before.imports + 1 });
+    // The route bumped the list cache on the request thread: the paged list counts the new rows.
+    expect((await pEng.get(`/api/agencies/${p.ids.brannock}/segments?limit=1`)).body.total).toBe(listBefore + 2000);
+    expect(n("SELECT count(*) AS n FROM segments WHERE agency_id = ? AND segment_id LIKE 'POOL-%'", p.ids.marlow)).toBe(
+      0,
+    );
+  });
+
+  it('what the worker refuses still names the row, the column and the reason', async () => {
+    const before = written();
+    const rows = syntheticCsv(5).split('\n');
+    rows[3] = rows[3].replace(/,local,asphalt,(\d+),5,\d+,/, ',local,asphalt,$1,5,500,');
+    const report = await pEng.post(pUrl).attach('file', Buffer.from(rows.join('\n')), 'pci.csv');
+    expect(report.status).toBe(422);
+    expect(report.body.errors).toEqual([
+      expect.objectContaining({ row: 4, column: 'pci', value: '500', message: expect.stringMatching(/100/) }),
+    ]);
+    const twice = await pEng
+      .post(pUrl)
+      .attach('file', Buffer.from('segment_id,road_name,Road_Name\nA,B,C\n'), 'twice.csv');
+    expect(twice.status).toBe(400);
+    expect(twice.body.error).toMatchObject({
+      code: 'bad_file',
+      message: 'The header row names the column "Road_Name" twice.',
+    });
+    const mapping = await pEng
+      .post(pUrl)
+      .field('mapping', JSON.stringify({ road_name: 'Street' }))
+      .attach('file', csv(3, 'MAP'), 'map.csv');
+    expect(mapping.status).toBe(400);
+    expect(mapping.body.error.issues).toEqual([
+      { path: 'mapping.road_name', message: 'column "Street" is not in the file' },
+    ]);
+    expect(written()).toEqual(before);
+  });
+
+  it('a write that fails after 700 rows leaves nothing: no rows, no history, no audit', {
+    timeout: 60_000,
+  }, async () => {
+    const before = written();
+    // A real SQLite refusal in the middle of the worker's transaction: a trigger on the 701st row.
+    p.sqlite.exec(
+      "CREATE TRIGGER refuse_row BEFORE INSERT ON segments WHEN NEW.segment_id = 'HALF-700' BEGIN SELECT RAISE(ABORT, 'refused by the test'); END",
+    );
+    try {
+      const res = await pEng.post(pUrl).attach('file', csv(1500, 'HALF'), 'half.csv');
+      expect(res.status).toBe(500);
+      expect(res.body.error).toEqual({ code: 'internal', message: 'Something went wrong on our side' });
+    } finally {
+      p.sqlite.exec('DROP TRIGGER refuse_row');
+    }
+    expect(written()).toEqual(before);
+    expect(p.deps.pool.busy).toBe(0);
+    const again = await pEng.post(pUrl).attach('file', csv(1500, 'HALF'), 'half.csv');
+    expect(again.body).toMatchObject({ added: 1500 });
+    expect(written()).toMatchObject({ segments: before.segments + 1500, imports: before.imports + 1 });
+  });
+
+  it('an import whose worker is stopped (the client went away) is all written or not at all', {
+    timeout: 120_000,
+  }, async () => {
+    const before = written();
+    const req = pEng.post(pUrl).attach('file', csv(20_000, 'GONE'), 'gone.csv');
+    const settled = req.then(
+      () => 'answered',
+      () => 'aborted',
+    );
+    await until(() => p.deps.pool.busy === 1, 'the import takes its slot');
+    req.abort();
+    expect(await settled).toBe('aborted');
+    await until(() => p.deps.pool.busy === 0, 'the stopped import frees its slot');
+    const gone = n(
+      "SELECT count(*) AS n FROM segments WHERE agency_id = ? AND segment_id LIKE 'GONE-%'",
+      p.ids.brannock,
+    );
+    const after = written();
+    if (gone === 0) expect(after).toEqual(before);
+    else {
+      expect(gone).toBe(20_000);
+      expect(after.imports).toBe(before.imports + 1);
+    }
+    expect(p.sqlite.pragma('integrity_check', { simple: true })).toBe('ok');
+    // The pool replaced the stopped worker: the next import runs.
+    expect((await pEng.post(pUrl).field('dryRun', 'true').attach('file', csv(5, 'NEXT'), 'next.csv')).status).toBe(200);
+  });
+
+  it('an import writes only its own agency: a segment id Marlow also has is added to Brannock, Marlow untouched', async () => {
+    const marlowRow = p.sqlite
+      .prepare('SELECT * FROM segments WHERE agency_id = ? ORDER BY id LIMIT 1')
+      .get(p.ids.marlow) as Record<string, unknown>;
+    const marlowCount = n('SELECT count(*) AS n FROM segments WHERE agency_id = ?', p.ids.marlow);
+    const text = `segment_id,road_name,length_mi,width_ft,lanes,functional_class,surface,pci\n${marlowRow.segment_id},Taken Over Rd,0.5,22,2,local,asphalt,12\n`;
+    const res = await pEng.post(pUrl).attach('file', Buffer.from(text), 'same-id.csv');
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ added: 1, updated: 0 });
+    expect(p.sqlite.prepare('SELECT * FROM segments WHERE id = ?').get(marlowRow.id)).toEqual(marlowRow);
+    expect(n('SELECT count(*) AS n FROM segments WHERE agency_id = ?', p.ids.marlow)).toBe(marlowCount);
+    expect(
+      n("SELECT count(*) AS n FROM segments WHERE agency_id = ? AND road_name = 'Taken Over Rd'", p.ids.brannock),
+    ).toBe(1);
   });
 });

@@ -1,8 +1,9 @@
 // Restore as a hostile or careless user would try it: who may restore, ids that
 // name another agency's rows, what the report counts, the rate limit. (Malformed
 // archives are cases in hostile.test.ts.)
+import Database from 'better-sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { editedArchive, editJson } from '../helpers/archive';
+import { editedArchive, editFeature, editJson } from '../helpers/archive';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
 let t: TestApp;
@@ -116,5 +117,111 @@ describe('restore', () => {
     } finally {
       await open.close();
     }
+  });
+});
+
+// Restore in the worker pool, by ordering (never by timing): while a restore cannot finish (this test holds
+// SQLite's write lock on a connection of its own) its slot is taken, /api/health answers and the restorer's
+// next heavy task answers 429; a refusal from the worker names the file, row and field; a write that fails
+// part-way leaves no agency and no stray rows.
+describe('restore in the worker pool', () => {
+  let p: TestApp;
+  let pAdmin: Awaited<ReturnType<TestApp['as']>>;
+  let archive: Buffer;
+  const m = (sql: string, ...a: unknown[]) => (p.sqlite.prepare(sql).get(...a) as { n: number }).n;
+  const everything = () => ({
+    agencies: m('SELECT count(*) AS n FROM agencies'),
+    memberships: m('SELECT count(*) AS n FROM memberships'),
+    segments: m('SELECT count(*) AS n FROM segments'),
+    surveys: m('SELECT count(*) AS n FROM surveys'),
+    mixes: m('SELECT count(*) AS n FROM mixes'),
+    audit: m('SELECT count(*) AS n FROM audit_log'),
+  });
+  async function until(cond: () => boolean, what: string) {
+    for (let i = 0; i < 3000; i++) {
+      if (cond()) return;
+      await new Promise((r) => setTimeout(r, 10));
+    }
+    throw new Error(`never happened: ${what}`);
+  }
+
+  beforeAll(async () => {
+    p = await createTestApp({ restoreRateLimit: 1000, workers: { threads: 2, perAgency: 1, perUser: 1 } });
+    pAdmin = await p.as('admin@marlow.example');
+    // The export also starts a worker thread, so the locked test below does not wait for a cold one.
+    archive = (await binary(pAdmin.get(`/api/agencies/${p.ids.marlow}/export`))).body as Buffer;
+  }, 60_000);
+  afterAll(() => p.close());
+
+  it('while a restore cannot finish, its slot is taken, /api/health answers and the restorer gets 429', {
+    timeout: 60_000,
+  }, async () => {
+    const before = everything();
+    const lock = new Database(p.deps.config.databasePath);
+    lock.exec('BEGIN IMMEDIATE');
+    let answered = false;
+    const pending = pAdmin
+      .post('/api/agencies/restore')
+      .field('name', 'Held copy')
+      .attach('file', archive, 'held.zip')
+      .then((r) => {
+        answered = true;
+        return r;
+      });
+    try {
+      await until(() => p.deps.pool.busy === 1, 'the restore takes its slot');
+      const health = await p.anonymous().get('/api/health');
+      expect(health.status).toBe(200);
+      const refused = await pAdmin.get(`/api/agencies/${p.ids.marlow}/export`);
+      expect(refused.status).toBe(429);
+      expect(refused.headers['retry-after']).toBe('10');
+      expect(refused.body.error.message).toMatch(/^You already have 1 heavy task going/);
+      expect(answered).toBe(false);
+      expect(everything()).toEqual(before);
+    } finally {
+      lock.exec('ROLLBACK');
+      lock.close();
+    }
+    const res = await pending;
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body.counts.segments).toBe(84);
+    expect(p.deps.pool.busy).toBe(0);
+    // The new agency's list is read fresh (the route bumped its cache entry on the request thread).
+    const list = await pAdmin.get(`/api/agencies/${res.body.agencyId}/segments?limit=1`);
+    expect(list.body.total).toBe(84);
+  });
+
+  it('a refusal from inside the worker names the file, the row and the field; nothing is written', async () => {
+    const before = everything();
+    const bad = await editedArchive(archive, editFeature(1, { pci: 500 }));
+    const res = await pAdmin.post('/api/agencies/restore').attach('file', bad, 'bad.zip');
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('bad_archive');
+    expect(res.body.error.issues).toEqual([
+      { path: expect.stringMatching(/^segments\.geojson\b.*\b2\b.*pci/), message: expect.stringMatching(/100/) },
+    ]);
+    expect(everything()).toEqual(before);
+  });
+
+  it('a write that fails after 20 segments leaves no agency, no membership and no stray rows', async () => {
+    const before = everything();
+    // A real SQLite refusal in the middle of the worker's transaction: the 21st segment of a new agency.
+    p.sqlite.exec(`CREATE TRIGGER refuse_restore BEFORE INSERT ON segments
+      WHEN NEW.agency_id NOT IN ('${p.ids.brannock}', '${p.ids.marlow}')
+       AND (SELECT count(*) FROM segments WHERE agency_id = NEW.agency_id) >= 20
+      BEGIN SELECT RAISE(ABORT, 'refused by the test'); END`);
+    try {
+      const res = await pAdmin.post('/api/agencies/restore').attach('file', archive, 'half.zip');
+      expect(res.status).toBe(500);
+      expect(res.body.error).toEqual({ code: 'internal', message: 'Something went wrong on our side' });
+    } finally {
+      p.sqlite.exec('DROP TRIGGER refuse_restore');
+    }
+    expect(everything()).toEqual(before);
+    expect(
+      m('SELECT count(*) AS n FROM segments WHERE agency_id NOT IN (SELECT id FROM agencies)') +
+        m('SELECT count(*) AS n FROM mixes WHERE agency_id NOT IN (SELECT id FROM agencies)'),
+    ).toBe(0);
+    expect(p.deps.pool.busy).toBe(0);
   });
 });

@@ -4,6 +4,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { allowedOrigins } from '../../server/http/security';
 import { MAX_VERTICES_STORED } from '../../server/imports/geometry';
+import type { TaskRef } from '../../server/pool/task';
 import { ListCache } from '../../server/segments/list-cache';
 import { APP_URL, createTestApp, type TestApp } from '../helpers/test-app';
 
@@ -47,27 +48,76 @@ describe('origin check', () => {
 });
 
 describe('a full disk', () => {
-  it('answers 507 with a message, and writes nothing', async () => {
-    const pages = (t.sqlite.pragma('page_count', { simple: true }) as number) + 0;
-    const count = () => (t.sqlite.prepare('SELECT count(*) AS n FROM segments').get() as { n: number }).n;
-    const before = count();
+  const rows = Array.from({ length: 3000 }, (_, i) => `FULL-${i},Full Rd ${'x'.repeat(100)},1,24,2,local,asphalt`);
+  const file = Buffer.from(
+    `segment_id,road_name,length_mi,width_ft,lanes,functional_class,surface\n${rows.join('\n')}\n`,
+  );
+  const count = (db: TestApp['sqlite']) => (db.prepare('SELECT count(*) AS n FROM segments').get() as { n: number }).n;
+
+  it('answers 507 with a message, and writes nothing (a write on the request thread)', async () => {
+    const pages = t.sqlite.pragma('page_count', { simple: true }) as number;
+    const before = count(t.sqlite);
     // SQLite's own limit on the file's size: writes past it fail with SQLITE_FULL, as on a full disk.
     t.sqlite.pragma(`max_page_count = ${pages}`);
+    let refused = -1;
     try {
-      const rows = Array.from({ length: 3000 }, (_, i) => `FULL-${i},Full Rd ${'x'.repeat(100)},1,24,2,local,asphalt`);
-      const res = await eng
-        .post(`/api/agencies/${t.ids.brannock}/imports`)
-        .attach(
-          'file',
-          Buffer.from(`segment_id,road_name,length_mi,width_ft,lanes,functional_class,surface\n${rows.join('\n')}\n`),
-          'full.csv',
-        );
+      // Segment edits with long notes, one at a time, until one needs a page the file may not grow by.
+      const ids = (
+        t.sqlite.prepare('SELECT id FROM segments WHERE agency_id = ? LIMIT 500').all(t.ids.brannock) as {
+          id: number;
+        }[]
+      ).map((r) => r.id);
+      let res: Awaited<ReturnType<typeof eng.patch>> | null = null;
+      for (const [i, id] of ids.entries()) {
+        res = await eng
+          .patch(`/api/agencies/${t.ids.brannock}/segments/${id}`)
+          .send({ notes: `full ${'x'.repeat(1990)}` });
+        if (res.status !== 200) {
+          refused = id;
+          break;
+        }
+        if (i === ids.length - 1) throw new Error('the file never filled');
+      }
+      expect(res!.status).toBe(507);
+      expect(res!.body.error).toMatchObject({ code: 'storage_full' });
+      expect(res!.body.error.message).toMatch(/disk is full, so nothing was saved/);
+    } finally {
+      t.sqlite.pragma('max_page_count = 4294967294');
+    }
+    // The edits before the full one were saved one by one; the one refused was not.
+    expect(count(t.sqlite)).toBe(before);
+    const notes = t.sqlite.prepare('SELECT notes FROM segments WHERE id = ?').get(refused) as { notes: string | null };
+    expect(notes.notes ?? '').not.toMatch(/^full /);
+  });
+
+  it('answers 507 when the write that finds the disk full runs in a worker (an import), and writes nothing', async () => {
+    // One worker thread, so the cap set on its connection is the one the import writes with.
+    const one = await createTestApp({ workers: { threads: 1, perAgency: 1, perUser: 1 } });
+    try {
+      const e = await one.as('engineer@brannock.example');
+      const owner = { userId: 'test', agencyId: null };
+      const limit = new URL('../helpers/page-limit.task.ts', import.meta.url);
+      await one.deps.pool.run(
+        { href: limit.href } as TaskRef<{ extraPages: number | null }, number>,
+        { extraPages: 0 },
+        owner,
+      );
+      const before = count(one.sqlite);
+      const res = await e.post(`/api/agencies/${one.ids.brannock}/imports`).attach('file', file, 'full.csv');
       expect(res.status).toBe(507);
       expect(res.body.error).toMatchObject({ code: 'storage_full' });
       expect(res.body.error.message).toMatch(/disk is full, so nothing was saved/);
-      expect(count()).toBe(before);
+      expect(count(one.sqlite)).toBe(before);
+      await one.deps.pool.run(
+        { href: limit.href } as TaskRef<{ extraPages: number | null }, number>,
+        { extraPages: null },
+        owner,
+      );
+      const again = await e.post(`/api/agencies/${one.ids.brannock}/imports`).attach('file', file, 'full.csv');
+      expect(again.status).toBe(200);
+      expect(count(one.sqlite)).toBe(before + 3000);
     } finally {
-      t.sqlite.pragma('max_page_count = 4294967294');
+      await one.close();
     }
   });
 });
