@@ -6,7 +6,7 @@ import * as service from './audit.service';
 
 export function auditRoutes(api: ApiRoutes, deps: Deps) {
   const admin = { kind: 'agency', role: 'admin' } as const;
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/audit',
     tag: 'Activity',
@@ -18,7 +18,7 @@ export function auditRoutes(api: ApiRoutes, deps: Deps) {
     response: AuditListSchema,
     handler: ({ agency, query }) => service.auditList(deps, agency!.id, query),
   });
-  api.add({
+  api.file({
     method: 'get',
     path: '/api/agencies/:agencyId/audit.csv',
     tag: 'Activity',

@@ -123,12 +123,25 @@ export function districtsOf(db: Db, agencyId: string) {
     .all();
 }
 
-export function segmentById(db: Db, agencyId: string, id: number) {
+export function segmentById(db: Pick<Db, 'select'>, agencyId: string, id: number) {
   return db
     .select()
     .from(segments)
     .where(and(eq(segments.agencyId, agencyId), eq(segments.id, id)))
     .get();
+}
+
+/** The segment's own columns changed, its `updatedAt` set now. */
+export function updateSegmentRow(
+  tx: Pick<Db, 'update'>,
+  agencyId: string,
+  id: number,
+  set: Partial<Omit<SegmentRow, 'id' | 'agencyId'>>,
+) {
+  tx.update(segments)
+    .set({ ...set, updatedAt: new Date().toISOString() })
+    .where(and(eq(segments.agencyId, agencyId), eq(segments.id, id)))
+    .run();
 }
 
 export function surveysOf(db: Db, agencyId: string, segmentRef: number) {
