@@ -2,6 +2,7 @@ import { AgencyParamsSchema } from '../../shared/schemas/common';
 import { AuditListSchema, AuditQuerySchema } from '../../shared/schemas/audit';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
+import { sendDownload } from '../http/download';
 import * as service from './audit.service';
 
 export function auditRoutes(api: ApiRoutes, deps: Deps) {
@@ -28,9 +29,7 @@ export function auditRoutes(api: ApiRoutes, deps: Deps) {
     query: AuditQuerySchema,
     responseDescription: 'text/csv',
     handler: ({ agency, query, res }) => {
-      res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-      res.setHeader('Content-Disposition', 'attachment; filename="activity.csv"');
-      res.send(service.auditCsv(deps, agency!.id, query));
+      sendDownload(res, 'activity', 'csv', service.auditCsv(deps, agency!.id, query));
     },
   });
 }

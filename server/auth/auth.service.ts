@@ -1,4 +1,3 @@
-import type { Role } from '../../shared/schemas/common';
 import { recordAudit } from '../audit';
 import type { Deps } from '../deps';
 import { agenciesOfUser, joinByInvitation } from '../members/members.service';
@@ -61,7 +60,7 @@ function openInvitation(deps: Deps, token: string) {
 export function invitationInfo(deps: Deps, token: string) {
   const { inv, agencyName } = openInvitation(deps, token);
   const existing = repo.userByEmail(deps.db, inv.email);
-  return { agencyName, email: inv.email, role: inv.role as Role, hasAccount: !!existing, expiresAt: inv.expiresAt };
+  return { agencyName, email: inv.email, role: inv.role, hasAccount: !!existing, expiresAt: inv.expiresAt };
 }
 
 /** Accepts an invitation: creates the account (or checks the existing one's password) and joins. */

@@ -21,7 +21,7 @@ export function treatmentRecordsOf(db: Pick<Db, 'select'>, agencyId: string, seg
     .leftJoin(users, eq(users.id, treatmentRecords.userId))
     .where(and(eq(treatmentRecords.agencyId, agencyId), eq(treatmentRecords.segmentRef, segmentRef)))
     .orderBy(desc(treatmentRecords.treatedOn), desc(treatmentRecords.id))
-    .all() as TreatmentRecord[];
+    .all();
 }
 
 export function catalogTreatmentOf(db: Pick<Db, 'select'>, agencyId: string, id: string) {

@@ -1,7 +1,7 @@
 import { and, asc, desc, eq, inArray, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
 import { CONDITION_BANDS } from '../../shared/condition';
 import { areaSy, laneMiles } from '../../shared/engine/quantities';
-import type { FunctionalClass, Segment, SegmentListQuery, Surface } from '../../shared/schemas/segments';
+import type { Segment, SegmentListQuery } from '../../shared/schemas/segments';
 import type { Db } from '../db/client';
 import { segments, surveys } from '../db/schema';
 import { fitVertices, type LineGeometry } from '../imports/geometry';
@@ -18,8 +18,8 @@ export function toSegment(r: SegmentRow): Segment {
     lengthMi: r.lengthMi,
     widthFt: r.widthFt,
     lanes: r.lanes,
-    functionalClass: r.functionalClass as FunctionalClass,
-    surface: r.surface as Surface,
+    functionalClass: r.functionalClass,
+    surface: r.surface,
     adt: r.adt,
     truckPct: r.truckPct,
     district: r.district,
