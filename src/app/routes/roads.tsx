@@ -13,21 +13,7 @@ import { SegmentTable } from '@/features/segments/components/segment-table';
 import { CLASS_LABELS, fmt1, fmtInt, SURFACE_LABELS } from '@/lib/format';
 import { useAgency } from '../use-agency';
 
-const FILTER_KEYS = ['q', 'class', 'surface', 'band', 'district'] as const;
-type Filters = Record<(typeof FILTER_KEYS)[number], string | undefined>;
-
-/** The active filters in words, for the empty table: `road or id “PV-”, surface gravel`. */
-function describeFilters(f: Filters) {
-  const band = CONDITION_BANDS.find((b) => b.id === f.band);
-  const parts = [
-    f.q && `road or id “${f.q}”`,
-    f.class && `class ${CLASS_LABELS[f.class]?.toLowerCase() ?? f.class}`,
-    f.surface && `surface ${SURFACE_LABELS[f.surface]?.toLowerCase() ?? f.surface}`,
-    f.band && (band ? `condition ${band.label.toLowerCase()} (PCI ${band.min}–${band.max})` : 'no PCI'),
-    f.district && `district ${f.district}`,
-  ].filter(Boolean);
-  return `Filtered by ${parts.join(', ')}. Loosen one of them or clear them all.`;
-}
+import { describeFilters, FILTER_KEYS, type Filters } from '@/features/segments/lib/filters';
 
 export function RoadsPage() {
   const { agencyId, membership } = useAgency();
