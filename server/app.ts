@@ -21,7 +21,7 @@ import { auditRoutes } from './audit-log/audit.routes';
 import { installPlainZodMessages } from '../shared/schemas/plain-errors';
 import { agencyRoutes } from './agencies/agencies.routes';
 import { memberRoutes } from './members/members.routes';
-import { membershipFor } from './agencies/agencies.repo';
+import { roleIn } from './members/members.service';
 import { runRoutes } from './runs/runs.routes';
 import { buildOpenApiDocument } from './openapi/openapi';
 import { segmentRoutes } from './segments/segments.routes';
@@ -104,7 +104,7 @@ export function createApp(deps: Deps) {
   runRoutes(routes, deps);
   const router = express.Router();
   mountApiRoutes(router, routes, deps, {
-    roleIn: (userId, agencyId) => membershipFor(deps.db, userId, agencyId),
+    roleIn: (userId, agencyId) => roleIn(deps, userId, agencyId),
     jsonLimit: JSON_LIMIT,
   });
   app.use(router);

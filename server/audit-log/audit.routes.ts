@@ -2,11 +2,12 @@ import { AgencyParamsSchema } from '../../shared/schemas/common';
 import { AuditListSchema, AuditQuerySchema } from '../../shared/schemas/audit';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
+import { sendDownload } from '../http/download';
 import * as service from './audit.service';
 
 export function auditRoutes(api: ApiRoutes, deps: Deps) {
   const admin = { kind: 'agency', role: 'admin' } as const;
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/audit',
     tag: 'Activity',
@@ -18,7 +19,7 @@ export function auditRoutes(api: ApiRoutes, deps: Deps) {
     response: AuditListSchema,
     handler: ({ agency, query }) => service.auditList(deps, agency!.id, query),
   });
-  api.add({
+  api.file({
     method: 'get',
     path: '/api/agencies/:agencyId/audit.csv',
     tag: 'Activity',
@@ -28,9 +29,7 @@ export function auditRoutes(api: ApiRoutes, deps: Deps) {
     query: AuditQuerySchema,
     responseDescription: 'text/csv',
     handler: ({ agency, query, res }) => {
-      res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-      res.setHeader('Content-Disposition', 'attachment; filename="activity.csv"');
-      res.send(service.auditCsv(deps, agency!.id, query));
+      sendDownload(res, 'activity', 'csv', service.auditCsv(deps, agency!.id, query));
     },
   });
 }

@@ -43,7 +43,7 @@ export function authRoutes(api: ApiRoutes, deps: Deps, pp: PassportStatic) {
   const signInLimit = limiter(deps.config.signInRateLimit, byEmail, { skipSuccessfulRequests: true });
   const resetLimit = limiter(deps.config.signInRateLimit, byEmail);
 
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/auth/sign-in/email',
     tag: 'Auth',
@@ -59,7 +59,7 @@ export function authRoutes(api: ApiRoutes, deps: Deps, pp: PassportStatic) {
     },
   });
 
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/auth/sign-out',
     tag: 'Auth',
@@ -69,11 +69,11 @@ export function authRoutes(api: ApiRoutes, deps: Deps, pp: PassportStatic) {
     handler: async ({ req, res }) => {
       if (req.session) await logOut(req);
       res.clearCookie('wearcourse.sid', { path: '/' });
-      return { ok: true };
+      return { ok: true as const };
     },
   });
 
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/me',
     tag: 'Auth',
@@ -83,7 +83,7 @@ export function authRoutes(api: ApiRoutes, deps: Deps, pp: PassportStatic) {
     handler: ({ user }) => service.me(deps, user!),
   });
 
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/auth/forgot-password',
     tag: 'Auth',
@@ -98,11 +98,11 @@ export function authRoutes(api: ApiRoutes, deps: Deps, pp: PassportStatic) {
       setImmediate(() => {
         service.requestPasswordReset(deps, body.email).catch((err) => console.error('password reset mail:', err));
       });
-      return { ok: true };
+      return { ok: true as const };
     },
   });
 
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/auth/reset-password',
     tag: 'Auth',
@@ -113,11 +113,11 @@ export function authRoutes(api: ApiRoutes, deps: Deps, pp: PassportStatic) {
     before: [limiter(deps.config.signInRateLimit, () => 'reset')],
     handler: async ({ body }) => {
       await service.resetPassword(deps, body.token, body.password);
-      return { ok: true };
+      return { ok: true as const };
     },
   });
 
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/invitations/:token',
     tag: 'Auth',
@@ -128,7 +128,7 @@ export function authRoutes(api: ApiRoutes, deps: Deps, pp: PassportStatic) {
     handler: ({ params }) => service.invitationInfo(deps, params.token),
   });
 
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/invitations/:token/accept',
     tag: 'Auth',

@@ -1,30 +1,24 @@
-import { and, eq, gt, isNull, sql } from 'drizzle-orm';
-import { ROLE_RANK, type Role } from '../../shared/schemas/common';
-import { membershipsOf } from '../agencies/agencies.repo';
 import { recordAudit } from '../audit';
 import type { Deps } from '../deps';
-import { agencies, invitations, memberships, passwordResets, users } from '../db/schema';
+import { agenciesOfUser, joinByInvitation } from '../members/members.service';
 import type { SessionUser } from '../http/api';
 import { HttpError } from '../http/errors';
+import * as repo from './auth.repo';
 import { hashPassword, verifyPassword } from './passwords';
-import { hashToken, isoIn, newId, newToken } from './tokens';
+import { hashToken, isoIn, newId, newToken } from '../ids';
 
 export const RESET_TTL_MS = 60 * 60 * 1000; // one hour
-export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000; // one week
 
 export function me(deps: Deps, user: SessionUser) {
-  return { user, memberships: membershipsOf(deps.db, user.id), mailCatcher: deps.mailer.usesCatcher };
+  return { user, memberships: agenciesOfUser(deps, user.id), mailCatcher: deps.mailer.usesCatcher };
 }
 
 export async function requestPasswordReset(deps: Deps, email: string) {
-  const user = deps.db.select().from(users).where(eq(users.email, email)).get();
+  const user = repo.userByEmail(deps.db, email);
   // Same answer whether or not the account exists.
   if (!user) return;
   const { token, hash } = newToken();
-  deps.db
-    .insert(passwordResets)
-    .values({ id: newId(), userId: user.id, tokenHash: hash, expiresAt: isoIn(RESET_TTL_MS) })
-    .run();
+  repo.insertPasswordReset(deps.db, { id: newId(), userId: user.id, tokenHash: hash, expiresAt: isoIn(RESET_TTL_MS) });
   const link = `${deps.config.appUrl}/reset-password/${token}`;
   await deps.mailer.send({
     to: user.email,
@@ -35,37 +29,17 @@ export async function requestPasswordReset(deps: Deps, email: string) {
 
 export async function resetPassword(deps: Deps, token: string, password: string) {
   const now = new Date().toISOString();
-  const row = deps.db
-    .select()
-    .from(passwordResets)
-    .where(
-      and(
-        eq(passwordResets.tokenHash, hashToken(token)),
-        isNull(passwordResets.usedAt),
-        gt(passwordResets.expiresAt, now),
-      ),
-    )
-    .get();
+  const row = repo.openPasswordReset(deps.db, hashToken(token), now);
   if (!row)
     throw new HttpError(400, 'invalid_token', 'This reset link is invalid, used or expired. Ask for a new one.');
   const passwordHash = await hashPassword(password);
   deps.db.transaction((tx) => {
     // Mark used first and check the count: two racing requests cannot both win.
-    const used = tx
-      .update(passwordResets)
-      .set({ usedAt: now })
-      .where(and(eq(passwordResets.id, row.id), isNull(passwordResets.usedAt)))
-      .run();
-    if (used.changes !== 1) throw new HttpError(400, 'invalid_token', 'This reset link has already been used.');
+    if (repo.usePasswordReset(tx, row.id, now) !== 1)
+      throw new HttpError(400, 'invalid_token', 'This reset link has already been used.');
     // Any other link still out for this account stops working: only the newest use counts.
-    tx.update(passwordResets)
-      .set({ usedAt: now })
-      .where(and(eq(passwordResets.userId, row.userId), isNull(passwordResets.usedAt)))
-      .run();
-    tx.update(users)
-      .set({ passwordHash, sessionVersion: sql`${users.sessionVersion} + 1` })
-      .where(eq(users.id, row.userId))
-      .run();
+    repo.useAllPasswordResets(tx, row.userId, now);
+    repo.setPassword(tx, row.userId, passwordHash);
     recordAudit(tx, {
       agencyId: null,
       userId: row.userId,
@@ -78,27 +52,15 @@ export async function resetPassword(deps: Deps, token: string, password: string)
 
 function openInvitation(deps: Deps, token: string) {
   const now = new Date().toISOString();
-  const row = deps.db
-    .select({ inv: invitations, agencyName: agencies.name })
-    .from(invitations)
-    .innerJoin(agencies, eq(agencies.id, invitations.agencyId))
-    .where(
-      and(
-        eq(invitations.tokenHash, hashToken(token)),
-        isNull(invitations.acceptedAt),
-        isNull(invitations.revokedAt),
-        gt(invitations.expiresAt, now),
-      ),
-    )
-    .get();
+  const row = repo.openInvitation(deps.db, hashToken(token), now);
   if (!row) throw new HttpError(404, 'invalid_token', 'This invitation is invalid, used, withdrawn or expired.');
   return row;
 }
 
 export function invitationInfo(deps: Deps, token: string) {
   const { inv, agencyName } = openInvitation(deps, token);
-  const existing = deps.db.select({ id: users.id }).from(users).where(eq(users.email, inv.email)).get();
-  return { agencyName, email: inv.email, role: inv.role as Role, hasAccount: !!existing, expiresAt: inv.expiresAt };
+  const existing = repo.userByEmail(deps.db, inv.email);
+  return { agencyName, email: inv.email, role: inv.role, hasAccount: !!existing, expiresAt: inv.expiresAt };
 }
 
 /** Accepts an invitation: creates the account (or checks the existing one's password) and joins. */
@@ -108,7 +70,7 @@ export async function acceptInvitation(
   input: { name?: string; password: string },
 ): Promise<SessionUser> {
   const { inv } = openInvitation(deps, token);
-  const existing = deps.db.select().from(users).where(eq(users.email, inv.email)).get();
+  const existing = repo.userByEmail(deps.db, inv.email);
   let userId: string;
   let newUser: { id: string; email: string; name: string; passwordHash: string } | null = null;
   if (existing) {
@@ -135,34 +97,19 @@ export async function acceptInvitation(
     newUser = { id: userId, email: inv.email, name: input.name, passwordHash: await hashPassword(input.password) };
   }
   deps.db.transaction((tx) => {
-    const taken = tx
-      .update(invitations)
-      .set({ acceptedAt: new Date().toISOString() })
-      .where(and(eq(invitations.id, inv.id), isNull(invitations.acceptedAt)))
-      .run();
-    if (taken.changes !== 1) throw new HttpError(404, 'invalid_token', 'This invitation has already been used.');
-    if (newUser) tx.insert(users).values(newUser).run();
-    // An invitation grants access; it never lowers a role someone already has. A stale
-    // viewer invitation accepted by the agency's only admin leaves them admin.
-    const current = tx
-      .select({ role: memberships.role })
-      .from(memberships)
-      .where(and(eq(memberships.agencyId, inv.agencyId), eq(memberships.userId, userId)))
-      .get();
-    const role = current && ROLE_RANK[current.role] >= ROLE_RANK[inv.role] ? current.role : inv.role;
-    tx.insert(memberships)
-      .values({ agencyId: inv.agencyId, userId, role })
-      .onConflictDoUpdate({ target: [memberships.agencyId, memberships.userId], set: { role } })
-      .run();
+    if (repo.acceptInvitationRow(tx, inv.id) !== 1)
+      throw new HttpError(404, 'invalid_token', 'This invitation has already been used.');
+    if (newUser) repo.insertUser(tx, newUser);
+    const { role, before } = joinByInvitation(tx, inv.agencyId, userId, inv.role);
     recordAudit(tx, {
       agencyId: inv.agencyId,
       userId,
       action: 'membership.join',
       entity: 'membership',
       entityId: userId,
-      detail: { role, invitedAs: inv.role, email: inv.email, before: current?.role ?? null },
+      detail: { role, invitedAs: inv.role, email: inv.email, before },
     });
   });
-  const u = deps.db.select().from(users).where(eq(users.id, userId)).get()!;
+  const u = repo.userById(deps.db, userId)!;
   return { id: u.id, email: u.email, name: u.name };
 }

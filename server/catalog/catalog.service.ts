@@ -12,7 +12,7 @@ import {
   type TreatmentInput,
 } from '../../shared/schemas/catalog';
 import { recordAudit } from '../audit';
-import { newId } from '../auth/tokens';
+import { newId } from '../ids';
 import type { Deps } from '../deps';
 import { HttpError, notFound } from '../http/errors';
 import * as repo from './catalog.repo';

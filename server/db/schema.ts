@@ -14,6 +14,8 @@ import {
   TREATMENT_CATEGORIES,
   TREATMENT_KINDS,
 } from '../../shared/schemas/catalog';
+import { ROLES } from '../../shared/schemas/common';
+import { FUNCTIONAL_CLASSES, SURFACES } from '../../shared/schemas/segments';
 import { RUN_KINDS, RUN_STATUSES, type RunError } from '../../shared/schemas/runs';
 
 const createdAt = () => text().notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
@@ -58,7 +60,7 @@ export const memberships = sqliteTable(
     userId: text()
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
-    role: text({ enum: ['admin', 'engineer', 'viewer'] }).notNull(),
+    role: text({ enum: ROLES }).notNull(),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex('memberships_agency_user').on(t.agencyId, t.userId)],
@@ -72,7 +74,7 @@ export const invitations = sqliteTable(
       .notNull()
       .references(() => agencies.id, { onDelete: 'cascade' }),
     email: text().notNull(),
-    role: text({ enum: ['admin', 'engineer', 'viewer'] }).notNull(),
+    role: text({ enum: ROLES }).notNull(),
     tokenHash: text().notNull().unique(),
     invitedBy: text().references(() => users.id, { onDelete: 'set null' }),
     expiresAt: text().notNull(),
@@ -125,8 +127,8 @@ export const segments = sqliteTable(
     lengthMi: real().notNull(),
     widthFt: real().notNull(),
     lanes: integer().notNull(),
-    functionalClass: text().notNull(),
-    surface: text().notNull(),
+    functionalClass: text({ enum: FUNCTIONAL_CLASSES }).notNull(),
+    surface: text({ enum: SURFACES }).notNull(),
     adt: integer(),
     truckPct: real(),
     district: text(),
@@ -177,7 +179,7 @@ export const treatmentRecords = sqliteTable(
       .notNull()
       .references(() => segments.id, { onDelete: 'cascade' }),
     treatedOn: text().notNull(), // ISO date the work was finished
-    kind: text().notNull(), // TREATMENT_KINDS
+    kind: text({ enum: TREATMENT_KINDS }).notNull(),
     name: text().notNull(),
     treatmentId: text().references(() => treatments.id, { onDelete: 'set null' }),
     mix: text(),

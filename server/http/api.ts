@@ -66,9 +66,22 @@ export type RouteDef<
   handler: (ctx: Ctx<Out<PS>, Out<QS>, Out<BS>>) => unknown | Promise<unknown>;
 };
 
+declare const answered: unique symbol;
+/** What a typed handler returns when it wrote the answer itself (`sendJsonText`). */
+export type Answered = { readonly [answered]: true };
+
 /**
- * A JSON route whose handler must return what its response schema describes
- * (checked by the compiler; `response` is required). Opt in with `api.typed`.
+ * Sends JSON text the caller already holds (a cached page, stored result bytes) as the answer of a
+ * typed route; the text must be what the route's response schema describes.
+ */
+export function sendJsonText(res: Response, json: string | Buffer): Answered {
+  res.type('application/json').send(json);
+  return undefined as unknown as Answered;
+}
+
+/**
+ * A JSON route: `response` is required and the compiler checks that the handler returns what it
+ * describes (or `sendJsonText(...)` for JSON text it already holds).
  */
 export type TypedRouteDef<
   PS extends AnyZod | undefined,
@@ -77,15 +90,31 @@ export type TypedRouteDef<
   RS extends AnyZod,
 > = Omit<RouteDef<PS, QS, BS>, 'response' | 'handler'> & {
   response: RS;
-  handler: (ctx: Ctx<Out<PS>, Out<QS>, Out<BS>>) => NoInfer<z.output<RS>> | Promise<NoInfer<z.output<RS>>>;
+  handler: (
+    ctx: Ctx<Out<PS>, Out<QS>, Out<BS>>,
+  ) => NoInfer<z.output<RS>> | Answered | Promise<NoInfer<z.output<RS>> | Answered>;
+};
+
+/** A route that answers with a file or a stream itself: it says what it sends, and returns nothing. */
+export type FileRouteDef<
+  PS extends AnyZod | undefined,
+  QS extends AnyZod | undefined,
+  BS extends AnyZod | undefined,
+> = Omit<RouteDef<PS, QS, BS>, 'response' | 'handler' | 'responseDescription'> & {
+  responseDescription: string;
+  handler: (ctx: Ctx<Out<PS>, Out<QS>, Out<BS>>) => void | Promise<void>;
 };
 
 export type ApiRoutes = {
   list: RouteDef[];
+  /**
+   * @deprecated The unchecked declaration, kept until the last modules move to `typed` (JSON) or
+   * `file` (files and streams). New routes use those two.
+   */
   add: <PS extends AnyZod | undefined, QS extends AnyZod | undefined, BS extends AnyZod | undefined>(
     def: RouteDef<PS, QS, BS>,
   ) => void;
-  /** Like `add`, with the handler's return checked against `response` at compile time. */
+  /** A JSON route, its handler's return checked against `response` at compile time. */
   typed: <
     PS extends AnyZod | undefined,
     QS extends AnyZod | undefined,
@@ -93,6 +122,10 @@ export type ApiRoutes = {
     RS extends AnyZod,
   >(
     def: TypedRouteDef<PS, QS, BS, RS>,
+  ) => void;
+  /** A file or stream route: no JSON answer, `responseDescription` says what is sent. */
+  file: <PS extends AnyZod | undefined, QS extends AnyZod | undefined, BS extends AnyZod | undefined>(
+    def: FileRouteDef<PS, QS, BS>,
   ) => void;
 };
 
@@ -104,7 +137,7 @@ export function createApiRoutes(): ApiRoutes {
     }
     list.push(def as unknown as RouteDef);
   };
-  return { list, add, typed: add };
+  return { list, add, typed: add, file: add };
 }
 
 function authorize(def: RouteDef, req: Request, roleIn: MembershipLookup) {

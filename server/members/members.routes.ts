@@ -3,6 +3,7 @@ import {
   CaughtMailListSchema,
   ChangeRoleBodySchema,
   InvitationParamsSchema,
+  InvitationSentSchema,
   InviteBodySchema,
   MemberParamsSchema,
   MembersResponseSchema,
@@ -13,7 +14,7 @@ import * as service from './members.service';
 
 export function memberRoutes(api: ApiRoutes, deps: Deps) {
   const admin = { kind: 'agency', role: 'admin' } as const;
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/members',
     tag: 'Members',
@@ -23,7 +24,7 @@ export function memberRoutes(api: ApiRoutes, deps: Deps) {
     response: MembersResponseSchema,
     handler: ({ agency }) => service.listMembers(deps, agency!.id),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/agencies/:agencyId/invitations',
     tag: 'Members',
@@ -32,9 +33,10 @@ export function memberRoutes(api: ApiRoutes, deps: Deps) {
     params: AgencyParamsSchema,
     body: InviteBodySchema,
     status: 201,
+    response: InvitationSentSchema,
     handler: ({ agency, user, body }) => service.invite(deps, agency!.id, user!.id, body),
   });
-  api.add({
+  api.typed({
     method: 'delete',
     path: '/api/agencies/:agencyId/invitations/:invitationId',
     tag: 'Members',
@@ -42,12 +44,9 @@ export function memberRoutes(api: ApiRoutes, deps: Deps) {
     access: admin,
     params: InvitationParamsSchema,
     response: OkSchema,
-    handler: ({ agency, user, params }) => {
-      service.revokeInvitation(deps, agency!.id, user!.id, params.invitationId);
-      return { ok: true };
-    },
+    handler: ({ agency, user, params }) => service.revokeInvitation(deps, agency!.id, user!.id, params.invitationId),
   });
-  api.add({
+  api.typed({
     method: 'patch',
     path: '/api/agencies/:agencyId/members/:userId',
     tag: 'Members',
@@ -56,12 +55,10 @@ export function memberRoutes(api: ApiRoutes, deps: Deps) {
     params: MemberParamsSchema,
     body: ChangeRoleBodySchema,
     response: OkSchema,
-    handler: ({ agency, user, params, body }) => {
-      service.changeRole(deps, agency!.id, user!.id, params.userId, body.role);
-      return { ok: true };
-    },
+    handler: ({ agency, user, params, body }) =>
+      service.changeRole(deps, agency!.id, user!.id, params.userId, body.role),
   });
-  api.add({
+  api.typed({
     method: 'delete',
     path: '/api/agencies/:agencyId/members/:userId',
     tag: 'Members',
@@ -69,12 +66,9 @@ export function memberRoutes(api: ApiRoutes, deps: Deps) {
     access: admin,
     params: MemberParamsSchema,
     response: OkSchema,
-    handler: ({ agency, user, params }) => {
-      service.removeMember(deps, agency!.id, user!.id, params.userId);
-      return { ok: true };
-    },
+    handler: ({ agency, user, params }) => service.removeMember(deps, agency!.id, user!.id, params.userId),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/sent-mail',
     tag: 'Members',

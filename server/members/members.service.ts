@@ -1,73 +1,57 @@
-import { and, desc, eq, gt, isNull } from 'drizzle-orm';
 import type { InviteBody } from '../../shared/schemas/members';
-import type { Role } from '../../shared/schemas/common';
+import { ROLE_RANK, type Role } from '../../shared/schemas/common';
 import { agencyById } from '../agencies/agencies.repo';
 import { recordAudit } from '../audit';
-import { INVITATION_TTL_MS } from '../auth/auth.service';
-import { isoIn, newId, newToken } from '../auth/tokens';
+import { isoIn, newId, newToken } from '../ids';
 import type { Deps } from '../deps';
-import { caughtMail, invitations, memberships, users } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
+import * as repo from './members.repo';
+
+export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000; // one week
 
 export function listMembers(deps: Deps, agencyId: string) {
-  const members = deps.db
-    .select({
-      userId: users.id,
-      email: users.email,
-      name: users.name,
-      role: memberships.role,
-      since: memberships.createdAt,
-    })
-    .from(memberships)
-    .innerJoin(users, eq(users.id, memberships.userId))
-    .where(eq(memberships.agencyId, agencyId))
-    .orderBy(users.name)
-    .all();
-  const pending = deps.db
-    .select({
-      id: invitations.id,
-      email: invitations.email,
-      role: invitations.role,
-      expiresAt: invitations.expiresAt,
-      createdAt: invitations.createdAt,
-    })
-    .from(invitations)
-    .where(
-      and(
-        eq(invitations.agencyId, agencyId),
-        isNull(invitations.acceptedAt),
-        isNull(invitations.revokedAt),
-        gt(invitations.expiresAt, new Date().toISOString()),
-      ),
-    )
-    .orderBy(desc(invitations.createdAt))
-    .all();
-  return { members, invitations: pending };
+  return { members: repo.membersOf(deps.db, agencyId), invitations: repo.pendingInvitations(deps.db, agencyId) };
+}
+
+/** The caller's role in the agency, or null when not a member (the API's access check asks this). */
+export const roleIn = (deps: Pick<Deps, 'db'>, userId: string, agencyId: string) =>
+  repo.roleIn(deps.db, userId, agencyId);
+
+/** The agencies a person belongs to, with their role in each. */
+export const agenciesOfUser = (deps: Pick<Deps, 'db'>, userId: string) => repo.agenciesOfUser(deps.db, userId);
+
+/**
+ * Joins the agency with an invitation's role. An invitation grants access; it never lowers a role
+ * someone already has: a stale viewer invitation accepted by the agency's only admin leaves them admin.
+ */
+export function joinByInvitation(
+  tx: Parameters<Parameters<Deps['db']['transaction']>[0]>[0],
+  agencyId: string,
+  userId: string,
+  invitedAs: Role,
+) {
+  const current = repo.membership(tx, agencyId, userId);
+  const role = current && ROLE_RANK[current.role] >= ROLE_RANK[invitedAs] ? current.role : invitedAs;
+  repo.upsertMembership(tx, agencyId, userId, role);
+  return { role, before: current?.role ?? null };
 }
 
 export async function invite(deps: Deps, agencyId: string, byUserId: string, input: InviteBody) {
   const agency = agencyById(deps.db, agencyId)!;
-  const already = deps.db
-    .select({ id: memberships.id })
-    .from(memberships)
-    .innerJoin(users, eq(users.id, memberships.userId))
-    .where(and(eq(memberships.agencyId, agencyId), eq(users.email, input.email)))
-    .get();
+  const already = repo.memberByEmail(deps.db, agencyId, input.email);
   if (already) throw new HttpError(409, 'already_member', `${input.email} is already a member of ${agency.name}`);
   const { token, hash } = newToken();
   const id = newId();
   deps.db.transaction((tx) => {
-    tx.insert(invitations)
-      .values({
-        id,
-        agencyId,
-        email: input.email,
-        role: input.role,
-        tokenHash: hash,
-        invitedBy: byUserId,
-        expiresAt: isoIn(INVITATION_TTL_MS),
-      })
-      .run();
+    repo.insertInvitation(tx, {
+      id,
+      agencyId,
+      email: input.email,
+      role: input.role,
+      tokenHash: hash,
+      invitedBy: byUserId,
+      expiresAt: isoIn(INVITATION_TTL_MS),
+    });
     recordAudit(tx, {
       agencyId,
       userId: byUserId,
@@ -89,12 +73,7 @@ export async function invite(deps: Deps, agencyId: string, byUserId: string, inp
 
 export function revokeInvitation(deps: Deps, agencyId: string, byUserId: string, invitationId: string) {
   deps.db.transaction((tx) => {
-    const res = tx
-      .update(invitations)
-      .set({ revokedAt: new Date().toISOString() })
-      .where(and(eq(invitations.id, invitationId), eq(invitations.agencyId, agencyId), isNull(invitations.acceptedAt)))
-      .run();
-    if (res.changes !== 1) throw notFound('No such pending invitation');
+    if (repo.revokePending(tx, agencyId, invitationId) !== 1) throw notFound('No such pending invitation');
     recordAudit(tx, {
       agencyId,
       userId: byUserId,
@@ -103,28 +82,17 @@ export function revokeInvitation(deps: Deps, agencyId: string, byUserId: string,
       entityId: invitationId,
     });
   });
-}
-
-function adminCount(deps: Deps, agencyId: string) {
-  return deps.db
-    .select({ id: memberships.id })
-    .from(memberships)
-    .where(and(eq(memberships.agencyId, agencyId), eq(memberships.role, 'admin')))
-    .all().length;
+  return { ok: true as const };
 }
 
 export function changeRole(deps: Deps, agencyId: string, byUserId: string, userId: string, role: Role) {
   deps.db.transaction((tx) => {
-    const current = tx
-      .select()
-      .from(memberships)
-      .where(and(eq(memberships.agencyId, agencyId), eq(memberships.userId, userId)))
-      .get();
+    const current = repo.membership(tx, agencyId, userId);
     if (!current) throw notFound('No such member');
-    if (current.role === 'admin' && role !== 'admin' && adminCount(deps, agencyId) <= 1) {
+    if (current.role === 'admin' && role !== 'admin' && repo.adminCount(tx, agencyId) <= 1) {
       throw new HttpError(409, 'last_admin', 'An agency keeps at least one admin');
     }
-    tx.update(memberships).set({ role }).where(eq(memberships.id, current.id)).run();
+    repo.setRole(tx, current.id, role);
     recordAudit(tx, {
       agencyId,
       userId: byUserId,
@@ -134,20 +102,17 @@ export function changeRole(deps: Deps, agencyId: string, byUserId: string, userI
       detail: { before: current.role, after: role },
     });
   });
+  return { ok: true as const };
 }
 
 export function removeMember(deps: Deps, agencyId: string, byUserId: string, userId: string) {
   deps.db.transaction((tx) => {
-    const current = tx
-      .select()
-      .from(memberships)
-      .where(and(eq(memberships.agencyId, agencyId), eq(memberships.userId, userId)))
-      .get();
+    const current = repo.membership(tx, agencyId, userId);
     if (!current) throw notFound('No such member');
-    if (current.role === 'admin' && adminCount(deps, agencyId) <= 1) {
+    if (current.role === 'admin' && repo.adminCount(tx, agencyId) <= 1) {
       throw new HttpError(409, 'last_admin', 'An agency keeps at least one admin');
     }
-    tx.delete(memberships).where(eq(memberships.id, current.id)).run();
+    repo.deleteMembership(tx, current.id);
     recordAudit(tx, {
       agencyId,
       userId: byUserId,
@@ -157,23 +122,11 @@ export function removeMember(deps: Deps, agencyId: string, byUserId: string, use
       detail: { role: current.role },
     });
   });
+  return { ok: true as const };
 }
 
 export function caughtMailFor(deps: Deps, agencyId: string) {
   if (!deps.mailer.usesCatcher) return { enabled: false, items: [] };
-  const items = deps.db
-    .select({
-      id: caughtMail.id,
-      fromAddress: caughtMail.fromAddress,
-      toAddress: caughtMail.toAddress,
-      subject: caughtMail.subject,
-      textBody: caughtMail.textBody,
-      receivedAt: caughtMail.receivedAt,
-    })
-    .from(caughtMail)
-    .where(eq(caughtMail.agencyId, agencyId))
-    .orderBy(desc(caughtMail.id))
-    .limit(200)
-    .all();
+  const items = repo.caughtMailOf(deps.db, agencyId);
   return { enabled: true, items };
 }

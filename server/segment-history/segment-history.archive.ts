@@ -2,12 +2,11 @@
 // catalog treatment by name) and back in on restore, where each row is checked
 // with the API's own schema before anything is written. Who recorded a job is
 // not carried: the restored agency has other members.
-import { and, asc, eq } from 'drizzle-orm';
 import Papa from 'papaparse';
 import { type TreatmentRecordInput, TreatmentRecordInputSchema } from '../../shared/schemas/segment-history';
 import { toCsv, unescapeFormula } from '../csv';
 import type { Db } from '../db/client';
-import { treatmentRecords, treatments } from '../db/schema';
+import * as repo from './segment-history.repo';
 
 export const TREATMENT_RECORD_FIELDS = [
   'segment_id',
@@ -22,13 +21,7 @@ export const TREATMENT_RECORD_FIELDS = [
 ] as const;
 
 export function treatmentRecordsCsv(db: Db, agencyId: string, segmentIdOf: Map<number, string>) {
-  const rows = db
-    .select({ r: treatmentRecords, catalog: treatments.name })
-    .from(treatmentRecords)
-    .leftJoin(treatments, eq(treatments.id, treatmentRecords.treatmentId))
-    .where(eq(treatmentRecords.agencyId, agencyId))
-    .orderBy(asc(treatmentRecords.treatedOn), asc(treatmentRecords.id))
-    .all();
+  const rows = repo.agencyTreatmentRecords(db, agencyId);
   const data = rows
     .map(({ r, catalog }) => [
       segmentIdOf.get(r.segmentRef) ?? '',
@@ -96,27 +89,19 @@ export function restoreTreatmentRecords(
 ) {
   let n = 0;
   for (const { segmentId, catalogTreatment, input } of records) {
-    const catalog = catalogTreatment
-      ? tx
-          .select({ id: treatments.id })
-          .from(treatments)
-          .where(and(eq(treatments.agencyId, agencyId), eq(treatments.name, catalogTreatment)))
-          .get()
-      : undefined;
-    tx.insert(treatmentRecords)
-      .values({
-        agencyId,
-        segmentRef: refOf.get(segmentId)!,
-        treatedOn: input.treatedOn,
-        kind: input.kind,
-        name: input.name,
-        treatmentId: catalog?.id ?? null,
-        mix: input.mix,
-        thicknessIn: input.thicknessIn,
-        costUsd: input.costUsd,
-        notes: input.notes,
-      })
-      .run();
+    const catalog = catalogTreatment ? repo.catalogTreatmentNamed(tx, agencyId, catalogTreatment) : undefined;
+    repo.insertTreatmentRecord(tx, {
+      agencyId,
+      segmentRef: refOf.get(segmentId)!,
+      treatedOn: input.treatedOn,
+      kind: input.kind,
+      name: input.name,
+      treatmentId: catalog?.id ?? null,
+      mix: input.mix,
+      thicknessIn: input.thicknessIn,
+      costUsd: input.costUsd,
+      notes: input.notes,
+    });
     n++;
   }
   return n;

@@ -12,7 +12,7 @@ import * as service from './segment-history.service';
 // A segment's history: condition surveys added by hand and the work done on it.
 export function segmentHistoryRoutes(api: ApiRoutes, deps: Deps) {
   const base = '/api/agencies/:agencyId/segments/:id';
-  api.add({
+  api.typed({
     method: 'post',
     path: `${base}/surveys`,
     tag: 'Segments',
@@ -24,7 +24,7 @@ export function segmentHistoryRoutes(api: ApiRoutes, deps: Deps) {
     response: SegmentDetailSchema,
     handler: ({ agency, user, params, body }) => service.addSurvey(deps, agency!.id, user!.id, params.id, body),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: `${base}/treatments`,
     tag: 'Segments',
@@ -34,7 +34,7 @@ export function segmentHistoryRoutes(api: ApiRoutes, deps: Deps) {
     response: TreatmentRecordListSchema,
     handler: ({ agency, params }) => service.treatmentHistory(deps, agency!.id, params.id),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: `${base}/treatments`,
     tag: 'Segments',

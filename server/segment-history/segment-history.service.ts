@@ -1,12 +1,11 @@
-import { and, eq } from 'drizzle-orm';
 import type { SurveyInput, TreatmentRecordInput } from '../../shared/schemas/segment-history';
 import { TREATMENT_KIND_LABELS } from '../../shared/schemas/catalog';
 import { recordAudit } from '../audit';
 import type { Db } from '../db/client';
-import { segments, surveys } from '../db/schema';
+import type { SegmentRow } from '../segments/segments.service';
 import type { Deps } from '../deps';
 import { HttpError, notFound } from '../http/errors';
-import { segmentDetail } from '../segments/segments.service';
+import { segmentDetail, segmentRowIn, touchSegment } from '../segments/segments.service';
 import * as repo from './segment-history.repo';
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
@@ -15,32 +14,24 @@ const conflict = (path: string, message: string) =>
   new HttpError(409, 'conflict', `${path} — ${message}`, [{ path: `body.${path}`, message }]);
 
 function segmentOf(tx: Tx, agencyId: string, id: number) {
-  const row = tx
-    .select()
-    .from(segments)
-    .where(and(eq(segments.agencyId, agencyId), eq(segments.id, id)))
-    .get();
+  const row = segmentRowIn(tx, agencyId, id);
   if (!row) throw notFound('No such segment');
   return row;
 }
 
 /** Inserts a survey and, when it is the newest, makes it the segment's latest PCI. */
-function addSurveyRow(tx: Tx, agencyId: string, seg: typeof segments.$inferSelect, s: SurveyInput, field: string) {
-  const clash = tx
-    .select({ id: surveys.id })
-    .from(surveys)
-    .where(and(eq(surveys.segmentRef, seg.id), eq(surveys.surveyDate, s.surveyDate)))
-    .get();
+function addSurveyRow(tx: Tx, agencyId: string, seg: SegmentRow, s: SurveyInput, field: string) {
+  const clash = repo.surveyOn(tx, seg.id, s.surveyDate);
   if (clash) throw conflict(field, `${seg.segmentId} already has a survey on ${s.surveyDate}`);
-  tx.insert(surveys)
-    .values({ agencyId, segmentRef: seg.id, surveyDate: s.surveyDate, pci: s.pci, source: s.source ?? null })
-    .run();
+  repo.insertSurvey(tx, {
+    agencyId,
+    segmentRef: seg.id,
+    surveyDate: s.surveyDate,
+    pci: s.pci,
+    source: s.source ?? null,
+  });
   const newest = !seg.pciDate || s.surveyDate >= seg.pciDate;
-  if (newest)
-    tx.update(segments)
-      .set({ pci: s.pci, pciDate: s.surveyDate, updatedAt: new Date().toISOString() })
-      .where(eq(segments.id, seg.id))
-      .run();
+  if (newest) touchSegment(tx, agencyId, seg.id, { pci: s.pci, pciDate: s.surveyDate });
   return newest;
 }
 
@@ -99,10 +90,7 @@ export function recordTreatment(
     const year = Number(input.treatedOn.slice(0, 4));
     const newest = seg.lastTreatmentYear === null || year >= seg.lastTreatmentYear;
     if (newest)
-      tx.update(segments)
-        .set({ lastTreatment: lastTreatmentText(input), lastTreatmentYear: year, updatedAt: new Date().toISOString() })
-        .where(eq(segments.id, seg.id))
-        .run();
+      touchSegment(tx, agencyId, seg.id, { lastTreatment: lastTreatmentText(input), lastTreatmentYear: year });
     if (input.pciAfter !== null)
       addSurveyRow(
         tx,
@@ -136,11 +124,6 @@ export function recordTreatment(
 }
 
 export function treatmentHistory(deps: Deps, agencyId: string, segmentRef: number) {
-  const exists = deps.db
-    .select({ id: segments.id })
-    .from(segments)
-    .where(and(eq(segments.agencyId, agencyId), eq(segments.id, segmentRef)))
-    .get();
-  if (!exists) throw notFound('No such segment');
+  if (!segmentRowIn(deps.db, agencyId, segmentRef)) throw notFound('No such segment');
   return { items: repo.treatmentRecordsOf(deps.db, agencyId, segmentRef) };
 }

@@ -1,7 +1,7 @@
 import { and, asc, desc, eq, inArray, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
 import { CONDITION_BANDS } from '../../shared/condition';
 import { areaSy, laneMiles } from '../../shared/engine/quantities';
-import type { FunctionalClass, Segment, SegmentListQuery, Surface } from '../../shared/schemas/segments';
+import type { Segment, SegmentListQuery } from '../../shared/schemas/segments';
 import type { Db } from '../db/client';
 import { segments, surveys } from '../db/schema';
 import { fitVertices, type LineGeometry } from '../imports/geometry';
@@ -18,8 +18,8 @@ export function toSegment(r: SegmentRow): Segment {
     lengthMi: r.lengthMi,
     widthFt: r.widthFt,
     lanes: r.lanes,
-    functionalClass: r.functionalClass as FunctionalClass,
-    surface: r.surface as Surface,
+    functionalClass: r.functionalClass,
+    surface: r.surface,
     adt: r.adt,
     truckPct: r.truckPct,
     district: r.district,
@@ -123,12 +123,25 @@ export function districtsOf(db: Db, agencyId: string) {
     .all();
 }
 
-export function segmentById(db: Db, agencyId: string, id: number) {
+export function segmentById(db: Pick<Db, 'select'>, agencyId: string, id: number) {
   return db
     .select()
     .from(segments)
     .where(and(eq(segments.agencyId, agencyId), eq(segments.id, id)))
     .get();
+}
+
+/** The segment's own columns changed, its `updatedAt` set now. */
+export function updateSegmentRow(
+  tx: Pick<Db, 'update'>,
+  agencyId: string,
+  id: number,
+  set: Partial<Omit<SegmentRow, 'id' | 'agencyId'>>,
+) {
+  tx.update(segments)
+    .set({ ...set, updatedAt: new Date().toISOString() })
+    .where(and(eq(segments.agencyId, agencyId), eq(segments.id, id)))
+    .run();
 }
 
 export function surveysOf(db: Db, agencyId: string, segmentRef: number) {

@@ -9,16 +9,16 @@ import {
   SegmentUpdateSchema,
 } from '../../shared/schemas/segments';
 import type { Deps } from '../deps';
-import type { ApiRoutes } from '../http/api';
+import { type ApiRoutes, sendJsonText } from '../http/api';
+import { fileSlug, sendDownload } from '../http/download';
 import { z } from 'zod';
-import { segmentsGeoJson } from './segments.repo';
 import * as service from './segments.service';
 import { segmentsExportTask } from './segments.tasks';
 
 const FilterQuerySchema = SegmentListQuerySchema.omit({ limit: true, offset: true });
 
 export function segmentRoutes(api: ApiRoutes, deps: Deps) {
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/segments',
     tag: 'Segments',
@@ -27,19 +27,9 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
     params: AgencyParamsSchema,
     query: SegmentListQuerySchema,
     response: SegmentListResponseSchema,
-    handler: ({ agency, query, res }) => {
-      const cache = deps.listCache;
-      if (!cache) return service.segmentList(deps, agency!.id, query);
-      const key = cache.key(agency!.id, query);
-      let json = cache.get(key);
-      if (!json) {
-        json = JSON.stringify(service.segmentList(deps, agency!.id, query));
-        cache.set(key, json);
-      }
-      res.type('application/json').send(json);
-    },
+    handler: ({ agency, query, res }) => sendJsonText(res, service.segmentListJson(deps, agency!.id, query)),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/network',
     tag: 'Segments',
@@ -49,7 +39,7 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
     response: NetworkSummarySchema,
     handler: ({ agency }) => service.networkSummary(deps, agency!.id),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/districts',
     tag: 'Segments',
@@ -59,7 +49,7 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
     response: DistrictListSchema,
     handler: ({ agency }) => service.districtList(deps, agency!.id),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/segments/:id',
     tag: 'Segments',
@@ -69,7 +59,7 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
     response: SegmentDetailSchema,
     handler: ({ agency, params }) => service.segmentDetail(deps, agency!.id, params.id),
   });
-  api.add({
+  api.typed({
     method: 'patch',
     path: '/api/agencies/:agencyId/segments/:id',
     tag: 'Segments',
@@ -80,7 +70,7 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
     response: SegmentDetailSchema,
     handler: ({ agency, user, params, body }) => service.updateSegment(deps, agency!.id, user!.id, params.id, body),
   });
-  api.add({
+  api.file({
     method: 'get',
     path: '/api/agencies/:agencyId/segments.geojson',
     tag: 'Segments',
@@ -92,10 +82,10 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
     responseDescription: 'application/geo+json FeatureCollection',
     handler: ({ agency, query, res }) => {
       res.setHeader('Content-Type', 'application/geo+json; charset=utf-8');
-      res.send(segmentsGeoJson(deps.db, agency!.id, query));
+      res.send(service.segmentMap(deps, agency!.id, query));
     },
   });
-  api.add({
+  api.file({
     method: 'get',
     path: '/api/agencies/:agencyId/segments/export',
     tag: 'Segments',
@@ -113,16 +103,7 @@ export function segmentRoutes(api: ApiRoutes, deps: Deps) {
         { userId: user!.id, agencyId: agency!.id },
         { signal },
       );
-      const base = `${out.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-segments`;
-      if (format === 'xlsx') {
-        res.setHeader('Content-Type', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
-        res.setHeader('Content-Disposition', `attachment; filename="${base}.xlsx"`);
-        res.send(Buffer.from(out.body as Uint8Array));
-      } else {
-        res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-        res.setHeader('Content-Disposition', `attachment; filename="${base}.csv"`);
-        res.send(out.body);
-      }
+      sendDownload(res, `${fileSlug(out.name)}-segments`, format, out.body);
     },
   });
 }

@@ -1,16 +1,49 @@
 import { CONDITION_BANDS, conditionBand } from '../../shared/condition';
-import { and, eq } from 'drizzle-orm';
-import type { NetworkSummary, SegmentListQuery, SegmentUpdate } from '../../shared/schemas/segments';
+import type {
+  NetworkSummary,
+  SegmentListQuery,
+  SegmentListResponse,
+  SegmentUpdate,
+} from '../../shared/schemas/segments';
 import { agencyById } from '../agencies/agencies.repo';
 import { recordAudit } from '../audit';
+import type { Db } from '../db/client';
 import type { Deps } from '../deps';
-import { segments } from '../db/schema';
 import { notFound } from '../http/errors';
-import { districtsOf, listSegments, networkStats, segmentById, surveysOf, toSegment } from './segments.repo';
+import {
+  districtsOf,
+  listSegments,
+  networkStats,
+  type SegmentFilter,
+  type SegmentRow,
+  segmentById,
+  segmentsGeoJson,
+  surveysOf,
+  toSegment,
+  updateSegmentRow,
+} from './segments.repo';
 
-export function segmentList(deps: Deps, agencyId: string, q: SegmentListQuery) {
+export type { SegmentRow };
+
+export function segmentList(deps: Deps, agencyId: string, q: SegmentListQuery): SegmentListResponse {
   return listSegments(deps.db, agencyId, q);
 }
+
+/** The page as JSON text, from the list cache when it holds it (every segment or survey write empties it). */
+export function segmentListJson(deps: Deps, agencyId: string, q: SegmentListQuery): string {
+  const cache = deps.listCache;
+  if (!cache) return JSON.stringify(segmentList(deps, agencyId, q));
+  const key = cache.key(agencyId, q);
+  let json = cache.get(key);
+  if (!json) {
+    json = JSON.stringify(segmentList(deps, agencyId, q));
+    cache.set(key, json);
+  }
+  return json;
+}
+
+/** The map's features as GeoJSON text (same filters as the list). */
+export const segmentMap = (deps: Deps, agencyId: string, q: SegmentFilter) => segmentsGeoJson(deps.db, agencyId, q);
 
 export function districtList(deps: Deps, agencyId: string) {
   return { items: districtsOf(deps.db, agencyId) };
@@ -50,6 +83,18 @@ export function networkSummary(deps: Deps, agencyId: string): NetworkSummary {
   };
 }
 
+// For the segment's history (surveys and work done), inside its transaction.
+/** The segment's stored row, or undefined when the agency has no such segment. */
+export const segmentRowIn = (tx: Pick<Db, 'select'>, agencyId: string, id: number) => segmentById(tx, agencyId, id);
+
+/** Sets columns of the segment the history keeps current (latest PCI, last treatment). */
+export const touchSegment = (
+  tx: Pick<Db, 'update'>,
+  agencyId: string,
+  id: number,
+  set: Partial<Pick<SegmentRow, 'pci' | 'pciDate' | 'lastTreatment' | 'lastTreatmentYear'>>,
+) => updateSegmentRow(tx, agencyId, id, set);
+
 export function segmentDetail(deps: Deps, agencyId: string, id: number) {
   const row = segmentById(deps.db, agencyId, id);
   if (!row) throw notFound('No such segment');
@@ -63,11 +108,7 @@ export function segmentDetail(deps: Deps, agencyId: string, id: number) {
 
 export function updateSegment(deps: Deps, agencyId: string, userId: string, id: number, patch: SegmentUpdate) {
   deps.db.transaction((tx) => {
-    const before = tx
-      .select()
-      .from(segments)
-      .where(and(eq(segments.agencyId, agencyId), eq(segments.id, id)))
-      .get();
+    const before = segmentById(tx, agencyId, id);
     if (!before) throw notFound('No such segment');
     const changed: Record<string, { before: unknown; after: unknown }> = {};
     for (const [k, v] of Object.entries(patch)) {
@@ -75,10 +116,7 @@ export function updateSegment(deps: Deps, agencyId: string, userId: string, id: 
       if (old !== v) changed[k] = { before: old, after: v };
     }
     if (Object.keys(changed).length === 0) return;
-    tx.update(segments)
-      .set({ ...patch, updatedAt: new Date().toISOString() })
-      .where(eq(segments.id, id))
-      .run();
+    updateSegmentRow(tx, agencyId, id, patch);
     recordAudit(tx, {
       agencyId,
       userId,

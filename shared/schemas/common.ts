@@ -1,6 +1,7 @@
 import { z } from 'zod';
 
-export const RoleSchema = z.enum(['admin', 'engineer', 'viewer']);
+export const ROLES = ['admin', 'engineer', 'viewer'] as const;
+export const RoleSchema = z.enum(ROLES);
 export type Role = z.infer<typeof RoleSchema>;
 
 // Rank used for "at least this role" checks.

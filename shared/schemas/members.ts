@@ -26,6 +26,9 @@ export type MembersResponse = z.infer<typeof MembersResponseSchema>;
 
 export const InviteBodySchema = z.object({ email: EmailSchema, role: RoleSchema });
 export type InviteBody = z.infer<typeof InviteBodySchema>;
+/** The invitation just sent (the link goes by e-mail only). */
+export const InvitationSentSchema = z.object({ id: z.string(), email: z.string(), role: RoleSchema });
+export type InvitationSent = z.infer<typeof InvitationSentSchema>;
 
 export const ChangeRoleBodySchema = z.object({ role: RoleSchema });
 export const MemberParamsSchema = z.object({ agencyId: z.string().min(1).max(64), userId: z.string().min(1).max(64) });

@@ -1,53 +1,66 @@
+import type { ComponentType } from 'react';
 import { createBrowserRouter, Navigate } from 'react-router-dom';
-import { ActivityPage } from './routes/activity';
 import { AppShell } from './routes/app-shell';
-import { BriefPage } from './routes/brief';
-import { CatalogPage } from './routes/catalog';
-import { ComparePage } from './routes/compare';
 import { ErrorPage } from './routes/error-page';
-import { ForecastPage } from './routes/forecast';
-import { PlanPage } from './routes/plan';
-import { PlansPage } from './routes/plans';
-import { ForgotPasswordPage } from './routes/forgot-password';
 import { HomeRedirect } from './routes/home-redirect';
-import { ImportsPage } from './routes/imports';
-import { InvitePage } from './routes/invite';
-import { MembersPage } from './routes/members';
-import { NetworkPage } from './routes/network';
 import { NotFoundPage } from './routes/not-found';
-import { ResetPasswordPage } from './routes/reset-password';
-import { RoadsPage } from './routes/roads';
-import { SegmentPage } from './routes/segment';
-import { SentMailPage } from './routes/sent-mail';
-import { SettingsPage } from './routes/settings';
-import { SignInPage } from './routes/sign-in';
+
+// Screens load with their route (React Router `lazy`): the first page brings only the shell and
+// the screen asked for. The shell, the error page and the redirects stay in the main bundle.
+const screen =
+  <K extends string, M extends Record<K, ComponentType>>(load: () => Promise<M>, name: K) =>
+  async () => ({ Component: (await load())[name] });
+
+/** Shown on the first load while the screen's code arrives. */
+const loading = <p className="p-6 text-sm text-asphalt-muted">Loading…</p>;
 
 export const router = createBrowserRouter([
-  { path: '/sign-in', element: <SignInPage />, errorElement: <ErrorPage /> },
-  { path: '/forgot-password', element: <ForgotPasswordPage />, errorElement: <ErrorPage /> },
-  { path: '/reset-password/:token', element: <ResetPasswordPage />, errorElement: <ErrorPage /> },
-  { path: '/invite/:token', element: <InvitePage />, errorElement: <ErrorPage /> },
-  { path: '/', element: <HomeRedirect />, errorElement: <ErrorPage /> },
+  {
+    path: '/sign-in',
+    lazy: screen(() => import('./routes/sign-in'), 'SignInPage'),
+    errorElement: <ErrorPage />,
+    hydrateFallbackElement: loading,
+  },
+  {
+    path: '/forgot-password',
+    lazy: screen(() => import('./routes/forgot-password'), 'ForgotPasswordPage'),
+    errorElement: <ErrorPage />,
+    hydrateFallbackElement: loading,
+  },
+  {
+    path: '/reset-password/:token',
+    lazy: screen(() => import('./routes/reset-password'), 'ResetPasswordPage'),
+    errorElement: <ErrorPage />,
+    hydrateFallbackElement: loading,
+  },
+  {
+    path: '/invite/:token',
+    lazy: screen(() => import('./routes/invite'), 'InvitePage'),
+    errorElement: <ErrorPage />,
+    hydrateFallbackElement: loading,
+  },
+  { path: '/', element: <HomeRedirect />, errorElement: <ErrorPage />, hydrateFallbackElement: loading },
   {
     path: '/a/:agencyId',
     element: <AppShell />,
     errorElement: <ErrorPage />,
+    hydrateFallbackElement: loading,
     children: [
       { index: true, element: <Navigate to="network" replace /> },
-      { path: 'network', element: <NetworkPage /> },
-      { path: 'roads', element: <RoadsPage /> },
-      { path: 'roads/:segmentRef', element: <SegmentPage /> },
-      { path: 'imports', element: <ImportsPage /> },
-      { path: 'catalog', element: <CatalogPage /> },
-      { path: 'compare', element: <ComparePage /> },
-      { path: 'forecast', element: <ForecastPage /> },
-      { path: 'plans', element: <PlansPage /> },
-      { path: 'plans/:planId', element: <PlanPage /> },
-      { path: 'plans/:planId/brief', element: <BriefPage /> },
-      { path: 'members', element: <MembersPage /> },
-      { path: 'settings', element: <SettingsPage /> },
-      { path: 'activity', element: <ActivityPage /> },
-      { path: 'sent-mail', element: <SentMailPage /> },
+      { path: 'network', lazy: screen(() => import('./routes/network'), 'NetworkPage') },
+      { path: 'roads', lazy: screen(() => import('./routes/roads'), 'RoadsPage') },
+      { path: 'roads/:segmentRef', lazy: screen(() => import('./routes/segment'), 'SegmentPage') },
+      { path: 'imports', lazy: screen(() => import('./routes/imports'), 'ImportsPage') },
+      { path: 'catalog', lazy: screen(() => import('./routes/catalog'), 'CatalogPage') },
+      { path: 'compare', lazy: screen(() => import('./routes/compare'), 'ComparePage') },
+      { path: 'forecast', lazy: screen(() => import('./routes/forecast'), 'ForecastPage') },
+      { path: 'plans', lazy: screen(() => import('./routes/plans'), 'PlansPage') },
+      { path: 'plans/:planId', lazy: screen(() => import('./routes/plan'), 'PlanPage') },
+      { path: 'plans/:planId/brief', lazy: screen(() => import('./routes/brief'), 'BriefPage') },
+      { path: 'members', lazy: screen(() => import('./routes/members'), 'MembersPage') },
+      { path: 'settings', lazy: screen(() => import('./routes/settings'), 'SettingsPage') },
+      { path: 'activity', lazy: screen(() => import('./routes/activity'), 'ActivityPage') },
+      { path: 'sent-mail', lazy: screen(() => import('./routes/sent-mail'), 'SentMailPage') },
       { path: '*', element: <NotFoundPage /> },
     ],
   },

@@ -86,6 +86,41 @@ export function spreadLabels<T extends { y: number }>(items: T[], gap: number, t
 
 export type Series = { label: string; color: string; values: number[]; dashed?: boolean };
 
+/** The y axis of a chart: its label above, and a grid line with its value at each tick. */
+function YGrid({
+  label,
+  sy,
+  ticks,
+  left,
+  right,
+  format,
+}: {
+  label?: string;
+  sy: ReturnType<typeof scaleLinear<number, number>>;
+  ticks: number;
+  left: number;
+  right: number;
+  format: (v: number) => string;
+}) {
+  return (
+    <>
+      {label && (
+        <ChartText kind="note" x={left} y={11} textAnchor="start">
+          {label}
+        </ChartText>
+      )}
+      {sy.ticks(ticks).map((t) => (
+        <g key={t}>
+          <line x1={left} x2={right} y1={sy(t)} y2={sy(t)} stroke={CHART_GRID} />
+          <ChartText kind="tick" x={left - 6} y={sy(t) + 4} textAnchor="end">
+            {format(t)}
+          </ChartText>
+        </g>
+      ))}
+    </>
+  );
+}
+
 export function LineChart({
   x,
   series,
@@ -134,19 +169,7 @@ export function LineChart({
   return (
     <div ref={ref} className="w-full">
       <svg width={w} height={height} role="img" aria-label={label} data-testid={testId} className="block">
-        {yLabel && (
-          <ChartText kind="note" x={m.left} y={11} textAnchor="start">
-            {yLabel}
-          </ChartText>
-        )}
-        {sy.ticks(5).map((t) => (
-          <g key={t}>
-            <line x1={m.left} x2={w - m.right} y1={sy(t)} y2={sy(t)} stroke={CHART_GRID} />
-            <ChartText kind="tick" x={m.left - 6} y={sy(t) + 4} textAnchor="end">
-              {format(t)}
-            </ChartText>
-          </g>
-        ))}
+        <YGrid label={yLabel} sy={sy} ticks={5} left={m.left} right={w - m.right} format={format} />
         {tickIndices(labels.length, step).map((i) => (
           <ChartText key={labels[i]} kind="tick" x={sx(i)} y={height - 7} textAnchor="middle">
             {labels[i]}
@@ -234,19 +257,7 @@ export function StackedBars({
   return (
     <div ref={ref} className="w-full">
       <svg width={w} height={height} role="img" aria-label={label} data-testid={testId} className="block">
-        {yLabel && (
-          <ChartText kind="note" x={m.left} y={11} textAnchor="start">
-            {yLabel}
-          </ChartText>
-        )}
-        {sy.ticks(4).map((t) => (
-          <g key={t}>
-            <line x1={m.left} x2={w - m.right} y1={sy(t)} y2={sy(t)} stroke={CHART_GRID} />
-            <ChartText kind="tick" x={m.left - 6} y={sy(t) + 4} textAnchor="end">
-              {format(t)}
-            </ChartText>
-          </g>
-        ))}
+        <YGrid label={yLabel} sy={sy} ticks={4} left={m.left} right={w - m.right} format={format} />
         {x.map((v, i) => {
           let a = 0;
           return (

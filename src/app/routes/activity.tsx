@@ -7,25 +7,7 @@ import { AuditChanges } from '@/features/activity/components/audit-changes';
 import { fmtInt } from '@/lib/format';
 import { useAgency } from '../use-agency';
 
-const ENTITIES: [string, string][] = [
-  ['segment', 'Roads and surveys'],
-  ['import', 'Imports'],
-  ['mix', 'Mixes'],
-  ['treatment', 'Catalog treatments'],
-  ['agency', 'Agency settings and economics'],
-  ['plan', 'Plans'],
-  ['analysis', 'Comparisons'],
-  ['curve', 'Deterioration curves'],
-  ['membership', 'Members'],
-  ['invitation', 'Invitations'],
-];
-
-/** "2026-12-02 14:05" in the reader's own time zone. */
-const when = (iso: string) => {
-  const d = new Date(iso);
-  const p = (n: number) => String(n).padStart(2, '0');
-  return `${d.getFullYear()}-${p(d.getMonth() + 1)}-${p(d.getDate())} ${p(d.getHours())}:${p(d.getMinutes())}`;
-};
+import { ENTITIES, when } from '@/features/activity/components/activity-words';
 
 export function ActivityPage() {
   const { agencyId } = useAgency();

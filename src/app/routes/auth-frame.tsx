@@ -28,3 +28,13 @@ export function AuthFrame({ title, children }: { title: string; children: ReactN
     </div>
   );
 }
+
+/** What went wrong with the form's request, under the form (nothing when all is well). */
+export function AuthError({ error }: { error: Error | null }) {
+  if (!error) return null;
+  return (
+    <p role="alert" className="text-sm text-band-failed">
+      {error.message}
+    </p>
+  );
+}

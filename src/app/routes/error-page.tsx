@@ -1,5 +1,5 @@
-import { isRouteErrorResponse, Link, useRouteError } from 'react-router-dom';
-import { NotFoundPage } from './not-found';
+import { isRouteErrorResponse, useRouteError } from 'react-router-dom';
+import { BackHome, NotFoundPage } from './not-found';
 
 /** Router error boundary: a plain message, never a stack trace. */
 export function ErrorPage() {
@@ -13,9 +13,7 @@ export function ErrorPage() {
           This screen hit an error. Your data is safe; reload the page, and if it keeps happening tell your
           administrator what you were doing.
         </p>
-        <Link to="/" className="mt-4 inline-block text-sm font-semibold text-accent hover:underline">
-          Back to your network
-        </Link>
+        <BackHome />
       </div>
     </div>
   );

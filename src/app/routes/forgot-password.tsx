@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { Field, TextInput } from '@/components/ui/field';
 import { useRequestReset } from '@/features/auth/api/password-reset';
-import { AuthFrame } from './auth-frame';
+import { AuthError, AuthFrame } from './auth-frame';
 
 export function ForgotPasswordPage() {
   const [email, setEmail] = useState('');
@@ -23,11 +23,7 @@ export function ForgotPasswordPage() {
           <Field label="E-mail" hint="We send a single-use link that expires after one hour.">
             <TextInput type="email" required value={email} onChange={(e) => setEmail(e.target.value)} />
           </Field>
-          {reset.error && (
-            <p role="alert" className="text-sm text-band-failed">
-              {reset.error.message}
-            </p>
-          )}
+          <AuthError error={reset.error} />
           <Button type="submit" className="w-full" disabled={reset.isPending}>
             Send reset link
           </Button>

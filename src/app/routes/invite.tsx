@@ -3,7 +3,7 @@ import { Link, useNavigate, useParams } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { Field, TextInput } from '@/components/ui/field';
 import { useAcceptInvitation, useInvitation } from '@/features/auth/api/invitation';
-import { AuthFrame } from './auth-frame';
+import { AuthError, AuthFrame } from './auth-frame';
 
 export function InvitePage() {
   const { token = '' } = useParams();
@@ -60,11 +60,7 @@ export function InvitePage() {
             onChange={(e) => setPassword(e.target.value)}
           />
         </Field>
-        {accept.error && (
-          <p role="alert" className="text-sm text-band-failed">
-            {accept.error.message}
-          </p>
-        )}
+        <AuthError error={accept.error} />
         <Button type="submit" className="w-full" disabled={accept.isPending}>
           Accept and join
         </Button>

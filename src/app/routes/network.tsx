@@ -1,54 +1,13 @@
-import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
 import { ConditionBar } from '@/components/condition-bar';
-import { useAudit } from '@/features/activity/api/get-audit';
-import { auditSentence } from '@/features/activity/components/audit-changes';
 import { Card, EmptyState, PageHeader, Stat } from '@/components/ui/page';
+import { RecentActivity } from '@/features/activity/components/recent-activity';
 import { useSegmentsGeoJson } from '@/features/map/api/get-segments-geojson';
 import { LazyNetworkMap } from '@/features/map/components/lazy-network-map';
 import { useNetwork } from '@/features/network/api/get-network';
-import { planResultQueryOptions, usePlans } from '@/features/plans/api/plans';
-import { fmt1, fmtInt, fmtMoney } from '@/lib/format';
+import { LatestPlan } from '@/features/network/components/latest-plan';
+import { fmt1, fmtInt } from '@/lib/format';
 import { useAgency } from '../use-agency';
-
-function LatestPlan({ agencyId }: { agencyId: string }) {
-  const plans = usePlans(agencyId);
-  const published = plans.data?.items
-    .filter((p) => p.status === 'published')
-    .sort((a, b) => (b.publishedAt ?? '').localeCompare(a.publishedAt ?? ''))[0];
-  const result = useQuery({ ...planResultQueryOptions(agencyId, published?.id ?? ''), enabled: !!published });
-  const r = result.data?.latest?.result;
-  if (!published) return <p className="text-sm text-asphalt-muted">No plan is published yet.</p>;
-  return (
-    <div className="text-sm" data-testid="latest-plan">
-      <Link to={`../plans/${published.id}`} className="font-semibold text-accent hover:underline">
-        {published.name}
-      </Link>
-      {r && (
-        <p className="mt-1">
-          {r.years[0].calendarYear}–{r.years[r.years.length - 1].calendarYear}: {fmtMoney(r.summary.totalSpent)} on{' '}
-          {r.summary.segmentsTreated} segments; network PCI {r.summary.startPci.toFixed(0)} →{' '}
-          {r.summary.finalPci.toFixed(0)} (no work: {r.summary.finalPciDoNothing.toFixed(0)}).
-        </p>
-      )}
-    </div>
-  );
-}
-
-function RecentActivity({ agencyId }: { agencyId: string }) {
-  const q = useAudit(agencyId, { limit: 6 });
-  if (!q.data?.items.length) return <p className="text-sm text-asphalt-muted">Nothing yet.</p>;
-  return (
-    <ul className="space-y-1.5 text-sm" data-testid="recent-activity">
-      {q.data.items.map((a) => (
-        <li key={a.id} className="flex justify-between gap-3">
-          <span className="min-w-0">{auditSentence(a)}</span>
-          <span className="num shrink-0 text-xs text-asphalt-muted">{a.at.slice(0, 10)}</span>
-        </li>
-      ))}
-    </ul>
-  );
-}
 
 export function NetworkPage() {
   const { agencyId, membership } = useAgency();

@@ -9,10 +9,17 @@ export function NotFoundPage({ inline = false }: { inline?: boolean }) {
         <p className="mt-2 text-sm text-asphalt-muted">
           This page does not exist, or it belongs to an agency you are not a member of.
         </p>
-        <Link to="/" className="mt-4 inline-block text-sm font-semibold text-accent hover:underline">
-          Back to your network
-        </Link>
+        <BackHome />
       </div>
     </div>
+  );
+}
+
+/** The way out of a page that cannot be shown. */
+export function BackHome() {
+  return (
+    <Link to="/" className="mt-4 inline-block text-sm font-semibold text-accent hover:underline">
+      Back to your network
+    </Link>
   );
 }

@@ -3,7 +3,7 @@ import { Link, useParams } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { Field, TextInput } from '@/components/ui/field';
 import { useResetPassword } from '@/features/auth/api/password-reset';
-import { AuthFrame } from './auth-frame';
+import { AuthError, AuthFrame } from './auth-frame';
 
 export function ResetPasswordPage() {
   const { token = '' } = useParams();
@@ -34,11 +34,7 @@ export function ResetPasswordPage() {
               onChange={(e) => setPassword(e.target.value)}
             />
           </Field>
-          {reset.error && (
-            <p role="alert" className="text-sm text-band-failed">
-              {reset.error.message}
-            </p>
-          )}
+          <AuthError error={reset.error} />
           <Button type="submit" className="w-full" disabled={reset.isPending}>
             Set password
           </Button>

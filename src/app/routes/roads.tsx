@@ -3,31 +3,18 @@ import { useNavigate, useSearchParams } from 'react-router-dom';
 import { CONDITION_BANDS } from '@shared/condition';
 import { FUNCTIONAL_CLASSES, SURFACES } from '@shared/schemas/segments';
 import { Button } from '@/components/ui/button';
-import { Select, TextInput } from '@/components/ui/field';
+import { TextInput } from '@/components/ui/field';
 import { EmptyState, PageHeader } from '@/components/ui/page';
 import { useSegmentsGeoJson } from '@/features/map/api/get-segments-geojson';
 import { LazyNetworkMap } from '@/features/map/components/lazy-network-map';
 import { useDistricts } from '@/features/segments/api/get-districts';
 import { useSegments } from '@/features/segments/api/get-segments';
+import { FilterSelect } from '@/features/segments/components/filter-select';
 import { SegmentTable } from '@/features/segments/components/segment-table';
 import { CLASS_LABELS, fmt1, fmtInt, SURFACE_LABELS } from '@/lib/format';
 import { useAgency } from '../use-agency';
 
-const FILTER_KEYS = ['q', 'class', 'surface', 'band', 'district'] as const;
-type Filters = Record<(typeof FILTER_KEYS)[number], string | undefined>;
-
-/** The active filters in words, for the empty table: `road or id “PV-”, surface gravel`. */
-function describeFilters(f: Filters) {
-  const band = CONDITION_BANDS.find((b) => b.id === f.band);
-  const parts = [
-    f.q && `road or id “${f.q}”`,
-    f.class && `class ${CLASS_LABELS[f.class]?.toLowerCase() ?? f.class}`,
-    f.surface && `surface ${SURFACE_LABELS[f.surface]?.toLowerCase() ?? f.surface}`,
-    f.band && (band ? `condition ${band.label.toLowerCase()} (PCI ${band.min}–${band.max})` : 'no PCI'),
-    f.district && `district ${f.district}`,
-  ].filter(Boolean);
-  return `Filtered by ${parts.join(', ')}. Loosen one of them or clear them all.`;
-}
+import { describeFilters, FILTER_KEYS, type Filters } from '@/features/segments/lib/filters';
 
 export function RoadsPage() {
   const { agencyId, membership } = useAgency();
@@ -105,64 +92,46 @@ export function RoadsPage() {
           value={filters.q ?? ''}
           onChange={(e) => setFilter('q', e.target.value)}
         />
-        <Select
-          aria-label="Functional class"
+        <FilterSelect
+          label="Functional class"
           className="max-w-[11rem]"
-          value={filters.class ?? ''}
-          onChange={(e) => setFilter('class', e.target.value)}
-        >
-          <option value="">All classes</option>
-          {FUNCTIONAL_CLASSES.map((c) => (
-            <option key={c} value={c}>
-              {CLASS_LABELS[c]}
-            </option>
-          ))}
-        </Select>
-        <Select
-          aria-label="Surface"
+          value={filters.class}
+          onChange={(v) => setFilter('class', v)}
+          all="All classes"
+          choices={FUNCTIONAL_CLASSES.map((c) => [c, CLASS_LABELS[c]] as const)}
+        />
+        <FilterSelect
+          label="Surface"
           className="max-w-[9rem]"
-          value={filters.surface ?? ''}
-          onChange={(e) => setFilter('surface', e.target.value)}
-        >
-          <option value="">All surfaces</option>
-          {SURFACES.map((c) => (
-            <option key={c} value={c}>
-              {SURFACE_LABELS[c]}
-            </option>
-          ))}
-        </Select>
-        <Select
-          aria-label="Condition band"
+          value={filters.surface}
+          onChange={(v) => setFilter('surface', v)}
+          all="All surfaces"
+          choices={SURFACES.map((c) => [c, SURFACE_LABELS[c]] as const)}
+        />
+        <FilterSelect
+          label="Condition band"
           className="max-w-[11rem]"
-          value={filters.band ?? ''}
-          onChange={(e) => setFilter('band', e.target.value)}
+          value={filters.band}
+          onChange={(v) => setFilter('band', v)}
+          all="All conditions"
+          choices={CONDITION_BANDS.map((b) => [b.id, `${b.label} (PCI ${b.min}–${b.max})`] as const)}
         >
-          <option value="">All conditions</option>
-          {CONDITION_BANDS.map((b) => (
-            <option key={b.id} value={b.id}>
-              {b.label} (PCI {b.min}–{b.max})
-            </option>
-          ))}
           <option value="none">No PCI</option>
-        </Select>
-        <Select
-          aria-label="District"
+        </FilterSelect>
+        <FilterSelect
+          label="District"
           className="max-w-[12rem]"
           value={
             districtKnown
               ? (districtNames.find((n) => n.toLowerCase() === filters.district?.toLowerCase()) ?? '')
               : filters.district
           }
-          onChange={(e) => setFilter('district', e.target.value)}
+          onChange={(v) => setFilter('district', v)}
+          all="All districts"
+          choices={(districts.data?.items ?? []).map((d) => [d.name, `${d.name} (${fmtInt(d.segments)})`] as const)}
         >
-          <option value="">All districts</option>
-          {districts.data?.items.map((d) => (
-            <option key={d.name} value={d.name}>
-              {d.name} ({fmtInt(d.segments)})
-            </option>
-          ))}
           {!districtKnown && <option value={filters.district}>{filters.district}</option>}
-        </Select>
+        </FilterSelect>
       </div>
       <div className="mb-3 flex flex-wrap items-center justify-end gap-2 text-sm">
         {filtered && (

@@ -1,64 +1,21 @@
-import { type ReactNode, useState } from 'react';
+import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import { astmRating, conditionBand } from '@shared/condition';
 import { Button } from '@/components/ui/button';
 import { Card, EmptyState, PageHeader } from '@/components/ui/page';
 import { Term } from '@/components/ui/term';
 import { useSegmentsGeoJson } from '@/features/map/api/get-segments-geojson';
 import { LazyNetworkMap } from '@/features/map/components/lazy-network-map';
-import { type SegmentDetail, useSegment } from '@/features/segments/api/get-segment';
+import { useSegment } from '@/features/segments/api/get-segment';
 import { useTreatmentRecords } from '@/features/segments/api/segment-history';
+import { attributes } from '@/features/segments/components/segment-attributes';
 import { PciHistoryChart } from '@/features/segments/components/pci-history-chart';
 import { SegmentEditForm } from '@/features/segments/components/segment-edit-form';
 import { SurveyForm } from '@/features/segments/components/survey-form';
 import { TreatmentForm } from '@/features/segments/components/treatment-form';
 import { TreatmentHistory } from '@/features/segments/components/treatment-history';
-import { CLASS_LABELS, fmt1, fmt2, fmtInt, SURFACE_LABELS } from '@/lib/format';
+import { fmtInt } from '@/lib/format';
 import { useAgency } from '../use-agency';
 import { NotFoundPage } from './not-found';
-
-function attributes(s: SegmentDetail): [string, ReactNode][] {
-  const band = conditionBand(s.pci);
-  return [
-    ['From – to', `${s.fromDesc ?? '—'} – ${s.toDesc ?? '—'}`],
-    ['Length', `${fmt2(s.lengthMi)} mi`],
-    ['Width', `${fmt1(s.widthFt)} ft`],
-    ['Lanes', String(s.lanes)],
-    [
-      'Lane-miles',
-      <>
-        {fmt2(s.laneMiles)} <Term id="lane-mile">lane-mi</Term>
-      </>,
-    ],
-    [
-      'Area',
-      <>
-        {fmtInt(s.areaSy)} <Term id="sy">SY</Term>
-      </>,
-    ],
-    ['Functional class', CLASS_LABELS[s.functionalClass]],
-    ['Surface', SURFACE_LABELS[s.surface]],
-    [
-      'Traffic',
-      s.adt === null ? (
-        '—'
-      ) : (
-        <>
-          {fmtInt(s.adt)} vehicles/day (<Term id="adt">ADT</Term>)
-        </>
-      ),
-    ],
-    ['Trucks', s.truckPct === null ? '—' : `${fmt1(s.truckPct)} % of traffic`],
-    ['District', s.district ?? '—'],
-    [
-      'Latest PCI',
-      s.pci === null
-        ? '—'
-        : `${fmtInt(s.pci)} (${band?.label}; ASTM D6433 “${astmRating(s.pci)}”) on ${s.pciDate ?? '—'}`,
-    ],
-    ['Last treatment', s.lastTreatment ? `${s.lastTreatment}, ${s.lastTreatmentYear ?? 'year not recorded'}` : '—'],
-  ];
-}
 
 type Open = 'survey' | 'treatment' | 'edit' | null;
 

@@ -3,7 +3,7 @@ import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { Field, TextInput } from '@/components/ui/field';
 import { useSignIn } from '@/features/auth/api/sign-in';
-import { AuthFrame } from './auth-frame';
+import { AuthError, AuthFrame } from './auth-frame';
 
 export function SignInPage() {
   const [email, setEmail] = useState('');
@@ -47,11 +47,7 @@ export function SignInPage() {
             onChange={(e) => setPassword(e.target.value)}
           />
         </Field>
-        {signIn.error && (
-          <p role="alert" className="text-sm text-band-failed">
-            {signIn.error.message}
-          </p>
-        )}
+        <AuthError error={signIn.error} />
         <Button type="submit" className="w-full" disabled={signIn.isPending}>
           {signIn.isPending ? 'Signing in…' : 'Sign in'}
         </Button>

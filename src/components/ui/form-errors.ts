@@ -58,15 +58,28 @@ export function describeError(err: unknown, labels: FieldLabels = {}): string {
   return err instanceof Error ? err.message : 'Something went wrong';
 }
 
+export type FieldErrorOptions = {
+  /** A failure with no field issues goes to `others` in words (default); false leaves it to the caller (a toast). */
+  general?: boolean;
+};
+
+const NO_LABELS: FieldLabels = {};
+
 /**
  * Per-form error state. `check(schema, value)` validates in the browser and
- * returns the parsed value or undefined; `fromError(err)` takes a server answer.
- * `error(key)` is the message to show under that field; `others` lists issues
- * no field on the form shows (pass the keys the form has).
+ * returns the parsed value or undefined; `fromError(err)` takes a server answer
+ * and says whether its issues went to fields. `error(key)` is the message to
+ * show under that field; `others` lists issues no field on the form shows (pass
+ * the keys the form has), `othersExcept(keys)` the same for keys known later.
  */
-export function useFieldErrors(labels: FieldLabels, shownKeys: readonly string[] = Object.keys(labels)) {
+export function useFieldErrors(
+  labels: FieldLabels = NO_LABELS,
+  shownKeys: readonly string[] = Object.keys(labels),
+  opts: FieldErrorOptions = {},
+) {
   const [errors, setErrors] = useState<FieldErrors>({});
   const [general, setGeneral] = useState<string | null>(null);
+  const keepGeneral = opts.general ?? true;
 
   const check = useCallback(<S extends z.ZodType>(schema: S, value: unknown): z.output<S> | undefined => {
     const r = schema.safeParse(value);
@@ -84,9 +97,10 @@ export function useFieldErrors(labels: FieldLabels, shownKeys: readonly string[]
     (err: unknown) => {
       const issues = issuesOf(err);
       setErrors(toFieldErrors(issues));
-      setGeneral(issues.length ? null : describeError(err, labels));
+      setGeneral(issues.length || !keepGeneral ? null : describeError(err, labels));
+      return issues.length > 0;
     },
-    [labels],
+    [labels, keepGeneral],
   );
 
   const clear = useCallback((key?: string) => {
@@ -100,13 +114,29 @@ export function useFieldErrors(labels: FieldLabels, shownKeys: readonly string[]
   }, []);
 
   const error = (key: string) => (errors[key] ? atField(errors[key]) : undefined);
-  const others = [
+  const othersExcept = (shown: readonly string[]) => [
     ...(general ? [general] : []),
     ...Object.entries(errors)
-      .filter(([k]) => !shownKeys.includes(k))
+      .filter(([k]) => !shown.includes(k))
       .map(([k, m]) => sentence(k, m, labels)),
   ];
-  return { errors, error, others, check, fromError, clear, hasErrors: Object.keys(errors).length > 0 || !!general };
+  const others = othersExcept(shownKeys);
+  return {
+    errors,
+    error,
+    others,
+    othersExcept,
+    check,
+    fromError,
+    clear,
+    hasErrors: Object.keys(errors).length > 0 || !!general,
+  };
+}
+
+/** Text typed into a number field that must hold one: blank or not a number is NaN, which the schema refuses in words. */
+export function numberFrom(raw: string): number {
+  const t = raw.trim().replace(/,/g, '');
+  return t === '' ? Number.NaN : Number(t);
 }
 
 /** Form text → number for a schema: blank is null (let the schema say whether that is allowed). */

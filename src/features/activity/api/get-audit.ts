@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { AuditList } from '@shared/schemas/audit';
 import { api } from '@/lib/api-client';
+import { activityKeys } from './keys';
 
 export type AuditFilters = { entity?: string; from?: string; to?: string; limit?: number };
 
@@ -12,7 +13,7 @@ export const auditParams = (f: AuditFilters) => {
 
 export const auditQueryOptions = (agencyId: string, f: AuditFilters) =>
   queryOptions({
-    queryKey: ['audit', agencyId, f],
+    queryKey: activityKeys.list(agencyId, f),
     queryFn: () => api<AuditList>(`/api/agencies/${agencyId}/audit?${auditParams(f)}`),
     placeholderData: keepPreviousData,
   });

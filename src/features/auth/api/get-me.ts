@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Me } from '@shared/schemas/auth';
 import { api, ApiError } from '@/lib/api-client';
+import { authKeys } from './keys';
 
 /** The signed-in user, or null when signed out. */
 export async function getMe(): Promise<Me | null> {
@@ -12,6 +13,6 @@ export async function getMe(): Promise<Me | null> {
   }
 }
 
-export const meQueryOptions = () => queryOptions({ queryKey: ['me'], queryFn: getMe, staleTime: 60_000 });
+export const meQueryOptions = () => queryOptions({ queryKey: authKeys.me(), queryFn: getMe, staleTime: 60_000 });
 
 export const useMe = () => useQuery(meQueryOptions());

@@ -2,11 +2,12 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import type { InvitationInfo, Me } from '@shared/schemas/auth';
 import { api } from '@/lib/api-client';
 import { meQueryOptions } from './get-me';
+import { authKeys } from './keys';
 
 export const getInvitation = (token: string) => api<InvitationInfo>(`/api/invitations/${encodeURIComponent(token)}`);
 
 export const invitationQueryOptions = (token: string) =>
-  queryOptions({ queryKey: ['invitations', token], queryFn: () => getInvitation(token), retry: false });
+  queryOptions({ queryKey: authKeys.invitation(token), queryFn: () => getInvitation(token), retry: false });
 
 export const useInvitation = (token: string) => useQuery(invitationQueryOptions(token));
 

@@ -4,7 +4,7 @@ import { type Economics, EconomicsSchema } from '@shared/schemas/catalog';
 import { Button } from '@/components/ui/button';
 import { CheckedInput } from '@/components/ui/field-message';
 import { Card } from '@/components/ui/page';
-import { numberFrom, useFormErrors } from '@/lib/form-errors';
+import { numberFrom, useFieldErrors } from '@/components/ui/form-errors';
 import { useUpdateEconomics } from '../api/update-economics';
 
 type NumberKey = Exclude<keyof Economics, 'discountRateSource'>;
@@ -31,7 +31,7 @@ export function EconomicsCard({ e, canEdit, agencyId }: { e: Economics; canEdit:
   const [text, setText] = useState(() => toText(e));
   const [source, setSource] = useState(e.discountRateSource ?? '');
   const save = useUpdateEconomics(agencyId);
-  const form = useFormErrors();
+  const form = useFieldErrors(undefined, [], { general: false });
   const submit = () => {
     const value = Object.fromEntries(
       FIELDS.map((f) => [f.key, f.percent ? numberFrom(text[f.key]) / 100 : numberFrom(text[f.key])]),

@@ -41,7 +41,7 @@ export function EditPanel({
   saving: boolean;
 }) {
   const { form, submit, cancel } = edit;
-  const others = form.others(fields.map((f) => f.key));
+  const others = form.othersExcept(fields.map((f) => f.key));
   return (
     <tr className="bg-paper">
       <td colSpan={colSpan} className="py-2">

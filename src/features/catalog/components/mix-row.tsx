@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import { type Mix, MixInputSchema, MODIFIER_LABELS } from '@shared/schemas/catalog';
-import { numberFrom } from '@/lib/form-errors';
+import { numberFrom } from '@/components/ui/form-errors';
 import { fmt2, fmtMoney } from '@/lib/format';
 import { useUpdateMix } from '../api/update-mix';
 import { today } from '../lib/today';

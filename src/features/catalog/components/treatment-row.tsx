@@ -7,7 +7,7 @@ import {
   TREATMENT_KIND_LABELS,
   TreatmentInputSchema,
 } from '@shared/schemas/catalog';
-import { numberFrom } from '@/lib/form-errors';
+import { numberFrom } from '@/components/ui/form-errors';
 import { useUpdateTreatment } from '../api/update-treatment';
 import { appliesText, classesText, costItemText, effectText, lifeText, surfacesText } from '../lib/labels';
 import { today } from '../lib/today';

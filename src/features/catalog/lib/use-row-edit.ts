@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { toast } from 'sonner';
 import type { z } from 'zod';
-import { useFormErrors } from '@/lib/form-errors';
+import { useFieldErrors } from '@/components/ui/form-errors';
 
 type Callbacks = { onSuccess: () => void; onError: (e: Error) => void };
 export type RowEdit = ReturnType<typeof useRowEdit>;
@@ -25,7 +25,8 @@ export function useRowEdit<D, I>({
   savedMessage: (input: I) => string;
 }) {
   const [draft, setDraft] = useState<D | null>(null);
-  const form = useFormErrors();
+  // The panel names its fields (othersExcept); a failure without field issues is a toast.
+  const form = useFieldErrors(undefined, [], { general: false });
   return {
     draft,
     form,

@@ -3,11 +3,12 @@ import type { z } from 'zod';
 import type { StudyResult } from '@shared/engine/lcca/study';
 import type { AnalysisListSchema, StudyInput } from '@shared/schemas/lcca';
 import { api } from '@/lib/api-client';
+import { comparisonKeys } from './keys';
 import type { StudyRun } from './study-runs';
 
 export const analysesQueryOptions = (agencyId: string) =>
   queryOptions({
-    queryKey: ['analyses', agencyId, 'list'],
+    queryKey: comparisonKeys.list(agencyId),
     queryFn: () => api<z.infer<typeof AnalysisListSchema>>(`/api/agencies/${agencyId}/analyses`),
   });
 
@@ -17,7 +18,7 @@ export type SavedAnalysis = { id: string; name: string; input: StudyInput; resul
 
 export const analysisQueryOptions = (agencyId: string, id: string | null) =>
   queryOptions({
-    queryKey: ['analyses', agencyId, 'detail', id],
+    queryKey: comparisonKeys.detail(agencyId, id),
     queryFn: () => api<SavedAnalysis>(`/api/agencies/${agencyId}/analyses/${id}`),
     enabled: !!id,
   });
@@ -29,7 +30,7 @@ export function useSaveAnalysis(agencyId: string) {
   return useMutation({
     mutationFn: (v: { name: string; runId: string }) =>
       api<{ id: string }>(`/api/agencies/${agencyId}/analyses`, { method: 'POST', json: v }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: analysesQueryOptions(agencyId).queryKey }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: comparisonKeys.list(agencyId) }),
   });
 }
 

@@ -5,7 +5,7 @@ import { MIN_POINTS_TO_FIT } from '@shared/engine/forecast/families';
 import { CurveSchema, type Family } from '@shared/schemas/forecast';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/page';
-import { numberFrom, useFormErrors } from '@/lib/form-errors';
+import { numberFrom, useFieldErrors } from '@/components/ui/form-errors';
 import { fmt1, fmt2, fmtInt } from '@/lib/format';
 import { useSetCurve } from '../api/set-curve';
 import { familyTitle } from '../lib/labels';
@@ -30,7 +30,7 @@ function whereFrom(f: Family) {
 export function CurveCard({ f, agencyId }: { f: Family; agencyId: string }) {
   const [draft, setDraft] = useState<CurveDraft | null>(null);
   const set = useSetCurve(agencyId);
-  const form = useFormErrors();
+  const form = useFieldErrors(undefined, [], { general: false });
   const preview = draft ? CurveSchema.safeParse(fromDraft(draft)) : null;
   const fitUsable = !!f.fitted && f.n >= MIN_POINTS_TO_FIT;
   const save = () => {

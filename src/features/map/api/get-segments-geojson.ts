@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { FeatureCollection, LineString, MultiLineString } from 'geojson';
 import { api } from '@/lib/api-client';
+import { segmentKeys } from '@/features/segments/api/keys';
 
 export type SegmentFeatureProps = { id: number; s: string; r: string; p: number; c: string };
 export type SegmentFeatures = FeatureCollection<LineString | MultiLineString, SegmentFeatureProps>;
@@ -13,7 +14,7 @@ export function getSegmentsGeoJson(agencyId: string, filters: Record<string, str
 
 export const segmentsGeoJsonQueryOptions = (agencyId: string, filters: Record<string, string | undefined> = {}) =>
   queryOptions({
-    queryKey: ['segments', agencyId, 'geojson', filters],
+    queryKey: segmentKeys.map(agencyId, filters),
     queryFn: () => getSegmentsGeoJson(agencyId, filters),
     staleTime: 60_000,
   });

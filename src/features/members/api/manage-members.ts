@@ -2,16 +2,15 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { Role } from '@shared/schemas/common';
 import type { InviteBody } from '@shared/schemas/members';
 import { api } from '@/lib/api-client';
-import { membersQueryOptions } from './get-members';
-import { sentMailQueryOptions } from './get-sent-mail';
+import { memberKeys } from './keys';
 
 function useMembersMutation<V>(agencyId: string, fn: (v: V) => Promise<unknown>) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: fn,
     onSuccess: () => {
-      qc.invalidateQueries({ queryKey: membersQueryOptions(agencyId).queryKey });
-      qc.invalidateQueries({ queryKey: sentMailQueryOptions(agencyId).queryKey });
+      qc.invalidateQueries({ queryKey: memberKeys.list(agencyId) });
+      qc.invalidateQueries({ queryKey: memberKeys.sentMail(agencyId) });
     },
   });
 }

@@ -4,6 +4,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { RunView } from '@shared/schemas/runs';
 import { api } from '@/lib/api-client';
+import { runKeys } from './keys';
 
 export type Run<R = unknown> = RunView<R>;
 
@@ -11,7 +12,7 @@ const POLL_MS = 400;
 
 export const runQueryOptions = <R>(agencyId: string, runId: string | null) =>
   queryOptions({
-    queryKey: ['runs', agencyId, runId],
+    queryKey: runKeys.one(agencyId, runId),
     queryFn: () => api<Run<R>>(`/api/agencies/${agencyId}/runs/${runId}`),
     enabled: !!runId,
     refetchInterval: (q) => (!q.state.data || q.state.data.status === 'running' ? POLL_MS : false),

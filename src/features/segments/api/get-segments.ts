@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { SegmentListResponse } from '@shared/schemas/segments';
 import { api } from '@/lib/api-client';
+import { segmentKeys } from './keys';
 
 export type SegmentFilters = {
   q?: string;
@@ -23,7 +24,7 @@ export function getSegments(agencyId: string, f: SegmentFilters) {
 
 export const segmentsQueryOptions = (agencyId: string, f: SegmentFilters = {}) =>
   queryOptions({
-    queryKey: ['segments', agencyId, 'list', f],
+    queryKey: segmentKeys.list(agencyId, f),
     queryFn: () => getSegments(agencyId, f),
     placeholderData: keepPreviousData,
   });

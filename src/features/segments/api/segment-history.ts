@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { SurveyBody, TreatmentRecordBody, TreatmentRecordList } from '@shared/schemas/segment-history';
 import { api } from '@/lib/api-client';
+import { segmentKeys } from './keys';
 import { invalidateSegmentViews } from './update-segment';
 
 export const getTreatmentRecords = (agencyId: string, id: number) =>
@@ -8,7 +9,7 @@ export const getTreatmentRecords = (agencyId: string, id: number) =>
 
 export const treatmentRecordsQueryOptions = (agencyId: string, id: number) =>
   queryOptions({
-    queryKey: ['segments', agencyId, 'treatments', id],
+    queryKey: segmentKeys.treatments(agencyId, id),
     queryFn: () => getTreatmentRecords(agencyId, id),
   });
 

@@ -1,6 +1,8 @@
 import { type QueryClient, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SegmentUpdate } from '@shared/schemas/segments';
 import { api } from '@/lib/api-client';
+import { networkKeys } from '@/features/network/api/keys';
+import { segmentKeys } from './keys';
 
 export const updateSegment = (agencyId: string, id: number, patch: SegmentUpdate) =>
   api(`/api/agencies/${agencyId}/segments/${id}`, { method: 'PATCH', json: patch });
@@ -20,7 +22,7 @@ export function useUpdateSegment(agencyId: string) {
  */
 export function invalidateSegmentViews(qc: QueryClient, agencyId: string) {
   return Promise.all([
-    qc.invalidateQueries({ queryKey: ['segments', agencyId] }),
-    qc.invalidateQueries({ queryKey: ['network', agencyId] }),
+    qc.invalidateQueries({ queryKey: segmentKeys.all(agencyId) }),
+    qc.invalidateQueries({ queryKey: networkKeys.summary(agencyId) }),
   ]);
 }

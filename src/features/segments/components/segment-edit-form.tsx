@@ -1,14 +1,14 @@
 import { type FormEvent, useState } from 'react';
 import { toast } from 'sonner';
 import { FUNCTIONAL_CLASSES, SURFACES, SegmentUpdateSchema } from '@shared/schemas/segments';
-import { Button } from '@/components/ui/button';
-import { Field, FormAlert, Select, TextArea, TextInput } from '@/components/ui/field';
+import { Field, Select, TextArea, TextInput } from '@/components/ui/field';
 import { numberOrNull, textOrNull, useFieldErrors } from '@/components/ui/form-errors';
 import { CLASS_LABELS, SURFACE_LABELS } from '@/lib/format';
 import { useDistricts } from '../api/get-districts';
 import type { SegmentDetail } from '../api/get-segment';
 import { useUpdateSegment } from '../api/update-segment';
 import { SEGMENT_FIELD_LABELS } from '../segment-labels';
+import { FormFooter } from './form-footer';
 
 const TEXT = ['roadName', 'fromDesc', 'toDesc', 'district', 'notes'] as const;
 const NUMBERS = ['lengthMi', 'widthFt', 'lanes', 'adt', 'truckPct'] as const;
@@ -129,15 +129,13 @@ export function SegmentEditForm({
         The segment id ({segment.segmentId}) is the key for re-imports and is not edited here. Length, width and lanes
         change every quantity and cost worked from this segment.
       </p>
-      <FormAlert messages={f.others} />
-      <div className="flex gap-2">
-        <Button type="submit" disabled={update.isPending}>
-          {update.isPending ? 'Saving…' : 'Save the attributes'}
-        </Button>
-        <Button variant="ghost" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormFooter
+        messages={f.others}
+        pending={update.isPending}
+        label="Save the attributes"
+        pendingLabel="Saving…"
+        onCancel={onDone}
+      />
     </form>
   );
 }

@@ -1,11 +1,11 @@
 import { type FormEvent, useState } from 'react';
 import { toast } from 'sonner';
 import { SurveyInputSchema } from '@shared/schemas/segment-history';
-import { Button } from '@/components/ui/button';
-import { Field, FormAlert, TextInput } from '@/components/ui/field';
+import { Field, TextInput } from '@/components/ui/field';
 import { numberOrNull, textOrNull, useFieldErrors } from '@/components/ui/form-errors';
 import { Term } from '@/components/ui/term';
 import { useAddSurvey } from '../api/segment-history';
+import { FormFooter } from './form-footer';
 
 const LABELS = { surveyDate: 'Survey date', pci: 'PCI', source: 'Source' };
 const today = () => new Date().toISOString().slice(0, 10);
@@ -87,15 +87,13 @@ export function SurveyForm({
           Older than the latest survey ({latestDate}): it joins the history; the segment keeps its latest PCI.
         </p>
       )}
-      <FormAlert messages={f.others} />
-      <div className="flex gap-2">
-        <Button type="submit" disabled={add.isPending}>
-          {add.isPending ? 'Adding…' : 'Add the survey'}
-        </Button>
-        <Button variant="ghost" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormFooter
+        messages={f.others}
+        pending={add.isPending}
+        label="Add the survey"
+        pendingLabel="Adding…"
+        onCancel={onDone}
+      />
     </form>
   );
 }

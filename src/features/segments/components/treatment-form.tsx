@@ -2,12 +2,12 @@ import { type FormEvent, useState } from 'react';
 import { toast } from 'sonner';
 import { TREATMENT_KIND_LABELS, TREATMENT_KINDS } from '@shared/schemas/catalog';
 import { TreatmentRecordInputSchema } from '@shared/schemas/segment-history';
-import { Button } from '@/components/ui/button';
-import { Field, FormAlert, Select, TextArea, TextInput } from '@/components/ui/field';
+import { Field, Select, TextArea, TextInput } from '@/components/ui/field';
 import { numberOrNull, textOrNull, useFieldErrors } from '@/components/ui/form-errors';
 import { Term } from '@/components/ui/term';
 import { useCatalog } from '@/features/catalog/api/get-catalog';
 import { useRecordTreatment } from '../api/segment-history';
+import { FormFooter } from './form-footer';
 
 const LABELS = {
   treatedOn: 'Date finished',
@@ -163,15 +163,13 @@ export function TreatmentForm({
       <Field label={LABELS.notes} error={f.error('notes')}>
         <TextArea rows={2} value={d.notes} onChange={(e) => set({ notes: e.target.value })} />
       </Field>
-      <FormAlert messages={f.others} />
-      <div className="flex gap-2">
-        <Button type="submit" disabled={record.isPending}>
-          {record.isPending ? 'Recording…' : 'Record the treatment'}
-        </Button>
-        <Button variant="ghost" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormFooter
+        messages={f.others}
+        pending={record.isPending}
+        label="Record the treatment"
+        pendingLabel="Recording…"
+        onCancel={onDone}
+      />
     </form>
   );
 }

@@ -1,0 +1,15 @@
+// An agency export restored into a new agency: a multipart upload, so fetch rather than api().
+export type RestoreAnswer = {
+  counts?: { segments: number };
+  analysesToRerun?: number;
+  error?: { message?: string };
+};
+
+export async function restoreAgency(archive: File): Promise<{ ok: boolean; body: RestoreAnswer }> {
+  const form = new FormData();
+  form.set('file', archive);
+  const res = await fetch('/api/agencies/restore', { method: 'POST', body: form, credentials: 'same-origin' });
+  return { ok: res.ok, body: (await res.json()) as RestoreAnswer };
+}
+
+export const exportPath = (agencyId: string) => `/api/agencies/${agencyId}/export`;
