@@ -23,15 +23,18 @@ const FAILED = '#7f1d1d';
 const YEAR_COLORS = ['#0f766e', '#d97706', '#2563eb', '#a21caf', '#be123c', '#4d7c0f'];
 const NO_WORK = '#c9c3b4';
 
-const money = (v: number) =>
-  Math.abs(v) >= 1e6
-    ? `$${(v / 1e6).toFixed(2)}M`
-    : Math.abs(v) >= 1e4
-      ? `$${Math.round(v / 1e3).toLocaleString('en-US')}k`
-      : `$${Math.round(v).toLocaleString('en-US')}`;
 const moneyFull = (v: number) =>
   Math.abs(v) >= 1e6 ? `$${(v / 1e6).toFixed(2)}M` : `$${Math.round(v).toLocaleString('en-US')}`;
 const int = (v: number) => Math.round(v).toLocaleString('en-US');
+/** Axis values: $0, $50k, $1.5M, $300M — short, since they sit in a narrow margin. */
+const moneyTick = (v: number) =>
+  v === 0
+    ? '$0'
+    : Math.abs(v) >= 1e6
+      ? `$${Number((v / 1e6).toPrecision(3))}M`
+      : Math.abs(v) >= 1e3
+        ? `$${Number((v / 1e3).toPrecision(3))}k`
+        : `$${Math.round(v)}`;
 
 type Geometry = { type: string; coordinates: number[][] | number[][][] };
 type SegmentFacts = { fromDesc: string | null; toDesc: string | null; functionalClass: string; roadName: string };
@@ -220,7 +223,7 @@ export async function briefPdf(args: {
     if (doc.y + h + 40 > bottomLimit()) doc.addPage();
     doc.font('body').fontSize(7.5);
     const labelW = Math.max(...ticks.map((t) => doc.widthOfString(fmt(t)))) + 8;
-    const top = doc.y + 12;
+    const top = doc.y + 16;
     const left = L + labelW + 4;
     const right = L + W - 70;
     const n = r.years.length;
@@ -232,7 +235,7 @@ export async function briefPdf(args: {
       .font('body')
       .fontSize(7.5)
       .fillColor(MUTED)
-      .text(yTitle, L, top - 12, { width: W });
+      .text(yTitle, L, top - 16, { width: W });
     for (const t of ticks) {
       doc.moveTo(left, y(t)).lineTo(right, y(t)).lineWidth(0.3).strokeColor(GRID).stroke();
       doc
@@ -337,7 +340,7 @@ export async function briefPdf(args: {
 
   heading('Backlog', 220);
   const maxB = Math.max(1, ...r.years.map((y) => y.backlog));
-  chart(90, niceTicks(maxB), money, 'Backlog, dollars', (x, y, band) => {
+  chart(90, niceTicks(maxB), moneyTick, 'Backlog, dollars', (x, y, band) => {
     const bw = Math.max(6, Math.min(28, band * 0.6));
     r.years.forEach((yr, i) => {
       doc.rect(x(i) - bw / 2, y(yr.backlog), bw, y(0) - y(yr.backlog)).fill('#b45309');
@@ -345,7 +348,7 @@ export async function briefPdf(args: {
   });
   const noFit = r.years[r.years.length - 1] as { backlogNoFit?: { segments: number; laneMiles: number } };
   note(
-    `Cost of the work needed on roads below the needs-work PCI that the plan has not funded by that year, treated roads counted again when they fall back below it: ${moneyFull(first.backlog)} in ${first.calendarYear}, ${moneyFull(last.backlog)} in ${last.calendarYear}.${noFit.backlogNoFit ? ` A further ${int(noFit.backlogNoFit.laneMiles)} lane-miles (${int(noFit.backlogNoFit.segments)} segments) need work that no catalog treatment fits.` : ''}`,
+    `Cost of the work needed on roads below the needs-work PCI that the plan has not funded by that year${noFit.backlogNoFit ? ', treated roads counted again when they fall back below it' : ''}: ${moneyFull(first.backlog)} in ${first.calendarYear}, ${moneyFull(last.backlog)} in ${last.calendarYear}.${noFit.backlogNoFit ? ` A further ${int(noFit.backlogNoFit.laneMiles)} lane-miles (${int(noFit.backlogNoFit.segments)} segments) need work that no catalog treatment fits.` : ''}`,
   );
 
   // ---- The map: roads coloured by the year of their first planned work ---------------
@@ -405,12 +408,16 @@ export async function briefPdf(args: {
 
     // Road names on the main roads: the longest named roads of the higher classes first,
     // each once, at the middle of its longest piece, never over another label.
-    const byRoad = new Map<string, { len: number; main: boolean; best: { pts: number[][]; len: number } | null }>();
+    const byRoad = new Map<
+      string,
+      { len: number; main: boolean; best: { pts: number[][]; len: number } | null; pieces: number[][][] }
+    >();
     for (const [ref, g] of all) {
       const f = limits.get(ref);
       if (!f?.roadName) continue;
-      const e = byRoad.get(f.roadName) ?? { len: 0, main: false, best: null };
+      const e = byRoad.get(f.roadName) ?? { len: 0, main: false, best: null, pieces: [] };
       for (const l of lines(g)) {
+        e.pieces.push(l);
         let len = 0;
         for (let i = 1; i < l.length; i++)
           len += Math.hypot(px(l[i][0]) - px(l[i - 1][0]), py(l[i][1]) - py(l[i - 1][1]));
@@ -429,8 +436,11 @@ export async function briefPdf(args: {
     let labelled = 0;
     for (const [name, e] of roads) {
       if (labelled >= 18) break;
-      const pts = e.best!.pts;
-      const mid = pts[Math.floor(pts.length / 2)];
+      // The vertex nearest the middle of the road's whole extent: a label sits on the road, centred.
+      const verts = e.pieces.flat();
+      const cx = verts.reduce((a, p) => a + p[0], 0) / verts.length;
+      const cy = verts.reduce((a, p) => a + p[1], 0) / verts.length;
+      const mid = verts.reduce((b, p) => (Math.hypot(p[0] - cx, p[1] - cy) < Math.hypot(b[0] - cx, b[1] - cy) ? p : b));
       const text = clip(name, 40);
       const tw = doc.widthOfString(text) + 4;
       const rect = { x: px(mid[0]) - tw / 2, y: py(mid[1]) - 5, w: tw, h: 10 };
