@@ -5,7 +5,13 @@
 // worst condition band) or to null where it cannot.
 import type { PlanResult } from './engine/plan/run-plan';
 
-type WorkLike = PlanResult['work'][number] & { strategy?: string; fromDesc?: string | null; toDesc?: string | null };
+type WorkLike = PlanResult['work'][number] & {
+  strategy?: string;
+  fromDesc?: string | null;
+  toDesc?: string | null;
+  functionalClass?: string;
+  structuralFlag?: string | null;
+};
 type YearLike = PlanResult['years'][number] & {
   tonsByMix?: Record<string, number>;
   failedLaneMiles?: number;
