@@ -67,7 +67,7 @@ describe('plans', () => {
     const csv = await eng.get(`${base}/${planId}/work-list?format=csv`);
     expect(csv.status).toBe(200);
     expect(csv.text.split(/\r?\n/)[0]).toBe(
-      'Year,Segment ID,Road name,Treatment,Mix,Thickness (in),Tons,Area (SY),Lane-miles,Cost ($),PCI before,PCI after',
+      'Year,Segment ID,Road name,From,To,Treatment,Mix,Thickness (in),Tons,Area (SY),Lane-miles,Cost ($),PCI before,PCI after,Strategy,Structural caution',
     );
     const pdf = await eng
       .get(`${base}/${planId}/brief.pdf`)
