@@ -99,6 +99,8 @@ describe('plan scenarios, compared, published and read', () => {
         await page.waitForTimeout(300);
         await expectNoTextOverlap(page, '[data-testid=plan-list]', `plans list at ${width} px`);
         await expectNoTextOverlap(page, '[data-testid=scenario-compare]', `scenario comparison at ${width} px`);
+        // For a person to look at (git-ignored, beside the screens suite's photographs).
+        await page.screenshot({ path: `tests/e2e/__screens__/plan-compare-${width}.png`, fullPage: true });
       }
       await page.setViewportSize({ width: 1280, height: 800 });
 

@@ -25,16 +25,17 @@ export function BudgetSearchCard({
     <Card title="Find the budget">
       <div className="flex flex-wrap items-center gap-2 text-sm">
         What flat annual budget holds the network at PCI
-        <TextInput
-          aria-label="Target PCI"
-          type="number"
-          min={1}
-          max={100}
-          className="w-20"
-          value={target}
-          onChange={(e) => setTarget(e.target.value)}
-        />
-        ?
+        <span className="inline-block w-20">
+          <TextInput
+            aria-label="Target PCI"
+            type="number"
+            min={1}
+            max={100}
+            value={target}
+            onChange={(e) => setTarget(e.target.value)}
+          />
+        </span>
+        in every year?
         <Button
           variant="secondary"
           disabled={job.data?.status === 'running' || start.isPending}

@@ -26,6 +26,8 @@ export function PlanResults({ agencyId, r }: { agencyId: string; r: StoredResult
   const first = r.years[0];
   const last = r.years[r.years.length - 1];
   const method = r.method as keyof typeof PLAN_METHOD_NOTES;
+  // Results stored before work items carried their from–to limits leave the column out.
+  const hasLimits = r.work.some((w) => w.fromDesc || w.toDesc);
   return (
     <div className="space-y-4" data-testid="plan-results">
       <p className="text-sm" data-testid="plan-caption">
@@ -177,7 +179,7 @@ export function PlanResults({ agencyId, r }: { agencyId: string; r: StoredResult
                   <th className="py-1">Year</th>
                   <th>Segment</th>
                   <th>Road</th>
-                  <th>From – to</th>
+                  {hasLimits && <th>From – to</th>}
                   <th>Treatment</th>
                   <th>Mix</th>
                   <th className="text-right">Lift (in)</th>
@@ -196,9 +198,11 @@ export function PlanResults({ agencyId, r }: { agencyId: string; r: StoredResult
                       </Link>
                     </td>
                     <td>{w.roadName}</td>
-                    <td className="text-xs">
-                      {w.fromDesc || w.toDesc ? `${w.fromDesc ?? '—'} – ${w.toDesc ?? '—'}` : '—'}
-                    </td>
+                    {hasLimits && (
+                      <td className="text-xs">
+                        {w.fromDesc || w.toDesc ? `${w.fromDesc ?? '—'} – ${w.toDesc ?? '—'}` : '—'}
+                      </td>
+                    )}
                     <td>
                       {w.treatment}
                       {w.structuralFlag && (
