@@ -28,7 +28,12 @@ export function savingWords(aName: string, a: Headline, bName: string, b: Headli
   parts.push(`spends ${signed(spent, money)} over ${b.years} years`);
   const pa = perLaneMile(a);
   const pb = perLaneMile(b);
-  if (pa !== null && pb !== null) parts.push(`at ${signed(pb - pa, money)} per lane-mile treated`);
+  if (pa !== null && pb !== null)
+    parts.push(
+      Math.abs(pb - pa) < 0.5
+        ? 'at the same cost per lane-mile treated'
+        : `at ${money(Math.abs(pb - pa))} ${pb > pa ? 'more' : 'less'} per lane-mile treated`,
+    );
   parts.push(
     `ends at network PCI ${b.finalPci.toFixed(1)} against ${a.finalPci.toFixed(1)}`,
     `with ${fmtInt(b.failedEnd)} failed lane-miles against ${fmtInt(a.failedEnd)}`,
