@@ -81,7 +81,16 @@ describe('plans', () => {
     const text = (pdf.body as Buffer).toString('latin1');
     expect(text.startsWith('%PDF-')).toBe(true);
     expect((text.match(/\/Type \/Page\b/g) ?? []).length).toBeGreaterThanOrEqual(2);
-    for (const h of ['Summary', 'Network condition', 'Backlog', 'Work list, first two years', 'Cautions'])
+    for (const h of [
+      'Summary',
+      'The plan in four numbers',
+      'Budget choices side by side',
+      'Network condition',
+      'Backlog',
+      'Map of the planned work',
+      'Work list, first two years',
+      'Cautions',
+    ])
       expect(text).toContain(`(${h})`);
   });
 

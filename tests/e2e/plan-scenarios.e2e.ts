@@ -114,6 +114,20 @@ describe('plan scenarios, compared, published and read', () => {
           await expectNoTextOverlap(page, `[data-testid=${id}]`, `${id} at ${width} px`);
       }
       await page.setViewportSize({ width: 1280, height: 800 });
+      // Find the budget that holds today's PCI (the box starts at it): the brief sets it beside the others.
+      const startPci = Math.round(
+        (await (await page.request.get(`${api(urlA)}/result`)).json()).latest.result.summary.startPci,
+      );
+      expect(await page.getByLabel('Target PCI').inputValue()).toBe(String(startPci));
+      await page.getByRole('button', { name: 'Find', exact: true }).click();
+      await page.getByTestId('budget-search').waitFor({ timeout: 120_000 });
+      await page.getByTestId('budget-curve').waitFor();
+      await expectNoTextOverlap(page, '[data-testid=budget-search]', 'find-the-budget chart');
+      const ticks = await page.getByTestId('budget-curve').locator('text').allTextContents();
+      expect(
+        ticks.filter((t) => /^\$\d+(\.\d+)?[kM]$/.test(t)).length,
+        'dollar values on the budget axis',
+      ).toBeGreaterThanOrEqual(2);
       await page.getByRole('button', { name: 'Publish', exact: true }).click();
       const dialog = page.getByRole('dialog', { name: 'Publish this plan?' });
       await dialog.waitFor();
@@ -128,7 +142,7 @@ describe('plan scenarios, compared, published and read', () => {
       await page.getByTestId('plan-versions').getByText('viewers see this one').waitFor();
 
       // Edit the published plan: a new draft version opens; the published one stays.
-      await page.getByLabel('Annual budget').fill('2.4M');
+      await page.getByLabel('Annual budget', { exact: true }).fill('2.4M');
       await page.getByTestId('new-version-note').waitFor();
       await page.getByRole('button', { name: 'Save inputs' }).click();
       await page.getByText('Scenario saved').waitFor();
@@ -189,6 +203,7 @@ describe('plan scenarios, compared, published and read', () => {
           'Budget choices side by side',
           '30 % less',
           '30 % more',
+          'Holds today’s PCI',
           'What PCI means on the ground',
           'Failed lane-miles',
           'Backlog, dollars',
