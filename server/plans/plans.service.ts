@@ -124,6 +124,29 @@ export function updatePlan(
     const before = planRow(deps, agencyId, planId, 'engineer');
     const same = before.name === name && before.settings === JSON.stringify(settings);
     if (same) return;
+    // A plan published before versions existed is frozen now, as it stands, with its latest run, so
+    // this change cannot reach its viewers (its brief is drawn from that run when asked for).
+    if (before.status === 'published' && !before.publishedVersionId) {
+      const last = runs.latestDone(deps, agencyId, 'plan', planId);
+      if (last) {
+        const id = newId();
+        tx.insert(planVersions)
+          .values({
+            id,
+            planId,
+            agencyId,
+            version: before.version,
+            name: before.name,
+            settings: before.settings,
+            runId: last.id,
+            brief: null,
+            publishedBy: before.createdBy,
+            publishedAt: before.publishedAt ?? before.updatedAt,
+          })
+          .run();
+        tx.update(plans).set({ publishedVersionId: id }).where(eq(plans.id, planId)).run();
+      }
+    }
     const frozen = isFrozen(deps, before);
     const version = frozen ? before.version + 1 : before.version;
     tx.update(plans)

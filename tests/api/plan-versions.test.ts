@@ -159,6 +159,27 @@ describe('plan versions and publishing', () => {
     expect((await eng.get(`${base}/${planId}`)).body.version).toBe(p.version);
   });
 
+  it('a plan published before versions existed is frozen at its first edit', async () => {
+    const created = await eng.post(base).send({ name: 'Legacy', settings: settings({ horizonYears: 2 }) });
+    const id = created.body.id;
+    const run = await eng.post(`${base}/${id}/run`);
+    expect((await waitRun(run.body.id)).status).toBe('done');
+    // As an older server left it: published, no version pinned.
+    t.sqlite
+      .prepare("UPDATE plans SET status = 'published', published_at = '2026-01-05T00:00:00.000Z' WHERE id = ?")
+      .run(id);
+    expect((await viewer.get(`${base}/${id}`)).body.settings.horizonYears).toBe(2);
+    const edit = await eng
+      .put(`${base}/${id}`)
+      .send({ name: 'Legacy, edited', settings: settings({ horizonYears: 3 }) });
+    expect(edit.body.version).toBe(2);
+    const seen = await viewer.get(`${base}/${id}`);
+    expect(seen.body.name).toBe('Legacy');
+    expect(seen.body.settings.horizonYears).toBe(2);
+    expect((await viewer.get(`${base}/${id}/result`)).body.latest.runId).toBe(run.body.id);
+    expect((await pdfOf(viewer.get(`${base}/${id}/brief.pdf`))).status).toBe(200);
+  });
+
   it('another agency reaches no version', async () => {
     const marlow = await t.as('engineer@marlow.example');
     expect((await marlow.get(`${base}/${planId}/versions`)).status).toBe(404);
