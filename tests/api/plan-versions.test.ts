@@ -2,6 +2,7 @@
 // plan opens the next version as a draft; viewers keep the published one until it is republished.
 // Real SQLite file, real worker pool, real SMTP catcher (tests/helpers/test-app.ts).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { type AnyPlanResult, headline } from '../../shared/plan-headline';
 import { parseDollars } from '../../shared/schemas/plans';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
@@ -201,4 +202,49 @@ describe('dollar amounts as people type them', () => {
   it.each(['', 'abc', '1.2.3', '-5', '$', '12 apples'])('%j is not an amount', (text) =>
     expect(parseDollars(text)).toBeNull(),
   );
+});
+
+describe('headline figures read from an older stored result', () => {
+  // A hand-made two-year result in the shape stored before the strategy engine (no tons by mix,
+  // no failed lane-miles field): the figures come from its work list and its worst band.
+  const old = {
+    years: [
+      { year: 0, calendarYear: 2027, budget: 100, spent: 90, laneMilesByBand: { failed: 4 }, backlog: 10 },
+      { year: 1, calendarYear: 2028, budget: 100, spent: 80, laneMilesByBand: { failed: 6 }, backlog: 20 },
+    ],
+    work: [
+      { year: 0, ref: 1, laneMiles: 2, mix: 'Dense', tons: 100 },
+      { year: 1, ref: 1, laneMiles: 2, mix: 'Rubber', tons: 30 },
+      { year: 1, ref: 2, laneMiles: 3, mix: 'Dense', tons: 50 },
+      { year: 1, ref: 3, laneMiles: 1, mix: null, tons: 0 },
+    ],
+    summary: { totalBudget: 200, totalSpent: 170, startPci: 60, finalPci: 62, finalPciDoNothing: 55, backlogEnd: 20 },
+    solution: {},
+  } as unknown as AnyPlanResult;
+
+  it('counts each road once in lane-miles treated, sums tons by mix and year, reads failed lane-miles from the band', () => {
+    const h = headline(old);
+    expect(h.budgetPerYear).toBe(100);
+    expect(h.laneMilesTreated).toBe(6); // roads 1, 2 and 3: 2 + 3 + 1, road 1 once though treated twice
+    expect(h.jobs).toBe(4);
+    expect(h.tonsByYear).toEqual([{ Dense: 100 }, { Rubber: 30, Dense: 50 }]);
+    expect(h.tonsTotal).toEqual({ Dense: 150, Rubber: 30 });
+    expect([h.failedStart, h.failedEnd]).toEqual([4, 6]);
+    expect(h.lifeCycleCost).toBeNull();
+    expect(h.mixPolicy).toBeNull();
+  });
+
+  it('prefers the new fields when the result has them', () => {
+    const h = headline({
+      ...old,
+      years: old.years.map((y, i) => ({ ...y, failedLaneMiles: 10 + i, tonsByMix: { Rubber: 7 } })),
+      summary: { ...old.summary, failedLaneMilesStart: 9, failedLaneMilesEnd: 11, lifeCycleCost: 1234 },
+      solution: { ...old.solution, mixPolicy: { mixName: 'Rubber', thicknessIn: 1.5 } },
+    } as AnyPlanResult);
+    expect([h.failedStart, h.failedEnd]).toEqual([9, 11]);
+    expect(h.failedByYear).toEqual([10, 11]);
+    expect(h.tonsByYear).toEqual([{ Rubber: 7 }, { Rubber: 7 }]);
+    expect(h.lifeCycleCost).toBe(1234);
+    expect(h.mixPolicy).toEqual({ mixName: 'Rubber', thicknessIn: 1.5 });
+  });
 });
