@@ -1,9 +1,10 @@
 // The budget choices a council weighs, side by side: the plan's own budget, 30 % less and 30 %
 // more (the plan re-run on the same input snapshot with every year's budget scaled), and the
-// budget the latest budget search found, when one ran. Runs in the brief's worker.
+// budget the latest budget search found, when one ran. Runs in the brief's worker. The other
+// columns use the fast method even when the plan is exact (the exact method may take up to its
+// time limit per run, and publishing waits for the brief); the brief says so under the table.
 import { type PlanInput, runPlan } from '../../shared/engine/plan/run-plan';
 import { type AnyPlanResult, headline } from '../../shared/plan-headline';
-import { loadSolver } from './highs';
 
 export type BudgetChoice = {
   label: string;
@@ -20,10 +21,10 @@ export async function budgetChoices(
   result: AnyPlanResult,
   search: { targetPci: number; budget: number | null; reachable: boolean } | null,
 ): Promise<BudgetChoice[]> {
-  const highs = input.method === 'exact' ? await loadSolver() : null;
   const at = (scale: number | null, flat: number | null, label: string): BudgetChoice => {
     const budgets = input.settings.budgets.map((b) => (flat !== null ? flat : b * (scale ?? 1)));
-    const r = runPlan({ ...input, settings: { ...input.settings, budgets } }, highs) as AnyPlanResult;
+    const method = input.method === 'exact' ? 'fast' : input.method;
+    const r = runPlan({ ...input, method, settings: { ...input.settings, budgets } }, null) as AnyPlanResult;
     const h = headline(r);
     return {
       label,

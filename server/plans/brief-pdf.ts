@@ -206,7 +206,7 @@ export async function briefPdf(args: {
     for (const [label, f] of rows) line([label, ...choices.map(f)], [false, ...choices.map((c) => c.thisPlan)]);
     doc.x = L;
     note(
-      'Each column is this plan re-run on the same inventory, costs and rules with every year’s budget changed; the last column, when present, is the flat budget the budget search found.',
+      `Each column is this plan re-run on the same inventory, costs and rules with every year’s budget changed; the last column, when present, is the flat budget the budget search found.${r.method === 'exact' ? ' This plan was chosen by the exact method; the other columns by the fast method, which reports its gap to a bound.' : ''}`,
       8,
     );
   }
