@@ -30,6 +30,7 @@ const ACTIONS: Record<string, string> = {
   'plan.delete': 'deleted a plan',
   'plan.run': 'ran a plan',
   'plan.publish': 'published a plan',
+  'plan.version': 'opened a new draft version of a published plan',
   'plan.unpublish': 'withdrew a plan',
   'analysis.save': 'saved a comparison',
   'analysis.delete': 'deleted a comparison',

@@ -364,8 +364,38 @@ export const plans = sqliteTable(
     createdAt: createdAt(),
     updatedAt: createdAt(),
     publishedAt: text(),
+    /** The number of the version the editable copy (name, settings) is; a published version is frozen. */
+    version: integer().notNull().default(1),
+    /** The frozen version viewers see (null: nothing published). */
+    publishedVersionId: text(),
   },
   (t) => [index('plans_agency').on(t.agencyId)],
+);
+
+/**
+ * A frozen version of a plan, written when it is published: its name, settings, the run it pins
+ * (whose stored input is the snapshot the result came from) and the council brief as it was.
+ * Never changed afterwards; editing a published plan opens the next version number as a draft.
+ */
+export const planVersions = sqliteTable(
+  'plan_versions',
+  {
+    id: text().primaryKey(),
+    planId: text()
+      .notNull()
+      .references(() => plans.id, { onDelete: 'cascade' }),
+    agencyId: text()
+      .notNull()
+      .references(() => agencies.id, { onDelete: 'cascade' }),
+    version: integer().notNull(),
+    name: text().notNull(),
+    settings: text().notNull(), // JSON PlanSettingsInput, as published
+    runId: text().notNull(),
+    brief: blob({ mode: 'buffer' }),
+    publishedBy: text().references(() => users.id, { onDelete: 'set null' }),
+    publishedAt: text().notNull(),
+  },
+  (t) => [uniqueIndex('plan_versions_number').on(t.planId, t.version), index('plan_versions_agency').on(t.agencyId)],
 );
 
 // Replaced by `runs`; kept (not dropped) this round. Its rows are copied into `runs` at start.

@@ -6,13 +6,17 @@ import {
   OptimizeResultSchema,
   PlanBodySchema,
   PlanParamsSchema,
-  PlanSummarySchema,
-  PublishBodySchema,
+  PlanRunBodySchema,
+  PlanVersionListSchema,
+  PlanVersionQuerySchema,
+  PlanViewSchema,
+  PublishVersionBodySchema,
 } from '../../shared/schemas/plans';
 import { RunViewSchema } from '../../shared/schemas/runs';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
 import { HttpError } from '../http/errors';
+import { parsePart } from '../http/validate';
 import * as service from './plans.service';
 import { briefTask, optimizeTask, workListTask } from './plans.tasks';
 
@@ -43,7 +47,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     summary: 'Plan scenarios (viewers see published ones only)',
     access: viewer,
     params: AgencyParamsSchema,
-    response: z.object({ items: z.array(PlanSummarySchema) }),
+    response: z.object({ items: z.array(PlanViewSchema) }),
     handler: ({ agency }) => service.listPlans(deps, agency!.id, agency!.role),
   });
   api.add({
@@ -54,7 +58,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     access: engineer,
     params: AgencyParamsSchema,
     body: PlanBodySchema,
-    response: PlanSummarySchema,
+    response: PlanViewSchema,
     status: 201,
     handler: ({ agency, user, body }) => service.createPlan(deps, agency!.id, user!.id, body.name, body.settings),
   });
@@ -65,7 +69,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     summary: 'One plan scenario',
     access: viewer,
     params: PlanParamsSchema,
-    response: PlanSummarySchema,
+    response: PlanViewSchema,
     handler: ({ agency, params }) => service.getPlan(deps, agency!.id, params.planId, agency!.role),
   });
   api.add({
@@ -76,7 +80,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     access: engineer,
     params: PlanParamsSchema,
     body: PlanBodySchema,
-    response: PlanSummarySchema,
+    response: PlanViewSchema,
     handler: ({ agency, user, params, body }) =>
       service.updatePlan(deps, agency!.id, user!.id, params.planId, body.name, body.settings),
   });
@@ -98,35 +102,76 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     path: `${base}/:planId/run`,
     tag: 'Plans',
     summary:
-      'Run the plan in a worker; answers 202 with the run (poll it at /api/agencies/{agencyId}/runs/{runId}). The run keeps a snapshot of its inputs.',
+      'Run the plan in a worker; answers 202 with the run (poll it at /api/agencies/{agencyId}/runs/{runId}). A body with the unsaved name and settings saves them first (a published plan then opens a new draft version), so the run reflects them. The run keeps a snapshot of its inputs.',
     access: engineer,
     params: PlanParamsSchema,
     response: RunViewSchema,
     status: 202,
     heavy: true,
-    handler: ({ agency, user, params }) => service.startRun(deps, agency!.id, user!.id, params.planId),
+    // The body is optional (a bare POST runs what is saved), so it is checked here, not declared.
+    handler: ({ agency, user, params, req }) =>
+      service.startRun(
+        deps,
+        agency!.id,
+        user!.id,
+        params.planId,
+        req.is('application/json') ? parsePart(PlanRunBodySchema, req.body ?? {}, 'body') : undefined,
+      ),
   });
   api.add({
     method: 'get',
     path: `${base}/:planId/result`,
     tag: 'Plans',
-    summary: 'The latest finished result (viewers: published plans only)',
+    summary:
+      'The latest finished result; viewers get the published version’s pinned run, engineers that of `version` when given',
     access: viewer,
     params: PlanParamsSchema,
-    handler: ({ agency, params, res }) => {
-      res.type('application/json').send(service.latestResultJson(deps, agency!.id, params.planId, agency!.role));
+    query: PlanVersionQuerySchema,
+    handler: ({ agency, params, query, res }) => {
+      res
+        .type('application/json')
+        .send(service.latestResultJson(deps, agency!.id, params.planId, agency!.role, query.version));
     },
   });
   api.add({
     method: 'post',
     path: `${base}/:planId/publish`,
     tag: 'Plans',
-    summary: 'Publish (or withdraw) a plan; optionally e-mail the agency’s viewers a link',
+    summary:
+      'Publish the plan (freezing its name, settings, latest run and council brief as a numbered version viewers see), put an earlier version back with `version`, or withdraw it; optionally e-mail the agency’s viewers the headline numbers and a link',
     access: engineer,
     params: PlanParamsSchema,
-    body: PublishBodySchema,
-    handler: ({ agency, user, params, body }) =>
-      service.publish(deps, agency!.id, user!.id, params.planId, body.publish, body.notifyViewers),
+    body: PublishVersionBodySchema,
+    heavy: true,
+    handler: ({ agency, user, params, body, signal }) =>
+      service.publish(
+        deps,
+        agency!.id,
+        user!.id,
+        params.planId,
+        body.publish,
+        body.notifyViewers,
+        async ({ plan, runId }) =>
+          Buffer.from(
+            await deps.pool.run(
+              briefTask,
+              { agencyId: agency!.id, planId: params.planId, runId, author: user!.name, plan },
+              { userId: user!.id, agencyId: agency!.id },
+              { signal },
+            ),
+          ),
+        body.version,
+      ),
+  });
+  api.add({
+    method: 'get',
+    path: `${base}/:planId/versions`,
+    tag: 'Plans',
+    summary: 'The plan’s published versions (newest first), which one viewers see, and the editable copy’s number',
+    access: engineer,
+    params: PlanParamsSchema,
+    response: PlanVersionListSchema,
+    handler: ({ agency, params }) => service.listVersions(deps, agency!.id, params.planId),
   });
   api.add({
     method: 'post',
@@ -147,15 +192,16 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     method: 'get',
     path: `${base}/:planId/work-list`,
     tag: 'Plans',
-    summary: 'The latest result’s work list as CSV or XLSX',
+    summary:
+      'The latest result’s work list as CSV or XLSX (viewers: the published version’s; engineers: `version`’s when given)',
     access: viewer,
     params: PlanParamsSchema,
-    query: z.object({ format: z.enum(['csv', 'xlsx']).default('csv') }),
+    query: PlanVersionQuerySchema.extend({ format: z.enum(['csv', 'xlsx']).default('csv') }),
     responseDescription: 'text/csv or an XLSX workbook',
     heavy: true,
     handler: async ({ agency, user, params, query, res, signal }) => {
       const plan = service.getPlan(deps, agency!.id, params.planId, agency!.role);
-      const latest = service.latestRun(deps, agency!.id, params.planId, agency!.role);
+      const latest = service.latestRun(deps, agency!.id, params.planId, agency!.role, query.version);
       if (!latest) throw new HttpError(409, 'not_run', 'Run the plan first');
       const name =
         plan.name
@@ -164,7 +210,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
           .slice(0, 60) || 'plan';
       const body = await deps.pool.run(
         workListTask,
-        { agencyId: agency!.id, runId: latest.runId, title: plan.name, format: query.format },
+        { agencyId: agency!.id, runId: latest.runId, title: latest.version?.name ?? plan.name, format: query.format },
         { userId: user!.id, agencyId: agency!.id },
         { signal },
       );
@@ -184,21 +230,36 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     path: `${base}/:planId/brief.pdf`,
     tag: 'Plans',
     summary:
-      'The council brief as PDF: summary, network PCI chart, condition bands, backlog, map of the first years’ work, the first two years’ work list, method notes and cautions',
+      'The council brief as PDF: summary, headline figures, budget choices side by side, charts with axis values, a map of the work with road names, legend, scale bar and north arrow, the work list with from–to limits, method notes and cautions. Viewers (and engineers asking for `version`) get the brief frozen when that version was published.',
     access: viewer,
     params: PlanParamsSchema,
+    query: PlanVersionQuerySchema,
     responseDescription: 'application/pdf',
     heavy: true,
-    handler: async ({ agency, params, res, user, signal }) => {
+    handler: async ({ agency, params, query, res, user, signal }) => {
       const plan = service.getPlan(deps, agency!.id, params.planId, agency!.role);
-      const latest = service.latestRun(deps, agency!.id, params.planId, agency!.role);
+      const latest = service.latestRun(deps, agency!.id, params.planId, agency!.role, query.version);
       if (!latest) throw new HttpError(409, 'not_run', 'Run the plan first');
-      const pdf = await deps.pool.run(
-        briefTask,
-        { agencyId: agency!.id, planId: params.planId, runId: latest.runId, author: user!.name },
-        { userId: user!.id, agencyId: agency!.id },
-        { signal },
-      );
+      const frozen = latest.version ? service.versionBrief(deps, agency!.id, latest.version.id) : null;
+      const pdf =
+        frozen ??
+        (await deps.pool.run(
+          briefTask,
+          {
+            agencyId: agency!.id,
+            planId: params.planId,
+            runId: latest.runId,
+            author: user!.name,
+            plan: {
+              name: latest.version?.name ?? plan.name,
+              status: latest.version ? 'published' : 'draft',
+              settings: latest.version ? JSON.parse(latest.version.settings) : plan.settings,
+              version: latest.version?.version ?? plan.version,
+            },
+          },
+          { userId: user!.id, agencyId: agency!.id },
+          { signal },
+        ));
       res.setHeader('Content-Type', 'application/pdf');
       res.setHeader(
         'Content-Disposition',

@@ -123,3 +123,68 @@ export const OptimizeResultSchema = z.object({
 
 export { CurveOverrideBodySchema, CurveSchema } from './forecast';
 export type { Family as FamilyView } from './forecast';
+
+// ---- Plan versions and publishing (plan-screens) ------------------------------
+
+/** A frozen, published version of a plan: its number, name, settings and the run it pins. */
+export const PlanVersionSchema = z.object({
+  id: z.string(),
+  version: z.number().int(),
+  name: z.string(),
+  settings: z.unknown(),
+  runId: z.string(),
+  publishedAt: z.string(),
+  publishedBy: z.string().nullable(),
+  /** Viewers see this one now. */
+  current: z.boolean(),
+});
+
+/** What the plan screen shows: the editable copy, which version it is, and what viewers see. */
+export const PlanViewSchema = PlanSummarySchema.extend({
+  /** The version number of what is shown (for viewers, the published one). */
+  version: z.number().int(),
+  /** True when the editable copy is a published version: the next change opens a new draft version. */
+  frozen: z.boolean(),
+  published: z.object({ id: z.string(), version: z.number().int(), publishedAt: z.string() }).nullable(),
+  /** The latest finished run was started after the last change (null: never run). */
+  resultCurrent: z.boolean().nullable(),
+});
+
+export const PlanVersionListSchema = z.object({
+  /** The editable copy's version number, and whether it is a draft not yet published. */
+  editing: z.object({ version: z.number().int(), draft: z.boolean() }),
+  items: z.array(PlanVersionSchema),
+});
+
+/** Run the plan: the screen's unsaved name and settings, saved first when they differ. */
+export const PlanRunBodySchema = z.object({
+  name: z.string().trim().min(1).max(120).optional(),
+  settings: PlanSettingsSchema.optional(),
+});
+
+/** Publish the editable copy, or with `version` put an earlier published version back. */
+export const PublishVersionBodySchema = PublishBodySchema.extend({
+  version: z.number().int().min(1).optional(),
+});
+
+/** Which version's result, brief or work list (engineers; viewers always get the published one). */
+export const PlanVersionQuerySchema = z.object({
+  version: z.coerce.number().int().min(1).optional(),
+});
+
+/**
+ * A dollar amount as people type it: "$250,000", "250k", "1.85M", "$1,850,000", "2.4 million".
+ * Null when it is not an amount.
+ */
+export function parseDollars(text: string): number | null {
+  const t = text
+    .trim()
+    .toLowerCase()
+    .replace(/^\$\s*/, '')
+    .replace(/,/g, '')
+    .replace(/\s+/g, ' ');
+  const m = /^(\d+(?:\.\d+)?|\.\d+)\s*(k|thousand|m|mm|million|b|billion)?$/.exec(t);
+  if (!m) return null;
+  const mult = { k: 1e3, thousand: 1e3, m: 1e6, mm: 1e6, million: 1e6, b: 1e9, billion: 1e9 }[m[2] ?? ''] ?? 1;
+  return Math.round(Number(m[1]) * mult * 100) / 100;
+}

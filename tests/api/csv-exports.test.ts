@@ -122,6 +122,8 @@ describe('each export escapes formula-leading cells', () => {
       'Year',
       'Segment ID',
       'Road name',
+      'From',
+      'To',
       'Treatment',
       'Mix',
       'Thickness (in)',
@@ -131,9 +133,16 @@ describe('each export escapes formula-leading cells', () => {
       'Cost ($)',
       'PCI before',
       'PCI after',
+      'Strategy',
+      'Structural caution',
     ]);
-    expect(row.slice(1, 5)).toEqual([`'${HOSTILE[2]}`, `'${HOSTILE[0]}`, `'${HOSTILE[3]}`, `'${HOSTILE[4]}`]);
-    expect(row[9]).toBe('-5000');
+    expect([row[1], row[2], row[5], row[6]]).toEqual([
+      `'${HOSTILE[2]}`,
+      `'${HOSTILE[0]}`,
+      `'${HOSTILE[3]}`,
+      `'${HOSTILE[4]}`,
+    ]);
+    expect(row[11]).toBe('-5000');
   });
 
   it('comparison: an alternative named like a formula is escaped; negative savings stay numbers', () => {

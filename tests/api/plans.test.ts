@@ -67,7 +67,7 @@ describe('plans', () => {
     const csv = await eng.get(`${base}/${planId}/work-list?format=csv`);
     expect(csv.status).toBe(200);
     expect(csv.text.split(/\r?\n/)[0]).toBe(
-      'Year,Segment ID,Road name,Treatment,Mix,Thickness (in),Tons,Area (SY),Lane-miles,Cost ($),PCI before,PCI after',
+      'Year,Segment ID,Road name,From,To,Treatment,Mix,Thickness (in),Tons,Area (SY),Lane-miles,Cost ($),PCI before,PCI after,Strategy,Structural caution',
     );
     const pdf = await eng
       .get(`${base}/${planId}/brief.pdf`)
@@ -81,7 +81,16 @@ describe('plans', () => {
     const text = (pdf.body as Buffer).toString('latin1');
     expect(text.startsWith('%PDF-')).toBe(true);
     expect((text.match(/\/Type \/Page\b/g) ?? []).length).toBeGreaterThanOrEqual(2);
-    for (const h of ['Summary', 'Network condition', 'Backlog', 'Work list, first two years', 'Cautions'])
+    for (const h of [
+      'Summary',
+      'The plan in four numbers',
+      'Budget choices side by side',
+      'Network condition',
+      'Backlog',
+      'Map of the planned work',
+      'Work list, first two years',
+      'Cautions',
+    ])
       expect(text).toContain(`(${h})`);
   });
 

@@ -22,7 +22,7 @@ describe('budget plan, end to end', () => {
       await page.getByLabel('Horizon').fill('6');
       await page.getByRole('button', { name: 'Save inputs' }).click();
       await page.getByText('Scenario saved').waitFor();
-      await page.getByRole('button', { name: 'Run the plan' }).click();
+      await page.getByRole('button', { name: 'Run the plan', exact: true }).click();
       await page.getByTestId('plan-results').waitFor({ timeout: 120_000 });
       expect(await page.getByTestId('plan-caption').textContent()).toMatch(
         /network PCI goes from \d+ in 2027 to \d+ by 2032/,
@@ -53,7 +53,9 @@ describe('budget plan, end to end', () => {
         null,
         { timeout: 60_000 },
       );
-      await page.getByRole('button', { name: 'Publish' }).click();
+      await page.getByRole('button', { name: 'Publish', exact: true }).click();
+      await page.getByRole('dialog', { name: 'Publish this plan?' }).waitFor();
+      await page.getByRole('button', { name: 'Yes, publish' }).click();
       await page.getByText(/Published; 1 viewer\(s\) e-mailed/).waitFor();
       planUrl = page.url();
       // The print page: the same brief, drawn in the browser.
@@ -71,9 +73,12 @@ describe('budget plan, end to end', () => {
       expect((text.match(/\/Type \/Page\b/g) ?? []).length).toBeGreaterThanOrEqual(2);
       for (const heading of [
         'Summary',
+        'The plan in four numbers',
+        'Budget choices side by side',
         'Network condition',
         'Lane-miles by condition band',
         'Backlog',
+        'Map of the planned work',
         'Work list, first two years',
         'Method',
         'Cautions',

@@ -4,6 +4,7 @@ import { BRIEF_CAUTIONS, briefMethod, briefSummary } from '@shared/engine/plan/b
 import { LineChart, StackedBars } from '@/components/charts';
 import { useSegmentsGeoJson } from '@/features/map/api/get-segments-geojson';
 import { usePlan, usePlanResult } from '@/features/plans/api/plans';
+import { moneyTick } from '@/features/plans/components/money';
 import { fmtInt, fmtMoney } from '@/lib/format';
 import { useAgency } from '../use-agency';
 import { NotFoundPage } from './not-found';
@@ -100,6 +101,7 @@ export function BriefPage() {
       <LineChart
         x={x}
         label="Network PCI by year"
+        yLabel="PCI"
         series={[
           { label: 'this plan', color: '#0f766e', values: r.years.map((y) => y.networkPci) },
           { label: 'worst-first', color: '#8c8574', dashed: true, values: r.baseline.years.map((y) => y.networkPci) },
@@ -110,6 +112,7 @@ export function BriefPage() {
       <StackedBars
         x={x}
         label="Lane-miles by condition band"
+        yLabel="lane-miles"
         format={(v) => fmtInt(v)}
         stacks={CONDITION_BANDS.slice()
           .reverse()
@@ -127,7 +130,8 @@ export function BriefPage() {
       <StackedBars
         x={x}
         label="Backlog by year"
-        format={(v) => fmtMoney(v)}
+        yLabel="backlog, $"
+        format={moneyTick}
         stacks={[{ label: 'backlog', color: '#b45309', values: r.years.map((y) => y.backlog) }]}
         height={120}
       />
