@@ -73,46 +73,52 @@ export async function importSurveys(
   const importId = newId();
   // Built before the transaction opens: the transaction only writes.
   const rejectedCsv = errors.length ? rejectedRowsCsv(table, errors) : null;
-  deps.db.transaction((tx) => {
-    deps.progress?.(0.5);
-    for (const [i, a] of accepted.entries()) {
-      if (i % 1000 === 0) deps.progress?.(0.5 + (0.5 * i) / accepted.length);
-      if (a.kind !== 'same')
-        repo.upsertSurvey(
-          tx,
+  // Staged outside the transaction (see stagedSurveys); the transaction writes them in two statements.
+  const staged = repo.stagedSurveys(deps.sqlite);
+  deps.progress?.(0.5);
+  for (const [i, a] of accepted.entries()) {
+    if (i % 1000 === 0) deps.progress?.(0.5 + (0.4 * i) / accepted.length);
+    if (a.kind !== 'same')
+      staged.add(
+        a.segmentRef,
+        a.survey.surveyDate,
+        a.survey.pci,
+        a.survey.source ?? `import ${fileName}`.slice(0, 120),
+      );
+  }
+  deps.progress?.(0.9);
+  try {
+    deps.db.transaction((tx) => {
+      staged.commit(agencyId);
+      tx.insert(imports)
+        .values({
+          id: importId,
           agencyId,
-          a.segmentRef,
-          a.survey.surveyDate,
-          a.survey.pci,
-          a.survey.source ?? `import ${fileName}`.slice(0, 120),
-        );
-    }
-    tx.insert(imports)
-      .values({
-        id: importId,
+          userId,
+          fileName: fileName.slice(0, 200),
+          kind: 'surveys',
+          format: table.format,
+          mode: opts.mode,
+          added: report.added,
+          updated: report.updated,
+          unchanged: report.unchanged,
+          rejected: report.rejected,
+          rejectedCsv,
+        })
+        .run();
+      if (opts.saveMapping) repo.saveMapping(tx, agencyId, 'surveys', mapping);
+      recordAudit(tx, {
         agencyId,
         userId,
-        fileName: fileName.slice(0, 200),
-        kind: 'surveys',
-        format: table.format,
-        mode: opts.mode,
-        added: report.added,
-        updated: report.updated,
-        unchanged: report.unchanged,
-        rejected: report.rejected,
-        rejectedCsv,
-      })
-      .run();
-    if (opts.saveMapping) repo.saveMapping(tx, agencyId, 'surveys', mapping);
-    recordAudit(tx, {
-      agencyId,
-      userId,
-      action: 'import.surveys',
-      entity: 'import',
-      entityId: importId,
-      detail: { fileName, added: report.added, updated: report.updated, rejected: report.rejected },
+        action: 'import.surveys',
+        entity: 'import',
+        entityId: importId,
+        detail: { fileName, added: report.added, updated: report.updated, rejected: report.rejected },
+      });
     });
-  });
+  } finally {
+    staged.clear();
+  }
   deps.listCache?.bump(agencyId);
   report.importId = importId;
   return { status: 200, report };

@@ -1,4 +1,4 @@
-import { and, desc, eq, sql } from 'drizzle-orm';
+import { and, desc, eq } from 'drizzle-orm';
 import type { Statement } from 'better-sqlite3';
 import type { Db, Sqlite } from '../db/client';
 import { importMappings, imports, segments, surveys, users } from '../db/schema';
@@ -68,25 +68,6 @@ export function rejectedCsv(db: Db, agencyId: string, importId: string) {
     .from(imports)
     .where(and(eq(imports.agencyId, agencyId), eq(imports.id, importId)))
     .get();
-}
-
-/** Upserts a survey row and lifts the segment's latest PCI when the survey is newer. */
-export function upsertSurvey(
-  tx: Tx,
-  agencyId: string,
-  segmentRef: number,
-  surveyDate: string,
-  pci: number,
-  source: string | null,
-) {
-  tx.insert(surveys)
-    .values({ agencyId, segmentRef, surveyDate, pci, source })
-    .onConflictDoUpdate({ target: [surveys.segmentRef, surveys.surveyDate], set: { pci, source } })
-    .run();
-  tx.update(segments)
-    .set({ pci, pciDate: surveyDate })
-    .where(and(eq(segments.id, segmentRef), sql`(${segments.pciDate} IS NULL OR ${segments.pciDate} <= ${surveyDate})`))
-    .run();
 }
 
 const COLUMN: Record<string, string> = {
@@ -226,3 +207,45 @@ export function stagedAdds(sqlite: Sqlite) {
 
 /** A PCI without a survey date sets only the latest PCI; with one, the date too (the survey carries it). */
 const pci_date = (pci: number | null, pciDate: string | null) => (pci === null ? null : pciDate);
+
+/**
+ * Survey rows, staged like new segments (see stagedAdds): into a TEMP table outside the transaction, then
+ * one upsert of them all and one lift of each segment's latest PCI inside it. The lift takes, per segment,
+ * the staged survey with the latest date (the later row of equal dates) and applies it when it is not
+ * older than the segment's own — what upserting the rows one by one in file order did.
+ */
+export function stagedSurveys(sqlite: Sqlite) {
+  sqlite.exec(
+    'CREATE TEMP TABLE IF NOT EXISTS survey_stage (seq INTEGER PRIMARY KEY, segment_ref INTEGER NOT NULL, survey_date TEXT NOT NULL, pci REAL NOT NULL, source TEXT)',
+  );
+  sqlite.exec('DELETE FROM temp.survey_stage');
+  const stage = sqlite.prepare(
+    'INSERT INTO temp.survey_stage (segment_ref, survey_date, pci, source) VALUES (?, ?, ?, ?)',
+  );
+  return {
+    add(segmentRef: number, surveyDate: string, pci: number, source: string | null) {
+      stage.run(segmentRef, surveyDate, pci, source);
+    },
+    commit(agencyId: string) {
+      sqlite
+        .prepare(
+          'INSERT INTO surveys (agency_id, segment_ref, survey_date, pci, source) SELECT ?, segment_ref, survey_date, pci, source FROM temp.survey_stage WHERE true ORDER BY seq ON CONFLICT (segment_ref, survey_date) DO UPDATE SET pci = excluded.pci, source = excluded.source',
+        )
+        .run(agencyId);
+      sqlite
+        .prepare(
+          `UPDATE segments SET pci = latest.pci, pci_date = latest.survey_date
+           FROM (SELECT segment_ref, survey_date, pci FROM (
+                   SELECT segment_ref, survey_date, pci,
+                          row_number() OVER (PARTITION BY segment_ref ORDER BY survey_date DESC, seq DESC) AS k
+                   FROM temp.survey_stage) WHERE k = 1) AS latest
+           WHERE segments.id = latest.segment_ref AND segments.agency_id = ?
+             AND (segments.pci_date IS NULL OR segments.pci_date <= latest.survey_date)`,
+        )
+        .run(agencyId);
+    },
+    clear() {
+      sqlite.exec('DELETE FROM temp.survey_stage');
+    },
+  };
+}

@@ -497,6 +497,29 @@ describe('survey import', () => {
     expect(count('SELECT count(*) AS n FROM surveys WHERE segment_ref = ?', seg.id)).toBe(2);
   });
 
+  it('several surveys of one segment in one file, out of date order: the latest becomes the PCI, an older one never does', async () => {
+    const seg = (id: string) =>
+      t.sqlite
+        .prepare('SELECT id, pci, pci_date FROM segments WHERE agency_id = ? AND segment_id = ?')
+        .get(t.ids.brannock, id) as { id: number; pci: number; pci_date: string };
+    const four = seg('PV-S1-4');
+    const surveysOf = (id: number) => count('SELECT count(*) AS n FROM surveys WHERE segment_ref = ?', id);
+    const [three0, four0] = [surveysOf(seg('PV-S1-3').id), surveysOf(four.id)];
+    const res = await upload(
+      {
+        name: 'several.csv',
+        content:
+          'segment_id,survey_date,pci\nPV-S1-3,2026-07-01,61\nPV-S1-3,2026-11-01,55\nPV-S1-3,2026-09-01,58\nPV-S1-4,2020-01-01,90\n',
+      },
+      { kind: 'surveys' },
+    );
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ added: 4, rejected: 0 });
+    expect(seg('PV-S1-3')).toMatchObject({ pci: 55, pci_date: '2026-11-01' });
+    expect(seg('PV-S1-4')).toEqual(four);
+    expect([surveysOf(seg('PV-S1-3').id), surveysOf(four.id)]).toEqual([three0 + 3, four0 + 1]);
+  });
+
   it('an unknown segment id is a row error', async () => {
     const res = await upload(
       { name: 's.csv', content: 'segment_id,survey_date,pci\nNOPE-1,2025-05-01,70\n' },

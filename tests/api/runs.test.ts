@@ -7,7 +7,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { syntheticOptimizeBody } from '../../bench/synthetic-network';
-import { createTestApp, type TestApp } from '../helpers/test-app';
+import { APP_URL, createTestApp, type TestApp } from '../helpers/test-app';
 
 type Client = Awaited<ReturnType<TestApp['as']>>;
 const INTERRUPTED = 'interrupted by a server restart — run it again';
@@ -149,6 +149,32 @@ describe('the worker pool and its caps', () => {
     req.abort();
     await until(() => t.deps.pool.busy === 0, 'the slot is freed');
     expect(await Promise.race([settled, Promise.resolve('still pending')])).not.toBe('answered');
+  });
+
+  it('sign-in checks the password outside the heavy pool: with every heavy slot taken it still answers', async () => {
+    const held = [
+      t.deps.pool.reserve({ userId: 'held-1', agencyId: null }),
+      t.deps.pool.reserve({ userId: 'held-2', agencyId: null }),
+    ];
+    try {
+      expect(t.deps.pool.busy).toBe(2);
+      const signIn = (password: string) =>
+        t
+          .anonymous()
+          .post('/api/auth/sign-in/email')
+          .set('Origin', APP_URL)
+          .send({ email: 'engineer@marlow.example', password });
+      const right = await signIn('wearcourse-demo');
+      expect(right.status).toBe(200);
+      expect(right.headers['set-cookie']?.[0]).toMatch(/^wearcourse\.sid=/);
+      const wrong = await signIn('not-the-password');
+      expect(wrong.status).toBe(401);
+      expect(wrong.body.error.message).toBe('Wrong e-mail or password');
+      // The heavy pool was never asked: its slots are the two held here.
+      expect(t.deps.pool.busy).toBe(2);
+    } finally {
+      for (const s of held) s.release();
+    }
   });
 
   it('the old poll URLs are gone, and the runs endpoint is documented with its schema and 429', async () => {
