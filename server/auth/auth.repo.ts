@@ -1,6 +1,8 @@
 // Accounts, password reset links and the invitation an account is opened with.
 import { and, eq, gt, isNull, sql } from 'drizzle-orm';
+import type { SessionUser } from '../http/api';
 import type { Db } from '../db/client';
+import { statement } from '../db/statements';
 import { agencies, invitations, passwordResets, users } from '../db/schema';
 
 type Read = Pick<Db, 'select'>;
@@ -78,3 +80,12 @@ export function acceptInvitationRow(tx: Pick<Db, 'update'>, id: string) {
     .where(and(eq(invitations.id, id), isNull(invitations.acceptedAt)))
     .run().changes;
 }
+
+export const sessionVersionOf = (db: Read, userId: string) =>
+  db.select({ v: users.sessionVersion }).from(users).where(eq(users.id, userId)).get()?.v;
+
+/** The account a session names, with its session version. Read on every request: a cached prepared statement. */
+export const sessionUserOf = (db: Db, userId: string) =>
+  statement(db.$client, 'SELECT id, email, name, session_version AS v FROM users WHERE id = ?').get(userId) as
+    | (SessionUser & { v: number })
+    | undefined;

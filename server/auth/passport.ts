@@ -4,9 +4,9 @@ import passport, { type PassportStatic } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { Deps } from '../deps';
 import { users } from '../db/schema';
-import { statement } from '../db/statements';
 import type { SessionUser } from '../http/api';
 import { HttpError } from '../http/errors';
+import { sessionUserOf, sessionVersionOf } from './auth.repo';
 import { normalizeEmail } from './emails';
 import { hashPassword, verifyPassword } from './passwords';
 
@@ -42,13 +42,10 @@ export function createPassport(deps: Deps): PassportStatic {
   );
   pp.serializeUser((user, done) => {
     const u = user as SessionUser;
-    const row = deps.db.select({ v: users.sessionVersion }).from(users).where(eq(users.id, u.id)).get();
-    done(null, { id: u.id, v: row?.v ?? 1 } satisfies SessionRecord);
+    done(null, { id: u.id, v: sessionVersionOf(deps.db, u.id) ?? 1 } satisfies SessionRecord);
   });
   pp.deserializeUser((record: SessionRecord, done) => {
-    const row = statement(deps.sqlite, 'SELECT id, email, name, session_version AS v FROM users WHERE id = ?').get(
-      record.id,
-    ) as (SessionUser & { v: number }) | undefined;
+    const row = sessionUserOf(deps.db, record.id);
     // A password change bumps the version: sessions from before it end here.
     if (!row || row.v !== record.v) return done(null, false);
     done(null, { id: row.id, email: row.email, name: row.name } satisfies SessionUser);

@@ -19,6 +19,11 @@ import { FUNCTIONAL_CLASSES, SURFACES } from '../../shared/schemas/segments';
 import { RUN_KINDS, RUN_STATUSES, type RunError } from '../../shared/schemas/runs';
 
 const createdAt = () => text().notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
+/** The owning agency: every agency's row goes when the agency does. */
+const agencyRef = () =>
+  text()
+    .notNull()
+    .references(() => agencies.id, { onDelete: 'cascade' });
 
 export const agencies = sqliteTable('agencies', {
   id: text().primaryKey(),
@@ -54,9 +59,7 @@ export const memberships = sqliteTable(
   'memberships',
   {
     id: integer().primaryKey({ autoIncrement: true }),
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     userId: text()
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
@@ -70,9 +73,7 @@ export const invitations = sqliteTable(
   'invitations',
   {
     id: text().primaryKey(),
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     email: text().notNull(),
     role: text({ enum: ROLES }).notNull(),
     tokenHash: text().notNull().unique(),
@@ -117,9 +118,7 @@ export const segments = sqliteTable(
   'segments',
   {
     id: integer().primaryKey({ autoIncrement: true }),
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     segmentId: text().notNull(),
     roadName: text().notNull(),
     fromDesc: text(),
@@ -150,9 +149,7 @@ export const surveys = sqliteTable(
   'surveys',
   {
     id: integer().primaryKey({ autoIncrement: true }),
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     segmentRef: integer()
       .notNull()
       .references(() => segments.id, { onDelete: 'cascade' }),
@@ -172,9 +169,7 @@ export const treatmentRecords = sqliteTable(
   'treatment_records',
   {
     id: integer().primaryKey({ autoIncrement: true }),
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     segmentRef: integer()
       .notNull()
       .references(() => segments.id, { onDelete: 'cascade' }),
@@ -211,9 +206,7 @@ export const imports = sqliteTable(
   'imports',
   {
     id: text().primaryKey(),
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     userId: text().references(() => users.id, { onDelete: 'set null' }),
     fileName: text().notNull(),
     kind: text({ enum: ['segments', 'surveys'] }).notNull(),
@@ -233,9 +226,7 @@ export const imports = sqliteTable(
 export const importMappings = sqliteTable(
   'import_mappings',
   {
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     kind: text().notNull(),
     mapping: text().notNull(),
     updatedAt: createdAt(),
@@ -247,9 +238,7 @@ export const mixes = sqliteTable(
   'mixes',
   {
     id: text().primaryKey(),
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     name: text().notNull(),
     binderGrade: text().notNull(),
     modifier: text({ enum: MODIFIERS }).notNull(),
@@ -271,9 +260,7 @@ export const treatments = sqliteTable(
   'treatments',
   {
     id: text().primaryKey(),
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     name: text().notNull(),
     category: text({ enum: TREATMENT_CATEGORIES }).notNull(),
     kind: text({ enum: TREATMENT_KINDS }).notNull(),
@@ -298,9 +285,7 @@ export const priceHistory = sqliteTable(
   'price_history',
   {
     id: integer().primaryKey({ autoIncrement: true }),
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     entity: text({ enum: PRICE_ENTITIES }).notNull(),
     entityId: text().notNull(),
     name: text().notNull(),
@@ -319,9 +304,7 @@ export const analyses = sqliteTable(
   'analyses',
   {
     id: text().primaryKey(),
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     name: text().notNull(),
     createdBy: text().references(() => users.id, { onDelete: 'set null' }),
     // The full input snapshot (catalog items, prices, economics, quantities): re-runs reproduce exactly.
@@ -336,9 +319,7 @@ export const analyses = sqliteTable(
 export const curveOverrides = sqliteTable(
   'curve_overrides',
   {
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     familyKey: text().notNull(),
     p0: real().notNull(),
     a: real().notNull(),
@@ -352,9 +333,7 @@ export const plans = sqliteTable(
   'plans',
   {
     id: text().primaryKey(),
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     name: text().notNull(),
     status: text({ enum: ['draft', 'published'] })
       .notNull()
@@ -425,9 +404,7 @@ export const runs = sqliteTable(
   'runs',
   {
     id: text().primaryKey(),
-    agencyId: text()
-      .notNull()
-      .references(() => agencies.id, { onDelete: 'cascade' }),
+    agencyId: agencyRef(),
     userId: text().references(() => users.id, { onDelete: 'set null' }),
     kind: text({ enum: RUN_KINDS }).notNull(),
     /** The plan (plan, budget-search) or saved comparison the run belongs to. */

@@ -123,11 +123,11 @@ export function districtsOf(db: Db, agencyId: string) {
     .all();
 }
 
-export function segmentById(db: Pick<Db, 'select'>, agencyId: string, id: number) {
+export function segmentById(db: Pick<Db, 'select'>, agencyId: string, segmentRef: number) {
   return db
     .select()
     .from(segments)
-    .where(and(eq(segments.agencyId, agencyId), eq(segments.id, id)))
+    .where(and(eq(segments.agencyId, agencyId), eq(segments.id, segmentRef)))
     .get();
 }
 
@@ -135,12 +135,12 @@ export function segmentById(db: Pick<Db, 'select'>, agencyId: string, id: number
 export function updateSegmentRow(
   tx: Pick<Db, 'update'>,
   agencyId: string,
-  id: number,
+  segmentRef: number,
   set: Partial<Omit<SegmentRow, 'id' | 'agencyId'>>,
 ) {
   tx.update(segments)
     .set({ ...set, updatedAt: new Date().toISOString() })
-    .where(and(eq(segments.agencyId, agencyId), eq(segments.id, id)))
+    .where(and(eq(segments.agencyId, agencyId), eq(segments.id, segmentRef)))
     .run();
 }
 

@@ -85,30 +85,31 @@ export function networkSummary(deps: Deps, agencyId: string): NetworkSummary {
 
 // For the segment's history (surveys and work done), inside its transaction.
 /** The segment's stored row, or undefined when the agency has no such segment. */
-export const segmentRowIn = (tx: Pick<Db, 'select'>, agencyId: string, id: number) => segmentById(tx, agencyId, id);
+export const segmentRowIn = (tx: Pick<Db, 'select'>, agencyId: string, segmentRef: number) =>
+  segmentById(tx, agencyId, segmentRef);
 
 /** Sets columns of the segment the history keeps current (latest PCI, last treatment). */
 export const touchSegment = (
   tx: Pick<Db, 'update'>,
   agencyId: string,
-  id: number,
+  segmentRef: number,
   set: Partial<Pick<SegmentRow, 'pci' | 'pciDate' | 'lastTreatment' | 'lastTreatmentYear'>>,
-) => updateSegmentRow(tx, agencyId, id, set);
+) => updateSegmentRow(tx, agencyId, segmentRef, set);
 
-export function segmentDetail(deps: Deps, agencyId: string, id: number) {
-  const row = segmentById(deps.db, agencyId, id);
+export function segmentDetail(deps: Deps, agencyId: string, segmentRef: number) {
+  const row = segmentById(deps.db, agencyId, segmentRef);
   if (!row) throw notFound('No such segment');
   return {
     ...toSegment(row),
     notes: row.notes,
     geometry: row.geometry ? JSON.parse(row.geometry) : null,
-    surveys: surveysOf(deps.db, agencyId, id),
+    surveys: surveysOf(deps.db, agencyId, segmentRef),
   };
 }
 
-export function updateSegment(deps: Deps, agencyId: string, userId: string, id: number, patch: SegmentUpdate) {
+export function updateSegment(deps: Deps, agencyId: string, userId: string, segmentRef: number, patch: SegmentUpdate) {
   deps.db.transaction((tx) => {
-    const before = segmentById(tx, agencyId, id);
+    const before = segmentById(tx, agencyId, segmentRef);
     if (!before) throw notFound('No such segment');
     const changed: Record<string, { before: unknown; after: unknown }> = {};
     for (const [k, v] of Object.entries(patch)) {
@@ -116,7 +117,7 @@ export function updateSegment(deps: Deps, agencyId: string, userId: string, id: 
       if (old !== v) changed[k] = { before: old, after: v };
     }
     if (Object.keys(changed).length === 0) return;
-    updateSegmentRow(tx, agencyId, id, patch);
+    updateSegmentRow(tx, agencyId, segmentRef, patch);
     recordAudit(tx, {
       agencyId,
       userId,
@@ -127,5 +128,5 @@ export function updateSegment(deps: Deps, agencyId: string, userId: string, id: 
     });
   });
   deps.listCache?.bump(agencyId);
-  return segmentDetail(deps, agencyId, id);
+  return segmentDetail(deps, agencyId, segmentRef);
 }

@@ -86,6 +86,20 @@ export function spreadLabels<T extends { y: number }>(items: T[], gap: number, t
 
 export type Series = { label: string; color: string; values: number[]; dashed?: boolean };
 
+/** What every chart takes: its categories, its box, how values read, and its names. */
+type ChartBox = {
+  /** Category labels, evenly spaced. */
+  x: (string | number)[];
+  height?: number;
+  /** Width used until the box is measured. */
+  width?: number;
+  format?: (v: number) => string;
+  /** A short axis title drawn above the values ("PCI", "$ a year"). */
+  yLabel?: string;
+  testId?: string;
+  label?: string;
+};
+
 /** The y axis of a chart: its label above, and a grid line with its value at each tick. */
 function YGrid({
   label,
@@ -132,20 +146,10 @@ export function LineChart({
   yLabel,
   testId,
   label = 'Line chart',
-}: {
-  /** Category labels, evenly spaced. */
-  x: (string | number)[];
+}: ChartBox & {
   series: Series[];
   yMin?: number;
   yMax?: number;
-  height?: number;
-  /** Width used until the box is measured. */
-  width?: number;
-  format?: (v: number) => string;
-  /** A short axis title drawn above the values ("PCI", "$ a year"). */
-  yLabel?: string;
-  testId?: string;
-  label?: string;
 }) {
   const { ref, width: w } = useChartWidth(width);
   const ends = series.map((s) => `${s.label} ${format(s.values[s.values.length - 1])}`);
@@ -211,15 +215,8 @@ export function StackedBars({
   testId,
   label = 'Bar chart',
   directLabels = stacks.length > 1,
-}: {
-  x: (string | number)[];
+}: ChartBox & {
   stacks: { label: string; color: string; values: number[] }[];
-  height?: number;
-  width?: number;
-  format?: (v: number) => string;
-  yLabel?: string;
-  testId?: string;
-  label?: string;
   /** Name each stack beside the last bar (on by default when there is more than one). */
   directLabels?: boolean;
 }) {

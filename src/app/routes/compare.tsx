@@ -6,7 +6,7 @@ import { RoadsCard } from '@/features/compare/components/roads-card';
 import { RunBar } from '@/features/compare/components/run-bar';
 import { SavedList } from '@/features/compare/components/saved-list';
 import { SetupControls } from '@/features/compare/components/setup-controls';
-import { StudyResults } from '@/features/compare/components/study-results';
+import { ComparisonResults } from '@/features/compare/components/comparison-results';
 import { useAgency } from '../use-agency';
 
 export function ComparePage() {
@@ -15,7 +15,7 @@ export function ComparePage() {
   const { catalog } = page;
   const resultTop = useRef<HTMLDivElement>(null);
   // A new result (a finished run, an opened comparison) brings its answer into view.
-  const shownKey = page.result ? `${page.runId ?? ''}|${page.analysisId ?? ''}` : null;
+  const shownKey = page.result ? `${page.runId ?? ''}|${page.comparisonId ?? ''}` : null;
   useEffect(() => {
     const el = resultTop.current;
     if (!shownKey || !el) return;
@@ -54,7 +54,7 @@ export function ComparePage() {
           {page.result ? (
             <>
               <ResultToolbar page={page} agencyId={agencyId} />
-              <StudyResults r={page.result} />
+              <ComparisonResults r={page.result} />
             </>
           ) : (
             <EmptyState>

@@ -91,3 +91,27 @@ export function OpenEdit({ label, itemName, onOpen }: { label: string; itemName:
     </Button>
   );
 }
+
+/** A catalog row's last two cells: the date its prices took effect, and the way to change them. */
+export function PriceCells({
+  item,
+  canEdit,
+  editing,
+  label,
+  onOpen,
+}: {
+  item: { name: string; priceEffectiveDate: string };
+  canEdit: boolean;
+  editing: boolean;
+  label: string;
+  onOpen: () => void;
+}) {
+  return (
+    <>
+      <td className="text-right whitespace-nowrap">{item.priceEffectiveDate}</td>
+      <td className="text-right">
+        {canEdit && !editing && <OpenEdit label={label} itemName={item.name} onOpen={onOpen} />}
+      </td>
+    </>
+  );
+}

@@ -6,7 +6,7 @@ import { useUpdateMix } from '../api/update-mix';
 import { today } from '../lib/today';
 import { useRowEdit } from '../lib/use-row-edit';
 import { DemoTag } from './demo-tag';
-import { EditPanel, effectiveDateField, OpenEdit } from './edit-panel';
+import { EditPanel, effectiveDateField, PriceCells } from './edit-panel';
 
 type Draft = { pricePerTon: string; refLifeYears: string; priceEffectiveDate: string };
 
@@ -57,10 +57,7 @@ export function MixRow({
           {fmt2(m.minLiftIn)}–{fmt2(m.maxLiftIn)}
         </td>
         <td className="text-right whitespace-nowrap">{`${m.refLifeYears} yr at ${m.refLiftIn} in`}</td>
-        <td className="text-right whitespace-nowrap">{m.priceEffectiveDate}</td>
-        <td className="text-right">
-          {canEdit && !draft && <OpenEdit label="Change price" itemName={m.name} onOpen={open} />}
-        </td>
+        <PriceCells item={m} canEdit={canEdit} editing={!!draft} label="Change price" onOpen={open} />
       </tr>
       {draft && (
         <EditPanel

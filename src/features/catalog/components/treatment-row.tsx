@@ -13,7 +13,7 @@ import { appliesText, classesText, costItemText, effectText, lifeText, surfacesT
 import { today } from '../lib/today';
 import { useRowEdit } from '../lib/use-row-edit';
 import { DemoTag } from './demo-tag';
-import { EditPanel, effectiveDateField, OpenEdit } from './edit-panel';
+import { EditPanel, effectiveDateField, PriceCells } from './edit-panel';
 
 type Draft = { amounts: string[]; date: string };
 
@@ -82,10 +82,7 @@ export function TreatmentRow({
             {surfacesText(t.applicability)}; {classesText(t.applicability)}
           </div>
         </td>
-        <td className="text-right whitespace-nowrap">{t.priceEffectiveDate}</td>
-        <td className="text-right">
-          {canEdit && !draft && <OpenEdit label="Change prices" itemName={t.name} onOpen={open} />}
-        </td>
+        <PriceCells item={t} canEdit={canEdit} editing={!!draft} label="Change prices" onOpen={open} />
       </tr>
       {draft && (
         <EditPanel

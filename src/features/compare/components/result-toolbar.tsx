@@ -1,15 +1,15 @@
 import { toast } from 'sonner';
 import { Button } from '@/components/ui/button';
 import { TextInput } from '@/components/ui/field';
-import { useRerunAnalysis, useSaveAnalysis } from '../api/analyses';
+import { useRerunComparison, useSaveComparison } from '../api/comparisons';
 import type { ComparePage } from '../hooks/use-compare-page';
 import { basisOfSaved } from '../lib/run-basis';
 
 /** Above the result: save a finished run, or a saved comparison's exports and re-run; the out-of-date mark. */
 export function ResultToolbar({ page, agencyId }: { page: ComparePage; agencyId: string }) {
-  const save = useSaveAnalysis(agencyId);
-  const rerun = useRerunAnalysis(agencyId);
-  const { runId, analysisId, saved } = page;
+  const save = useSaveComparison(agencyId);
+  const rerun = useRerunComparison(agencyId);
+  const { runId, comparisonId, saved } = page;
   const finished = runId && page.run.data?.status === 'done';
   return (
     <div className="mb-3 space-y-2">
@@ -43,20 +43,20 @@ export function ResultToolbar({ page, agencyId }: { page: ComparePage; agencyId:
             </Button>
           </>
         )}
-        {analysisId && !runId && saved.data && (
+        {comparisonId && !runId && saved.data && (
           <>
             <span className="text-sm text-asphalt-muted" data-testid="saved-name">
               Saved: {saved.data.name}
             </span>
             <a
               className="text-sm font-semibold text-accent hover:underline"
-              href={`/api/agencies/${agencyId}/analyses/${analysisId}/export?format=csv`}
+              href={`/api/agencies/${agencyId}/analyses/${comparisonId}/export?format=csv`}
             >
               CSV
             </a>
             <a
               className="text-sm font-semibold text-accent hover:underline"
-              href={`/api/agencies/${agencyId}/analyses/${analysisId}/export?format=xlsx`}
+              href={`/api/agencies/${agencyId}/analyses/${comparisonId}/export?format=xlsx`}
             >
               XLSX
             </a>
@@ -64,7 +64,7 @@ export function ResultToolbar({ page, agencyId }: { page: ComparePage; agencyId:
               variant="ghost"
               onClick={() => {
                 const basis = basisOfSaved(saved.data!.input);
-                rerun.mutate(analysisId, {
+                rerun.mutate(comparisonId, {
                   onSuccess: (r) => {
                     page.setRunId(r.id);
                     page.setRunBasis(basis);

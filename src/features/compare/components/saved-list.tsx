@@ -1,10 +1,10 @@
 import { Card } from '@/components/ui/page';
 import { fmt1 } from '@/lib/format';
-import { useAnalyses } from '../api/analyses';
+import { useComparisons } from '../api/comparisons';
 import type { ComparePage } from '../hooks/use-compare-page';
 
 export function SavedList({ page, agencyId }: { page: ComparePage; agencyId: string }) {
-  const list = useAnalyses(agencyId);
+  const list = useComparisons(agencyId);
   return (
     <Card title="Saved comparisons">
       {list.data?.items.length ? (
@@ -13,7 +13,7 @@ export function SavedList({ page, agencyId }: { page: ComparePage; agencyId: str
             <li key={s.id} className="flex items-center justify-between gap-3 py-1">
               <button
                 type="button"
-                className={`text-left hover:underline ${s.id === page.analysisId ? 'font-bold text-asphalt' : 'text-accent'}`}
+                className={`text-left hover:underline ${s.id === page.comparisonId ? 'font-bold text-asphalt' : 'text-accent'}`}
                 onClick={() => page.openSaved(s.id)}
               >
                 {s.name}

@@ -7,8 +7,8 @@ import { toast } from 'sonner';
 import type { AlternativeSpec, Group, StudyRequest } from '@shared/schemas/lcca';
 import { useCatalog } from '@/features/catalog/api/get-catalog';
 import { useSegments } from '@/features/segments/api/get-segments';
-import { type SavedAnalysis, useAnalysis } from '../api/analyses';
-import { useStartStudy, useStudyRun } from '../api/study-runs';
+import { type SavedComparison, useComparison } from '../api/comparisons';
+import { useStartComparison, useComparisonRun } from '../api/comparison-runs';
 import { defaultAlternatives } from '../lib/default-alternatives';
 import { basisOf, basisOfSaved, changesSince, type RunBasis } from '../lib/run-basis';
 import { DEFAULT_SECTION, type Roads, roadsOfGroup, segmentGroup, typedGroup } from '../lib/roads';
@@ -25,8 +25,8 @@ const idsFromUrl = (params: URLSearchParams) =>
 export function useComparePage(agencyId: string) {
   const [params, setParams] = useSearchParams();
   const catalog = useCatalog(agencyId);
-  const analysisId = params.get('analysis');
-  const saved = useAnalysis(agencyId, analysisId);
+  const comparisonId = params.get('analysis');
+  const saved = useComparison(agencyId, comparisonId);
   const [roads, setRoads] = useState<Roads>(() => {
     const ids = idsFromUrl(params);
     return ids.length ? { kind: 'segments', ids } : { kind: 'typed', section: DEFAULT_SECTION };
@@ -37,8 +37,8 @@ export function useComparePage(agencyId: string) {
   const [name, setName] = useState('');
   const [runId, setRunId] = useState<string | null>(null);
   const [runBasis, setRunBasis] = useState<RunBasis | null>(null);
-  const run = useStudyRun(agencyId, runId);
-  const start = useStartStudy(agencyId);
+  const run = useComparisonRun(agencyId, runId);
+  const start = useStartComparison(agencyId);
 
   // Roads picked under Roads arrive in the URL.
   const urlIds = params.get('segments');
@@ -53,7 +53,7 @@ export function useComparePage(agencyId: string) {
 
   // A saved comparison brings back its roads and inputs, once per opening (a refetch keeps the user's edits).
   const loaded = useRef<string | null>(null);
-  const restore = (data: SavedAnalysis) => {
+  const restore = (data: SavedComparison) => {
     loaded.current = data.id;
     const input = data.input;
     setRoads(roadsOfGroup(input.group));
@@ -116,7 +116,7 @@ export function useComparePage(agencyId: string) {
   const openSaved = (id: string) => {
     setRunId(null);
     // Opening the one already shown puts its inputs back; another loads through the effect above.
-    if (id === analysisId && saved.data?.id === id) restore(saved.data);
+    if (id === comparisonId && saved.data?.id === id) restore(saved.data);
     else {
       loaded.current = null;
       setParams(new URLSearchParams({ analysis: id }));
@@ -130,7 +130,7 @@ export function useComparePage(agencyId: string) {
 
   return {
     catalog,
-    analysisId,
+    comparisonId,
     saved,
     roads,
     setRoads,

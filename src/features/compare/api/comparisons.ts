@@ -4,28 +4,28 @@ import type { StudyResult } from '@shared/engine/lcca/study';
 import type { AnalysisListSchema, StudyInput } from '@shared/schemas/lcca';
 import { api } from '@/lib/api-client';
 import { comparisonKeys } from './keys';
-import type { StudyRun } from './study-runs';
+import type { ComparisonRun } from './comparison-runs';
 
-export const analysesQueryOptions = (agencyId: string) =>
+export const comparisonsQueryOptions = (agencyId: string) =>
   queryOptions({
     queryKey: comparisonKeys.list(agencyId),
     queryFn: () => api<z.infer<typeof AnalysisListSchema>>(`/api/agencies/${agencyId}/analyses`),
   });
 
-export const useAnalyses = (agencyId: string) => useQuery(analysesQueryOptions(agencyId));
+export const useComparisons = (agencyId: string) => useQuery(comparisonsQueryOptions(agencyId));
 
-export type SavedAnalysis = { id: string; name: string; input: StudyInput; result: StudyResult | null };
+export type SavedComparison = { id: string; name: string; input: StudyInput; result: StudyResult | null };
 
-export const analysisQueryOptions = (agencyId: string, id: string | null) =>
+export const comparisonQueryOptions = (agencyId: string, id: string | null) =>
   queryOptions({
     queryKey: comparisonKeys.detail(agencyId, id),
-    queryFn: () => api<SavedAnalysis>(`/api/agencies/${agencyId}/analyses/${id}`),
+    queryFn: () => api<SavedComparison>(`/api/agencies/${agencyId}/analyses/${id}`),
     enabled: !!id,
   });
 
-export const useAnalysis = (agencyId: string, id: string | null) => useQuery(analysisQueryOptions(agencyId, id));
+export const useComparison = (agencyId: string, id: string | null) => useQuery(comparisonQueryOptions(agencyId, id));
 
-export function useSaveAnalysis(agencyId: string) {
+export function useSaveComparison(agencyId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (v: { name: string; runId: string }) =>
@@ -34,7 +34,8 @@ export function useSaveAnalysis(agencyId: string) {
   });
 }
 
-export const useRerunAnalysis = (agencyId: string) =>
+export const useRerunComparison = (agencyId: string) =>
   useMutation({
-    mutationFn: (id: string) => api<StudyRun>(`/api/agencies/${agencyId}/analyses/${id}/rerun`, { method: 'POST' }),
+    mutationFn: (id: string) =>
+      api<ComparisonRun>(`/api/agencies/${agencyId}/analyses/${id}/rerun`, { method: 'POST' }),
   });

@@ -8,7 +8,7 @@ import { RiskCard } from './risk-card';
 import { SavingsTable } from './savings-table';
 
 /** The result, answer first: the sentence, the ranking, savings, cautions by kind, cash flows, then the risk. */
-export function StudyResults({ r }: { r: StudyResult }) {
+export function ComparisonResults({ r }: { r: StudyResult }) {
   return (
     <div
       className="space-y-4"
