@@ -1,0 +1,411 @@
+// The fast method (docs/COMPUTATION.md, the budget plan): Lagrangian relaxation of every
+// year's budget row and every target row, so that each segment then chooses on its own
+// (value − λ·costs + μ·gains, or nothing). The dual is minimised by subgradient steps
+// (Polyak step lengths, in rows scaled to their right-hand sides); every value of the dual
+// is a proven bound on the optimum. Feasible plans come from the same multipliers, raised
+// in the years that overspend and on the targets missed until the choice fits, then
+// filled with what money is left. Targets it cannot meet are listed, never hidden.
+// Typed arrays only; nothing is allocated per option in the loops.
+import { type Compiled, compile, evaluate, solutionOf, TOL } from './compiled';
+import type { PackedInstance, PlanSolution } from './instance';
+
+type Work = {
+  inst: PackedInstance;
+  c: Compiled;
+  pick: Int32Array;
+  spent: Float64Array;
+  lhs: Float64Array;
+};
+
+/**
+ * Each segment's best choice under multipliers lam (value per dollar, by year) and mu (value per unit
+ * of target gain, by row). Returns the Lagrangian L(λ, μ) = Σ λ·B − Σ μ·rhs + Σ_i max(0, max_o reduced value),
+ * an upper bound on the best total value of any choice that meets every row. Fills w.pick, w.spent, w.lhs.
+ */
+function pickAt(w: Work, lam: Float64Array, mu: Float64Array): number {
+  const { inst, c, pick, spent, lhs } = w;
+  const { value, usable, cStart, cYear, cVal, gStart, gRow, gVal } = c;
+  const segStart = inst.segStart;
+  const must = inst.mustChoose;
+  spent.fill(0);
+  lhs.fill(0);
+  let L = 0;
+  for (let y = 0; y < c.Y; y++) if (lam[y] > 0) L += lam[y] * inst.budgets[y];
+  for (let r = 0; r < c.R; r++) L -= mu[r] * inst.targets[r].rhs;
+  const hasTargets = c.R > 0;
+  for (let i = 0; i < inst.nSegments; i++) {
+    let best = must[i] ? Number.NEGATIVE_INFINITY : 0;
+    let bo = -1;
+    const end = segStart[i + 1];
+    for (let o = segStart[i]; o < end; o++) {
+      if (usable[o] === 0) continue;
+      let r = value[o];
+      for (let k = cStart[o], ke = cStart[o + 1]; k < ke; k++) r -= lam[cYear[k]] * cVal[k];
+      if (hasTargets) for (let k = gStart[o], ke = gStart[o + 1]; k < ke; k++) r += mu[gRow[k]] * gVal[k];
+      if (r > best) {
+        best = r;
+        bo = o;
+      }
+    }
+    pick[i] = bo;
+    if (bo < 0) continue;
+    L += best;
+    for (let k = cStart[bo], ke = cStart[bo + 1]; k < ke; k++) spent[cYear[k]] += cVal[k];
+    if (hasTargets) for (let k = gStart[bo], ke = gStart[bo + 1]; k < ke; k++) lhs[gRow[k]] += gVal[k];
+  }
+  return L;
+}
+
+const over = (inst: PackedInstance, spent: Float64Array, y: number) => spent[y] > inst.budgets[y] * (1 + TOL) + 1e-6;
+const short = (inst: PackedInstance, lhs: Float64Array, r: number) => {
+  const t = inst.targets[r];
+  return lhs[r] < t.rhs - Math.abs(t.rhs) * 1e-9 - 1e-9;
+};
+
+/** Total value of the current pick (the maximised form: benefit, or −lcc). */
+function totalValue(w: Work) {
+  let v = 0;
+  for (let i = 0; i < w.inst.nSegments; i++) if (w.pick[i] >= 0) v += w.c.value[w.pick[i]];
+  return v;
+}
+
+function addOption(w: Work, o: number, sign: 1 | -1) {
+  const { c } = w;
+  for (let k = c.cStart[o]; k < c.cStart[o + 1]; k++) w.spent[c.cYear[k]] += sign * c.cVal[k];
+  for (let k = c.gStart[o]; k < c.gStart[o + 1]; k++) w.lhs[c.gRow[k]] += sign * c.gVal[k];
+}
+
+/** Drop (or, where work is mandatory, cheapen) the least valuable choices per overspent dollar until every year fits. */
+function dropUntilFits(w: Work, cur: Int32Array) {
+  const { inst, c } = w;
+  const overY = new Uint8Array(c.Y);
+  let any = false;
+  for (let y = 0; y < c.Y; y++)
+    if (over(inst, w.spent, y)) {
+      overY[y] = 1;
+      any = true;
+    }
+  if (!any) return;
+  const cand: number[] = [];
+  const key = new Float64Array(inst.nSegments);
+  for (let i = 0; i < inst.nSegments; i++) {
+    const o = cur[i];
+    if (o < 0) continue;
+    let money = 0;
+    for (let k = c.cStart[o]; k < c.cStart[o + 1]; k++)
+      if (overY[c.cYear[k]]) money += c.cVal[k] / inst.budgets[c.cYear[k]];
+    if (money <= 0) continue;
+    key[i] = c.value[o] / money;
+    cand.push(i);
+  }
+  cand.sort((a, b) => key[a] - key[b]);
+  for (const i of cand) {
+    const o = cur[i];
+    let hits = false;
+    for (let k = c.cStart[o]; k < c.cStart[o + 1]; k++) if (over(inst, w.spent, c.cYear[k])) hits = true;
+    if (!hits) continue;
+    addOption(w, o, -1);
+    cur[i] = -1;
+    if (inst.mustChoose[i]) {
+      // The cheapest usable option in the overspent years (fewest dollars there).
+      let bo = -1;
+      let bm = Number.POSITIVE_INFINITY;
+      for (let p = inst.segStart[i]; p < inst.segStart[i + 1]; p++) {
+        if (!c.usable[p]) continue;
+        let m = 0;
+        for (let k = c.cStart[p]; k < c.cStart[p + 1]; k++) if (overY[c.cYear[k]]) m += c.cVal[k];
+        if (m < bm) {
+          bm = m;
+          bo = p;
+        }
+      }
+      if (bo >= 0) {
+        cur[i] = bo;
+        addOption(w, bo, 1);
+      }
+    }
+    let still = false;
+    for (let y = 0; y < c.Y; y++) if (overY[y] && over(inst, w.spent, y)) still = true;
+    if (!still) break;
+  }
+}
+
+/**
+ * Upgrades with the money left: per segment the best move (by gain per weighted dollar) that fits,
+ * applied best first; never takes a target row that is met below its right-hand side.
+ * mode 'value' gains objective value; mode 'targets' gains on the rows still missed.
+ */
+function fill(w: Work, cur: Int32Array, lam: Float64Array, eps: Float64Array, mode: 'value' | 'targets') {
+  const { inst, c } = w;
+  const Y = c.Y;
+  const rem = new Float64Array(Y);
+  const deficit = new Float64Array(c.R);
+  const moveOpt = new Int32Array(inst.nSegments).fill(-2);
+  const score = new Float64Array(inst.nSegments);
+  const delta = new Float64Array(Y);
+  for (let round = 0; round < 3; round++) {
+    for (let y = 0; y < Y; y++) rem[y] = inst.budgets[y] * (1 + TOL) - w.spent[y];
+    let anyDeficit = false;
+    for (let r = 0; r < c.R; r++) {
+      deficit[r] = short(inst, w.lhs, r) ? inst.targets[r].rhs - w.lhs[r] : 0;
+      if (deficit[r] > 0) anyDeficit = true;
+    }
+    if (mode === 'targets' && !anyDeficit) return;
+    const cands: number[] = [];
+    for (let i = 0; i < inst.nSegments; i++) {
+      const o0 = cur[i];
+      const v0 = o0 >= 0 ? c.value[o0] : 0;
+      let best = 0;
+      let bo = -2;
+      for (let o = inst.segStart[i]; o < inst.segStart[i + 1]; o++) {
+        if (o === o0 || !c.usable[o]) continue;
+        let gain: number;
+        if (mode === 'value') gain = c.value[o] - v0;
+        else {
+          gain = 0;
+          for (let k = c.gStart[o]; k < c.gStart[o + 1]; k++)
+            if (deficit[c.gRow[k]] > 0) gain += c.gVal[k] / deficit[c.gRow[k]];
+          if (o0 >= 0)
+            for (let k = c.gStart[o0]; k < c.gStart[o0 + 1]; k++)
+              if (deficit[c.gRow[k]] > 0) gain -= c.gVal[k] / deficit[c.gRow[k]];
+        }
+        if (gain <= 1e-12) continue;
+        delta.fill(0);
+        for (let k = c.cStart[o]; k < c.cStart[o + 1]; k++) delta[c.cYear[k]] += c.cVal[k];
+        if (o0 >= 0) for (let k = c.cStart[o0]; k < c.cStart[o0 + 1]; k++) delta[c.cYear[k]] -= c.cVal[k];
+        let fits = true;
+        let price = 0;
+        for (let y = 0; y < Y; y++) {
+          if (delta[y] > rem[y]) {
+            fits = false;
+            break;
+          }
+          price += delta[y] * (lam[y] + eps[y]);
+        }
+        if (!fits) continue;
+        const s = price > 1e-12 ? gain / price : Number.MAX_VALUE * (gain > 0 ? 1 : 0) + gain;
+        if (s > best) {
+          best = s;
+          bo = o;
+        }
+      }
+      moveOpt[i] = bo;
+      if (bo >= -1) {
+        score[i] = best;
+        cands.push(i);
+      }
+    }
+    if (cands.length === 0) return;
+    cands.sort((a, b) => score[b] - score[a]);
+    let moved = 0;
+    for (const i of cands) {
+      const o = moveOpt[i];
+      const o0 = cur[i];
+      delta.fill(0);
+      for (let k = c.cStart[o]; k < c.cStart[o + 1]; k++) delta[c.cYear[k]] += c.cVal[k];
+      if (o0 >= 0) for (let k = c.cStart[o0]; k < c.cStart[o0 + 1]; k++) delta[c.cYear[k]] -= c.cVal[k];
+      let fits = true;
+      for (let y = 0; y < Y; y++) if (delta[y] > 0 && w.spent[y] + delta[y] > inst.budgets[y] * (1 + TOL)) fits = false;
+      if (!fits) continue;
+      // Never break a target row that is met.
+      if (c.R > 0) {
+        if (o0 >= 0) addOption(w, o0, -1);
+        addOption(w, o, 1);
+        let breaks = false;
+        for (let k = c.gStart[o]; k < c.gStart[o + 1]; k++)
+          if (deficit[c.gRow[k]] === 0 && short(inst, w.lhs, c.gRow[k])) breaks = true;
+        if (o0 >= 0)
+          for (let k = c.gStart[o0]; k < c.gStart[o0 + 1]; k++)
+            if (deficit[c.gRow[k]] === 0 && short(inst, w.lhs, c.gRow[k])) breaks = true;
+        if (breaks) {
+          addOption(w, o, -1);
+          if (o0 >= 0) addOption(w, o0, 1);
+          continue;
+        }
+      } else {
+        if (o0 >= 0) addOption(w, o0, -1);
+        addOption(w, o, 1);
+      }
+      cur[i] = o;
+      moved++;
+    }
+    if (moved === 0) return;
+  }
+}
+
+/** A feasible (as far as it can) choice from the multipliers: raise λ where money runs over, μ where targets fall short. */
+function primal(w: Work, lam: Float64Array, mu: Float64Array, lamBase: Float64Array, muBase: Float64Array) {
+  const { inst, c } = w;
+  const l = lam.slice();
+  const m = mu.slice();
+  pickAt(w, l, m);
+  let alpha = 0.002;
+  for (let step = 0; step < 30; step++) {
+    let viol = false;
+    for (let y = 0; y < c.Y; y++)
+      if (over(inst, w.spent, y)) {
+        viol = true;
+        l[y] = l[y] * (1 + alpha) + lamBase[y] * alpha;
+      }
+    for (let r = 0; r < c.R; r++)
+      if (short(inst, w.lhs, r)) {
+        viol = true;
+        m[r] = m[r] * (1 + alpha) + muBase[r] * alpha;
+      }
+    if (!viol) break;
+    alpha *= 1.7;
+    pickAt(w, l, m);
+  }
+  const cur = w.pick.slice();
+  dropUntilFits(w, cur);
+  const eps = new Float64Array(c.Y);
+  for (let y = 0; y < c.Y; y++) eps[y] = lamBase[y] * 1e-3;
+  if (c.R > 0) fill(w, cur, l, eps, 'targets');
+  fill(w, cur, l, eps, 'value');
+  w.pick.set(cur);
+  let missed = 0;
+  for (let r = 0; r < c.R; r++) if (short(inst, w.lhs, r)) missed++;
+  for (let i = 0; i < inst.nSegments; i++) if (inst.mustChoose[i] && cur[i] < 0) missed++;
+  let overspent = false;
+  for (let y = 0; y < c.Y; y++) if (over(inst, w.spent, y)) overspent = true;
+  return { pick: cur, value: totalValue(w), missed, overspent };
+}
+
+/**
+ * Subgradient descent on the Lagrangian dual, with feasible plans built along the way.
+ * `bound` is in the maximised form (benefit, or −lcc).
+ */
+function run(
+  inst: PackedInstance,
+  c: Compiled,
+  iterations: number,
+  withPrimal: boolean,
+  onProgress?: (f: number) => void,
+) {
+  const Y = c.Y;
+  const R = c.R;
+  const w: Work = {
+    inst,
+    c,
+    pick: new Int32Array(inst.nSegments),
+    spent: new Float64Array(Y),
+    lhs: new Float64Array(R),
+  };
+  // Starting prices: half the value a dollar buys on average across options worth doing.
+  let vPos = 0;
+  let cPos = 0;
+  for (let o = 0; o < c.nOpt; o++) {
+    if (!c.usable[o] || c.value[o] <= 0) continue;
+    vPos += c.value[o];
+    for (let k = c.cStart[o]; k < c.cStart[o + 1]; k++) cPos += c.cVal[k];
+  }
+  const ratio = cPos > 0 ? vPos / cPos : 0;
+  const finite = new Uint8Array(Y);
+  const lam = new Float64Array(Y);
+  const lamBase = new Float64Array(Y);
+  for (let y = 0; y < Y; y++) {
+    finite[y] = Number.isFinite(inst.budgets[y]) && inst.budgets[y] > 0 ? 1 : 0;
+    lamBase[y] = finite[y] ? Math.max(ratio, 1e-12) : 0;
+    lam[y] = finite[y] ? 0.5 * ratio : 0;
+  }
+  // Target rows: a price per unit of gain of the same order as the value per unit of gain.
+  const mu = new Float64Array(R);
+  const muBase = new Float64Array(R);
+  const rScale = new Float64Array(R);
+  let vAbs = 0;
+  for (let o = 0; o < c.nOpt; o++) vAbs += Math.abs(c.value[o]);
+  for (let r = 0; r < R; r++) {
+    const t = inst.targets[r];
+    let g = 0;
+    for (let k = 0; k < t.gain.length; k++) g += Math.abs(t.gain[k]);
+    muBase[r] = g > 0 ? Math.max(vAbs, 1) / g : 1;
+    rScale[r] = Math.max(Math.abs(t.rhs), 1e-9);
+  }
+  let bestBound = Number.POSITIVE_INFINITY;
+  const bestLam = lam.slice();
+  const bestMu = mu.slice();
+  type Best = { pick: Int32Array; value: number; missed: number; overspent: boolean };
+  const held: { best: Best | null } = { best: null };
+  const better = (p: Best, b: Best | null) =>
+    !b ||
+    (!p.overspent && b.overspent) ||
+    (p.overspent === b.overspent && (p.missed < b.missed || (p.missed === b.missed && p.value > b.value)));
+  const tryPrimal = (l: Float64Array, m: Float64Array) => {
+    const p = primal(w, l, m, lamBase, muBase);
+    if (better(p, held.best)) held.best = p;
+  };
+  if (withPrimal) tryPrimal(lam, mu);
+  let theta = 1;
+  let stall = 0;
+  const feasibleValue = () => {
+    const b = held.best;
+    return b && !b.overspent && b.missed === 0 ? b.value : null;
+  };
+  for (let it = 0; it < iterations; it++) {
+    const L = pickAt(w, lam, mu);
+    if (it === 0 || L < bestBound - 1e-12 * Math.abs(bestBound)) {
+      bestBound = L;
+      bestLam.set(lam);
+      bestMu.set(mu);
+      stall = 0;
+    } else if (++stall >= 6) {
+      theta *= 0.5;
+      stall = 0;
+    }
+    if (withPrimal && (it % 10 === 9 || it === iterations - 1)) tryPrimal(bestLam, bestMu);
+    const fv = feasibleValue();
+    if (fv !== null && bestBound - fv <= 2e-5 * Math.max(Math.abs(bestBound), 1e-9)) break;
+    if (theta < 1e-5) break;
+    // Subgradient in scaled rows: budget rows as fractions of the budget, target rows of their rhs.
+    let norm = 0;
+    for (let y = 0; y < Y; y++) {
+      if (!finite[y]) continue;
+      const g = 1 - w.spent[y] / inst.budgets[y];
+      if (lam[y] > 0 || g < 0) norm += g * g;
+    }
+    for (let r = 0; r < R; r++) {
+      const g = (w.lhs[r] - inst.targets[r].rhs) / rScale[r];
+      if (mu[r] > 0 || g < 0) norm += g * g;
+    }
+    if (norm < 1e-18) break; // the multipliers are optimal
+    const target = fv !== null ? fv : L - 0.05 * Math.max(Math.abs(L), 1e-9);
+    const t = (theta * Math.max(L - target, 1e-12 * Math.abs(L))) / norm;
+    for (let y = 0; y < Y; y++) {
+      if (!finite[y]) continue;
+      const g = 1 - w.spent[y] / inst.budgets[y];
+      lam[y] = Math.max(0, lam[y] - (t * g) / inst.budgets[y]);
+    }
+    for (let r = 0; r < R; r++) {
+      const g = (w.lhs[r] - inst.targets[r].rhs) / rScale[r];
+      mu[r] = Math.max(0, mu[r] - (t * g) / rScale[r]);
+    }
+    onProgress?.((it + 1) / iterations);
+  }
+  if (withPrimal) tryPrimal(bestLam, bestMu);
+  return { bound: bestBound, lam: bestLam, mu: bestMu, best: held.best };
+}
+
+/** The Lagrangian bound only (for the worst-first method and as a fallback beside HiGHS), in the objective's own terms. */
+export function lagrangianBound(inst: PackedInstance, iterations = 60, c = compile(inst)) {
+  const r = run(inst, c, iterations, false);
+  return inst.objective === 'cost' ? -r.bound : r.bound;
+}
+
+export function solveFast(
+  inst: PackedInstance,
+  opts: { iterations?: number; onProgress?: (f: number) => void } = {},
+): PlanSolution {
+  const c = compile(inst);
+  const r = run(inst, c, opts.iterations ?? 200, true, opts.onProgress);
+  const pick = r.best?.pick ?? new Int32Array(inst.nSegments).fill(-1);
+  const bound = inst.objective === 'cost' ? -r.bound : r.bound;
+  const s = solutionOf(inst, c, 'fast', pick, bound, '');
+  const e = evaluate(inst, c, pick);
+  s.status =
+    e.overspent.length > 0
+      ? 'no choice found within every year’s budget (work that must be done costs more than the budget)'
+      : s.targetsMissed.length > 0
+        ? `near-optimal (Lagrangian bound); missed: ${s.targetsMissed.join('; ')}`
+        : 'near-optimal (Lagrangian bound)';
+  return s;
+}
