@@ -8,6 +8,7 @@
 // Typed arrays only; nothing is allocated per option in the loops.
 import { type Compiled, compile, evaluate, solutionOf, TOL } from './compiled';
 import type { PackedInstance, PlanSolution } from './instance';
+import { sharpen } from './smooth';
 
 type Work = {
   inst: PackedInstance;
@@ -75,58 +76,96 @@ function addOption(w: Work, o: number, sign: 1 | -1) {
   for (let k = c.gStart[o]; k < c.gStart[o + 1]; k++) w.lhs[c.gRow[k]] += sign * c.gVal[k];
 }
 
-/** Drop (or, where work is mandatory, cheapen) the least valuable choices per overspent dollar until every year fits. */
-function dropUntilFits(w: Work, cur: Int32Array) {
+/** Money of option o in year y (options list few years; a linear scan is cheapest). */
+function costIn(c: Compiled, o: number, y: number) {
+  for (let k = c.cStart[o]; k < c.cStart[o + 1]; k++) if (c.cYear[k] === y) return c.cVal[k];
+  return 0;
+}
+
+/**
+ * Until every year fits: per segment the downgrade (another option, or nothing unless work is
+ * mandatory) that loses least value per budget-share freed in the overspent years without
+ * pushing another year over; applied least loss first, in rounds.
+ */
+function downgradeUntilFits(w: Work, cur: Int32Array) {
   const { inst, c } = w;
-  const overY = new Uint8Array(c.Y);
-  let any = false;
-  for (let y = 0; y < c.Y; y++)
-    if (over(inst, w.spent, y)) {
-      overY[y] = 1;
-      any = true;
-    }
-  if (!any) return;
-  const cand: number[] = [];
+  const Y = c.Y;
+  const overY = new Uint8Array(Y);
   const key = new Float64Array(inst.nSegments);
-  for (let i = 0; i < inst.nSegments; i++) {
-    const o = cur[i];
-    if (o < 0) continue;
-    let money = 0;
-    for (let k = c.cStart[o]; k < c.cStart[o + 1]; k++)
-      if (overY[c.cYear[k]]) money += c.cVal[k] / inst.budgets[c.cYear[k]];
-    if (money <= 0) continue;
-    key[i] = c.value[o] / money;
-    cand.push(i);
-  }
-  cand.sort((a, b) => key[a] - key[b]);
-  for (const i of cand) {
-    const o = cur[i];
-    let hits = false;
-    for (let k = c.cStart[o]; k < c.cStart[o + 1]; k++) if (over(inst, w.spent, c.cYear[k])) hits = true;
-    if (!hits) continue;
-    addOption(w, o, -1);
-    cur[i] = -1;
-    if (inst.mustChoose[i]) {
-      // The cheapest usable option in the overspent years (fewest dollars there).
-      let bo = -1;
-      let bm = Number.POSITIVE_INFINITY;
-      for (let p = inst.segStart[i]; p < inst.segStart[i + 1]; p++) {
-        if (!c.usable[p]) continue;
-        let m = 0;
-        for (let k = c.cStart[p]; k < c.cStart[p + 1]; k++) if (overY[c.cYear[k]]) m += c.cVal[k];
-        if (m < bm) {
-          bm = m;
-          bo = p;
+  const to = new Int32Array(inst.nSegments);
+  const delta = new Float64Array(Y);
+  for (let round = 0; round < 8; round++) {
+    let any = false;
+    for (let y = 0; y < Y; y++) {
+      overY[y] = over(inst, w.spent, y) ? 1 : 0;
+      if (overY[y]) any = true;
+    }
+    if (!any) return;
+    const cand: number[] = [];
+    for (let i = 0; i < inst.nSegments; i++) {
+      const o0 = cur[i];
+      if (o0 < 0) continue;
+      let spendsOver = false;
+      for (let k = c.cStart[o0]; k < c.cStart[o0 + 1]; k++) if (overY[c.cYear[k]]) spendsOver = true;
+      if (!spendsOver) continue;
+      let best = Number.POSITIVE_INFINITY;
+      let bo = -2;
+      const first = inst.mustChoose[i] ? inst.segStart[i] : inst.segStart[i] - 1;
+      for (let o = first; o < inst.segStart[i + 1]; o++) {
+        const a = o < inst.segStart[i] ? -1 : o;
+        if (a === o0 || (a >= 0 && !c.usable[a])) continue;
+        delta.fill(0);
+        for (let k = c.cStart[o0]; k < c.cStart[o0 + 1]; k++) delta[c.cYear[k]] -= c.cVal[k];
+        if (a >= 0) for (let k = c.cStart[a]; k < c.cStart[a + 1]; k++) delta[c.cYear[k]] += c.cVal[k];
+        let freed = 0;
+        let ok = true;
+        for (let y = 0; y < Y; y++) {
+          if (overY[y]) freed -= delta[y] / inst.budgets[y];
+          else if (delta[y] > 0 && w.spent[y] + delta[y] > inst.budgets[y] * (1 + TOL)) ok = false;
+        }
+        if (!ok || freed <= 0) continue;
+        const loss = c.value[o0] - (a >= 0 ? c.value[a] : 0);
+        const r = loss / freed;
+        if (r < best) {
+          best = r;
+          bo = a;
         }
       }
-      if (bo >= 0) {
-        cur[i] = bo;
-        addOption(w, bo, 1);
-      }
+      if (bo === -2) continue;
+      key[i] = best;
+      to[i] = bo;
+      cand.push(i);
     }
-    let still = false;
-    for (let y = 0; y < c.Y; y++) if (overY[y] && over(inst, w.spent, y)) still = true;
-    if (!still) break;
+    if (cand.length === 0) break;
+    cand.sort((x, y) => key[x] - key[y]);
+    for (const i of cand) {
+      let still = false;
+      for (let y = 0; y < Y; y++) if (overY[y] && over(inst, w.spent, y)) still = true;
+      if (!still) break;
+      const o0 = cur[i];
+      const a = to[i];
+      let helps = false;
+      let ok = true;
+      for (let y = 0; y < Y; y++) {
+        const d = (a >= 0 ? costIn(c, a, y) : 0) - costIn(c, o0, y);
+        if (d < 0 && over(inst, w.spent, y)) helps = true;
+        if (d > 0 && w.spent[y] + d > inst.budgets[y] * (1 + TOL)) ok = false;
+      }
+      if (!helps || !ok) continue;
+      addOption(w, o0, -1);
+      if (a >= 0) addOption(w, a, 1);
+      cur[i] = a;
+    }
+  }
+  // Last resort: drop whatever still spends in an overspent year.
+  for (let i = 0; i < inst.nSegments; i++) {
+    const o0 = cur[i];
+    if (o0 < 0 || inst.mustChoose[i]) continue;
+    let hits = false;
+    for (let k = c.cStart[o0]; k < c.cStart[o0 + 1]; k++) if (over(inst, w.spent, c.cYear[k])) hits = true;
+    if (!hits) continue;
+    addOption(w, o0, -1);
+    cur[i] = -1;
   }
 }
 
@@ -143,7 +182,7 @@ function fill(w: Work, cur: Int32Array, lam: Float64Array, eps: Float64Array, mo
   const moveOpt = new Int32Array(inst.nSegments).fill(-2);
   const score = new Float64Array(inst.nSegments);
   const delta = new Float64Array(Y);
-  for (let round = 0; round < 3; round++) {
+  for (let round = 0; round < 6; round++) {
     for (let y = 0; y < Y; y++) rem[y] = inst.budgets[y] * (1 + TOL) - w.spent[y];
     let anyDeficit = false;
     for (let r = 0; r < c.R; r++) {
@@ -233,35 +272,26 @@ function fill(w: Work, cur: Int32Array, lam: Float64Array, eps: Float64Array, mo
   }
 }
 
-/** A feasible (as far as it can) choice from the multipliers: raise λ where money runs over, μ where targets fall short. */
-function primal(w: Work, lam: Float64Array, mu: Float64Array, lamBase: Float64Array, muBase: Float64Array) {
+/**
+ * A feasible (as far as it can be) plan from a starting choice (the rounded average of the
+ * Lagrangian choices, or the choice at the multipliers): downgrade where money runs over, then
+ * spend what is left on the missed targets and on value, priced by the multipliers.
+ */
+function primal(w: Work, start: Int32Array | null, lam: Float64Array, mu: Float64Array, lamBase: Float64Array) {
   const { inst, c } = w;
-  const l = lam.slice();
-  const m = mu.slice();
-  pickAt(w, l, m);
-  let alpha = 0.002;
-  for (let step = 0; step < 30; step++) {
-    let viol = false;
-    for (let y = 0; y < c.Y; y++)
-      if (over(inst, w.spent, y)) {
-        viol = true;
-        l[y] = l[y] * (1 + alpha) + lamBase[y] * alpha;
-      }
-    for (let r = 0; r < c.R; r++)
-      if (short(inst, w.lhs, r)) {
-        viol = true;
-        m[r] = m[r] * (1 + alpha) + muBase[r] * alpha;
-      }
-    if (!viol) break;
-    alpha *= 1.7;
-    pickAt(w, l, m);
+  pickAt(w, lam, mu);
+  if (start) {
+    w.pick.set(start);
+    w.spent.fill(0);
+    w.lhs.fill(0);
+    for (let i = 0; i < inst.nSegments; i++) if (start[i] >= 0) addOption(w, start[i], 1);
   }
   const cur = w.pick.slice();
-  dropUntilFits(w, cur);
+  downgradeUntilFits(w, cur);
   const eps = new Float64Array(c.Y);
   for (let y = 0; y < c.Y; y++) eps[y] = lamBase[y] * 1e-3;
-  if (c.R > 0) fill(w, cur, l, eps, 'targets');
-  fill(w, cur, l, eps, 'value');
+  if (c.R > 0) fill(w, cur, lam, eps, 'targets');
+  fill(w, cur, lam, eps, 'value');
   w.pick.set(cur);
   let missed = 0;
   for (let r = 0; r < c.R; r++) if (short(inst, w.lhs, r)) missed++;
@@ -330,11 +360,27 @@ function run(
     !b ||
     (!p.overspent && b.overspent) ||
     (p.overspent === b.overspent && (p.missed < b.missed || (p.missed === b.missed && p.value > b.value)));
-  const tryPrimal = (l: Float64Array, m: Float64Array) => {
-    const p = primal(w, l, m, lamBase, muBase);
+  const tryPrimal = (start: Int32Array | null, l: Float64Array, m: Float64Array) => {
+    const p = primal(w, start, l, m, lamBase);
     if (better(p, held.best)) held.best = p;
+    if (R === 0 || p.missed === 0) return;
+    // Targets missed: raise their prices (penalty multipliers) until a repaired plan meets them, or give up and say so.
+    const mm = m.slice();
+    let alpha = 0.05;
+    for (let step = 0; step < 16 && held.best && held.best.missed > 0; step++) {
+      pickAt(w, l, mm);
+      let raised = false;
+      for (let r = 0; r < R; r++)
+        if (short(inst, w.lhs, r) || held.best.missed > 0) {
+          mm[r] = mm[r] * (1 + alpha) + muBase[r] * alpha;
+          raised = true;
+        }
+      if (!raised) break;
+      alpha *= 1.8;
+      const q = primal(w, null, l, mm, lamBase);
+      if (better(q, held.best)) held.best = q;
+    }
   };
-  if (withPrimal) tryPrimal(lam, mu);
   let theta = 1;
   let stall = 0;
   const feasibleValue = () => {
@@ -352,7 +398,6 @@ function run(
       theta *= 0.5;
       stall = 0;
     }
-    if (withPrimal && (it % 10 === 9 || it === iterations - 1)) tryPrimal(bestLam, bestMu);
     const fv = feasibleValue();
     if (fv !== null && bestBound - fv <= 2e-5 * Math.max(Math.abs(bestBound), 1e-9)) break;
     if (theta < 1e-5) break;
@@ -381,7 +426,20 @@ function run(
     }
     onProgress?.((it + 1) / iterations);
   }
-  if (withPrimal) tryPrimal(bestLam, bestMu);
+  if (withPrimal) {
+    const t1 = performance.now();
+    const sh = sharpen(inst, c, bestLam, bestMu);
+    if (process.env.FASTDBG) console.log('sharpen ms', performance.now() - t1);
+    if (sh && sh.bestTrue < bestBound) {
+      bestBound = sh.bestTrue;
+      bestLam.set(sh.bestLam);
+      bestMu.set(sh.bestMu);
+    }
+    const t0 = performance.now();
+    if (sh) tryPrimal(null, sh.lam, sh.mu);
+    else tryPrimal(null, bestLam, bestMu);
+    if (process.env.FASTDBG) console.log('primal ms', performance.now() - t0, 'sharpen evals', sh?.evaluations);
+  }
   return { bound: bestBound, lam: bestLam, mu: bestMu, best: held.best };
 }
 
@@ -396,7 +454,7 @@ export function solveFast(
   opts: { iterations?: number; onProgress?: (f: number) => void } = {},
 ): PlanSolution {
   const c = compile(inst);
-  const r = run(inst, c, opts.iterations ?? 200, true, opts.onProgress);
+  const r = run(inst, c, opts.iterations ?? 30, true, opts.onProgress);
   const pick = r.best?.pick ?? new Int32Array(inst.nSegments).fill(-1);
   const bound = inst.objective === 'cost' ? -r.bound : r.bound;
   const s = solutionOf(inst, c, 'fast', pick, bound, '');
