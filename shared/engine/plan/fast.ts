@@ -90,10 +90,12 @@ function costIn(c: Compiled, o: number, y: number) {
 function downgradeUntilFits(w: Work, cur: Int32Array) {
   const { inst, c } = w;
   const Y = c.Y;
+  const { cStart, cYear, cVal } = c;
   const overY = new Uint8Array(Y);
   const key = new Float64Array(inst.nSegments);
   const to = new Int32Array(inst.nSegments);
-  const delta = new Float64Array(Y);
+  const cap = new Float64Array(Y);
+  for (let y = 0; y < Y; y++) cap[y] = inst.budgets[y] * (1 + TOL);
   for (let round = 0; round < 8; round++) {
     let any = false;
     for (let y = 0; y < Y; y++) {
@@ -105,27 +107,29 @@ function downgradeUntilFits(w: Work, cur: Int32Array) {
     for (let i = 0; i < inst.nSegments; i++) {
       const o0 = cur[i];
       if (o0 < 0) continue;
-      let spendsOver = false;
-      for (let k = c.cStart[o0]; k < c.cStart[o0 + 1]; k++) if (overY[c.cYear[k]]) spendsOver = true;
-      if (!spendsOver) continue;
-      let best = Number.POSITIVE_INFINITY;
-      let bo = -2;
-      const first = inst.mustChoose[i] ? inst.segStart[i] : inst.segStart[i] - 1;
-      for (let o = first; o < inst.segStart[i + 1]; o++) {
-        const a = o < inst.segStart[i] ? -1 : o;
-        if (a === o0 || (a >= 0 && !c.usable[a])) continue;
-        delta.fill(0);
-        for (let k = c.cStart[o0]; k < c.cStart[o0 + 1]; k++) delta[c.cYear[k]] -= c.cVal[k];
-        if (a >= 0) for (let k = c.cStart[a]; k < c.cStart[a + 1]; k++) delta[c.cYear[k]] += c.cVal[k];
-        let freed = 0;
+      let f0 = 0;
+      for (let k = cStart[o0]; k < cStart[o0 + 1]; k++) if (overY[cYear[k]]) f0 += cVal[k] / inst.budgets[cYear[k]];
+      if (f0 === 0) continue;
+      // Doing nothing frees all of it.
+      let best = inst.mustChoose[i] ? Number.POSITIVE_INFINITY : c.value[o0] / f0;
+      let bo = inst.mustChoose[i] ? -2 : -1;
+      for (let a = inst.segStart[i]; a < inst.segStart[i + 1]; a++) {
+        if (a === o0 || !c.usable[a]) continue;
+        let freed = f0;
         let ok = true;
-        for (let y = 0; y < Y; y++) {
-          if (overY[y]) freed -= delta[y] / inst.budgets[y];
-          else if (delta[y] > 0 && w.spent[y] + delta[y] > inst.budgets[y] * (1 + TOL)) ok = false;
+        for (let k = cStart[a]; k < cStart[a + 1]; k++) {
+          const y = cYear[k];
+          if (overY[y]) freed -= cVal[k] / inst.budgets[y];
+          else {
+            const d = cVal[k] - costIn(c, o0, y);
+            if (d > 0 && w.spent[y] + d > cap[y]) {
+              ok = false;
+              break;
+            }
+          }
         }
         if (!ok || freed <= 0) continue;
-        const loss = c.value[o0] - (a >= 0 ? c.value[a] : 0);
-        const r = loss / freed;
+        const r = (c.value[o0] - c.value[a]) / freed;
         if (r < best) {
           best = r;
           bo = a;
@@ -145,13 +149,16 @@ function downgradeUntilFits(w: Work, cur: Int32Array) {
       const o0 = cur[i];
       const a = to[i];
       let helps = false;
+      for (let k = cStart[o0]; k < cStart[o0 + 1]; k++)
+        if (over(inst, w.spent, cYear[k]) && cVal[k] > (a >= 0 ? costIn(c, a, cYear[k]) : 0)) helps = true;
+      if (!helps) continue;
       let ok = true;
-      for (let y = 0; y < Y; y++) {
-        const d = (a >= 0 ? costIn(c, a, y) : 0) - costIn(c, o0, y);
-        if (d < 0 && over(inst, w.spent, y)) helps = true;
-        if (d > 0 && w.spent[y] + d > inst.budgets[y] * (1 + TOL)) ok = false;
-      }
-      if (!helps || !ok) continue;
+      if (a >= 0)
+        for (let k = cStart[a]; k < cStart[a + 1]; k++) {
+          const d = cVal[k] - costIn(c, o0, cYear[k]);
+          if (d > 0 && w.spent[cYear[k]] + d > cap[cYear[k]]) ok = false;
+        }
+      if (!ok) continue;
       addOption(w, o0, -1);
       if (a >= 0) addOption(w, a, 1);
       cur[i] = a;
@@ -162,11 +169,25 @@ function downgradeUntilFits(w: Work, cur: Int32Array) {
     const o0 = cur[i];
     if (o0 < 0 || inst.mustChoose[i]) continue;
     let hits = false;
-    for (let k = c.cStart[o0]; k < c.cStart[o0 + 1]; k++) if (over(inst, w.spent, c.cYear[k])) hits = true;
+    for (let k = cStart[o0]; k < cStart[o0 + 1]; k++) if (over(inst, w.spent, cYear[k])) hits = true;
     if (!hits) continue;
     addOption(w, o0, -1);
     cur[i] = -1;
   }
+}
+
+/** Whether option o fits in place of o0 with the money left, and its price (Σ Δcost·weight). NaN when it does not fit. */
+function movePrice(w: Work, o: number, o0: number, weight: Float64Array, cap: Float64Array) {
+  const { c } = w;
+  let price = 0;
+  for (let k = c.cStart[o]; k < c.cStart[o + 1]; k++) {
+    const y = c.cYear[k];
+    const d = c.cVal[k] - (o0 >= 0 ? costIn(c, o0, y) : 0);
+    if (d > 0 && w.spent[y] + d > cap[y]) return Number.NaN;
+    price += c.cVal[k] * weight[y];
+  }
+  if (o0 >= 0) for (let k = c.cStart[o0]; k < c.cStart[o0 + 1]; k++) price -= c.cVal[k] * weight[c.cYear[k]];
+  return price;
 }
 
 /**
@@ -177,13 +198,21 @@ function downgradeUntilFits(w: Work, cur: Int32Array) {
 function fill(w: Work, cur: Int32Array, lam: Float64Array, eps: Float64Array, mode: 'value' | 'targets') {
   const { inst, c } = w;
   const Y = c.Y;
-  const rem = new Float64Array(Y);
   const deficit = new Float64Array(c.R);
-  const moveOpt = new Int32Array(inst.nSegments).fill(-2);
+  const moveOpt = new Int32Array(inst.nSegments);
   const score = new Float64Array(inst.nSegments);
-  const delta = new Float64Array(Y);
+  const weight = new Float64Array(Y);
+  const cap = new Float64Array(Y);
+  for (let y = 0; y < Y; y++) {
+    weight[y] = lam[y] + eps[y];
+    cap[y] = inst.budgets[y] * (1 + TOL);
+  }
+  const targetGain = (o: number) => {
+    let g = 0;
+    for (let k = c.gStart[o]; k < c.gStart[o + 1]; k++) if (deficit[c.gRow[k]] > 0) g += c.gVal[k] / deficit[c.gRow[k]];
+    return g;
+  };
   for (let round = 0; round < 6; round++) {
-    for (let y = 0; y < Y; y++) rem[y] = inst.budgets[y] * (1 + TOL) - w.spent[y];
     let anyDeficit = false;
     for (let r = 0; r < c.R; r++) {
       deficit[r] = short(inst, w.lhs, r) ? inst.targets[r].rhs - w.lhs[r] : 0;
@@ -194,42 +223,23 @@ function fill(w: Work, cur: Int32Array, lam: Float64Array, eps: Float64Array, mo
     for (let i = 0; i < inst.nSegments; i++) {
       const o0 = cur[i];
       const v0 = o0 >= 0 ? c.value[o0] : 0;
+      const t0 = mode === 'targets' && o0 >= 0 ? targetGain(o0) : 0;
       let best = 0;
       let bo = -2;
       for (let o = inst.segStart[i]; o < inst.segStart[i + 1]; o++) {
         if (o === o0 || !c.usable[o]) continue;
-        let gain: number;
-        if (mode === 'value') gain = c.value[o] - v0;
-        else {
-          gain = 0;
-          for (let k = c.gStart[o]; k < c.gStart[o + 1]; k++)
-            if (deficit[c.gRow[k]] > 0) gain += c.gVal[k] / deficit[c.gRow[k]];
-          if (o0 >= 0)
-            for (let k = c.gStart[o0]; k < c.gStart[o0 + 1]; k++)
-              if (deficit[c.gRow[k]] > 0) gain -= c.gVal[k] / deficit[c.gRow[k]];
-        }
+        const gain = mode === 'value' ? c.value[o] - v0 : targetGain(o) - t0;
         if (gain <= 1e-12) continue;
-        delta.fill(0);
-        for (let k = c.cStart[o]; k < c.cStart[o + 1]; k++) delta[c.cYear[k]] += c.cVal[k];
-        if (o0 >= 0) for (let k = c.cStart[o0]; k < c.cStart[o0 + 1]; k++) delta[c.cYear[k]] -= c.cVal[k];
-        let fits = true;
-        let price = 0;
-        for (let y = 0; y < Y; y++) {
-          if (delta[y] > rem[y]) {
-            fits = false;
-            break;
-          }
-          price += delta[y] * (lam[y] + eps[y]);
-        }
-        if (!fits) continue;
-        const s = price > 1e-12 ? gain / price : Number.MAX_VALUE * (gain > 0 ? 1 : 0) + gain;
-        if (s > best) {
-          best = s;
+        const price = movePrice(w, o, o0, weight, cap);
+        if (Number.isNaN(price)) continue;
+        const sc = price > 1e-12 ? gain / price : Number.MAX_VALUE;
+        if (sc > best) {
+          best = sc;
           bo = o;
         }
       }
-      moveOpt[i] = bo;
-      if (bo >= -1) {
+      if (bo >= 0) {
+        moveOpt[i] = bo;
         score[i] = best;
         cands.push(i);
       }
@@ -240,16 +250,11 @@ function fill(w: Work, cur: Int32Array, lam: Float64Array, eps: Float64Array, mo
     for (const i of cands) {
       const o = moveOpt[i];
       const o0 = cur[i];
-      delta.fill(0);
-      for (let k = c.cStart[o]; k < c.cStart[o + 1]; k++) delta[c.cYear[k]] += c.cVal[k];
-      if (o0 >= 0) for (let k = c.cStart[o0]; k < c.cStart[o0 + 1]; k++) delta[c.cYear[k]] -= c.cVal[k];
-      let fits = true;
-      for (let y = 0; y < Y; y++) if (delta[y] > 0 && w.spent[y] + delta[y] > inst.budgets[y] * (1 + TOL)) fits = false;
-      if (!fits) continue;
-      // Never break a target row that is met.
+      if (Number.isNaN(movePrice(w, o, o0, weight, cap))) continue;
+      if (o0 >= 0) addOption(w, o0, -1);
+      addOption(w, o, 1);
       if (c.R > 0) {
-        if (o0 >= 0) addOption(w, o0, -1);
-        addOption(w, o, 1);
+        // Never break a target row that is met.
         let breaks = false;
         for (let k = c.gStart[o]; k < c.gStart[o + 1]; k++)
           if (deficit[c.gRow[k]] === 0 && short(inst, w.lhs, c.gRow[k])) breaks = true;
@@ -261,9 +266,6 @@ function fill(w: Work, cur: Int32Array, lam: Float64Array, eps: Float64Array, mo
           if (o0 >= 0) addOption(w, o0, 1);
           continue;
         }
-      } else {
-        if (o0 >= 0) addOption(w, o0, -1);
-        addOption(w, o, 1);
       }
       cur[i] = o;
       moved++;
