@@ -290,6 +290,7 @@ function primal(w: Work, start: Int32Array | null, lam: Float64Array, mu: Float6
   }
   const cur = w.pick.slice();
   downgradeUntilFits(w, cur);
+  w.pick.set(cur);
   const eps = new Float64Array(c.Y);
   for (let y = 0; y < c.Y; y++) eps[y] = lamBase[y] * 1e-3;
   if (c.R > 0) fill(w, cur, lam, eps, 'targets');
@@ -429,18 +430,16 @@ function run(
     onProgress?.((it + 1) / iterations);
   }
   if (withPrimal) {
-    const t1 = performance.now();
     const sh = sharpen(inst, c, bestLam, bestMu);
-    if (process.env.FASTDBG) console.log('sharpen ms', performance.now() - t1);
     if (sh && sh.bestTrue < bestBound) {
       bestBound = sh.bestTrue;
       bestLam.set(sh.bestLam);
       bestMu.set(sh.bestMu);
     }
-    const t0 = performance.now();
-    if (sh) tryPrimal(null, sh.lam, sh.mu);
-    else tryPrimal(null, bestLam, bestMu);
-    if (process.env.FASTDBG) console.log('primal ms', performance.now() - t0, 'sharpen evals', sh?.evaluations);
+    if (sh) {
+      tryPrimal(sh.softOrder, sh.lam, sh.mu);
+      tryPrimal(null, sh.lam, sh.mu);
+    } else tryPrimal(null, bestLam, bestMu);
   }
   return { bound: bestBound, lam: bestLam, mu: bestMu, best: held.best };
 }

@@ -162,7 +162,7 @@ export function sharpen(
     }
   }
   V = nV ? V / nV : 1;
-  const stages = opts.stages ?? [0.004, 0.0008, 0.00016];
+  const stages = opts.stages ?? [0.02, 0.004, 0.0008, 0.00016];
   const maxNewton = opts.maxNewton ?? 5;
   const free = new Int32Array(D);
   const M = new Float64Array(D * D);
@@ -230,7 +230,89 @@ export function sharpen(
   const bMu = new Float64Array(R);
   for (let y = 0; y < Y; y++) if (dimOfYear[y] >= 0) bLam[y] = bestPi[dimOfYear[y]] / scale[dimOfYear[y]];
   for (let r = 0; r < R; r++) bMu[r] = bestPi[firstTarget + r] / scale[firstTarget + r];
-  return { lam: outLam, mu: outMu, bestTrue, bestLam: bLam, bestMu: bMu, evaluations };
+  // The soft choice at the last temperature: a start for rounding that respects the budgets.
+  const tauEnd = stages[stages.length - 1] * V;
+  const softOrder = softRounding(inst, c, pi, aStart, aDim, aVal, tauEnd, rr);
+  return { lam: outLam, mu: outMu, bestTrue, bestLam: bLam, bestMu: bMu, evaluations, softOrder };
+}
+
+/**
+ * Rounds the soft choice: segments most sure of their choice first; each takes, in order of its
+ * soft weight, the first option that still fits every year's money (or nothing when doing nothing
+ * weighs most and no work is required). Returns the pick.
+ */
+function softRounding(
+  inst: PackedInstance,
+  c: Compiled,
+  pi: Float64Array,
+  aStart: Int32Array,
+  aDim: Int32Array,
+  aVal: Float64Array,
+  tau: number,
+  rr: Float64Array,
+) {
+  const n = inst.nSegments;
+  const sure = new Float64Array(n);
+  const pNone = new Float64Array(n);
+  const prob = new Float64Array(c.nOpt);
+  const inv = 1 / tau;
+  for (let i = 0; i < n; i++) {
+    const s0 = inst.segStart[i];
+    const s1 = inst.segStart[i + 1];
+    const must = inst.mustChoose[i] === 1;
+    let m = must ? Number.NEGATIVE_INFINITY : 0;
+    for (let o = s0; o < s1; o++) {
+      let r = Number.NEGATIVE_INFINITY;
+      if (c.usable[o]) {
+        r = c.value[o];
+        for (let k = aStart[o]; k < aStart[o + 1]; k++) r -= pi[aDim[k]] * aVal[k];
+      }
+      rr[o - s0] = r;
+      if (r > m) m = r;
+    }
+    if (m === Number.NEGATIVE_INFINITY) continue;
+    const cut = m - 36 * tau;
+    let Z = must || -m < -36 * tau ? 0 : Math.exp(-m * inv);
+    const z0 = Z;
+    for (let o = s0; o < s1; o++) if (rr[o - s0] > cut) Z += Math.exp((rr[o - s0] - m) * inv);
+    pNone[i] = z0 / Z;
+    let top = pNone[i];
+    for (let o = s0; o < s1; o++) {
+      prob[o] = rr[o - s0] > cut ? Math.exp((rr[o - s0] - m) * inv) / Z : 0;
+      if (prob[o] > top) top = prob[o];
+    }
+    sure[i] = top;
+  }
+  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => sure[b] - sure[a]);
+  const spent = new Float64Array(c.Y);
+  const pick = new Int32Array(n).fill(-1);
+  const cap = new Float64Array(c.Y);
+  for (let y = 0; y < c.Y; y++) cap[y] = inst.budgets[y] * (1 + 1e-9);
+  for (const i of order) {
+    const s0 = inst.segStart[i];
+    const s1 = inst.segStart[i + 1];
+    // Options in order of weight, while they weigh more than doing nothing.
+    for (;;) {
+      let bo = -1;
+      let bp = inst.mustChoose[i] ? 0 : pNone[i];
+      for (let o = s0; o < s1; o++)
+        if (prob[o] > bp) {
+          bp = prob[o];
+          bo = o;
+        }
+      if (bo < 0) break;
+      let fits = true;
+      for (let k = c.cStart[bo]; k < c.cStart[bo + 1]; k++)
+        if (spent[c.cYear[k]] + c.cVal[k] > cap[c.cYear[k]]) fits = false;
+      if (fits) {
+        pick[i] = bo;
+        for (let k = c.cStart[bo]; k < c.cStart[bo + 1]; k++) spent[c.cYear[k]] += c.cVal[k];
+        break;
+      }
+      prob[bo] = 0;
+    }
+  }
+  return pick;
 }
 
 /** Solves M x = rhs in place (rhs becomes x) for symmetric positive definite M (n × n, row-major). */
