@@ -230,9 +230,11 @@ function fill(w: Work, cur: Int32Array, lam: Float64Array, eps: Float64Array, mo
         if (o === o0 || !c.usable[o]) continue;
         const gain = mode === 'value' ? c.value[o] - v0 : targetGain(o) - t0;
         if (gain <= 1e-12) continue;
-        const price = movePrice(w, o, o0, weight, cap);
+        let price = movePrice(w, o, o0, weight, cap);
         if (Number.isNaN(price)) continue;
-        const sc = price > 1e-12 ? gain / price : Number.MAX_VALUE;
+        // For targets, the value given up counts beside the money (least life-cycle cost per unit of gain).
+        if (mode === 'targets') price += v0 - c.value[o];
+        const sc = price > 1e-12 ? gain / price : Number.MAX_VALUE / (1 + Math.max(0, -price));
         if (sc > best) {
           best = sc;
           bo = o;
@@ -248,6 +250,12 @@ function fill(w: Work, cur: Int32Array, lam: Float64Array, eps: Float64Array, mo
     cands.sort((a, b) => score[b] - score[a]);
     let moved = 0;
     for (const i of cands) {
+      if (mode === 'targets') {
+        // Stop as soon as every target that was short is met: more would spend value for nothing.
+        let stillShort = false;
+        for (let r = 0; r < c.R; r++) if (deficit[r] > 0 && short(inst, w.lhs, r)) stillShort = true;
+        if (!stillShort) break;
+      }
       const o = moveOpt[i];
       const o0 = cur[i];
       if (Number.isNaN(movePrice(w, o, o0, weight, cap))) continue;
@@ -369,19 +377,27 @@ function run(
     if (R === 0 || p.missed === 0) return;
     // Targets missed: raise their prices (penalty multipliers) until a repaired plan meets them, or give up and say so.
     const mm = m.slice();
+    const lo = m.slice();
     let alpha = 0.05;
-    for (let step = 0; step < 16 && held.best && held.best.missed > 0; step++) {
-      pickAt(w, l, mm);
-      let raised = false;
-      for (let r = 0; r < R; r++)
-        if (short(inst, w.lhs, r) || held.best.missed > 0) {
-          mm[r] = mm[r] * (1 + alpha) + muBase[r] * alpha;
-          raised = true;
-        }
-      if (!raised) break;
+    const ok = (q: Best) => q.missed === 0 && !q.overspent;
+    for (let step = 0; step < 16; step++) {
+      lo.set(mm);
+      for (let r = 0; r < R; r++) mm[r] = mm[r] * (1 + alpha) + muBase[r] * alpha;
       alpha *= 1.8;
       const q = primal(w, null, l, mm, lamBase);
       if (better(q, held.best)) held.best = q;
+      if (!ok(q)) continue;
+      // Met: the least prices between the last failing and these that still meet every target.
+      const hi = mm.slice();
+      const mid = new Float64Array(R);
+      for (let b = 0; b < 6; b++) {
+        for (let r = 0; r < R; r++) mid[r] = (lo[r] + hi[r]) / 2;
+        const q2 = primal(w, null, l, mid, lamBase);
+        if (better(q2, held.best)) held.best = q2;
+        if (ok(q2)) hi.set(mid);
+        else lo.set(mid);
+      }
+      break;
     }
   };
   let theta = 1;
