@@ -455,6 +455,15 @@ function run(
     if (sh) {
       tryPrimal(sh.softOrder, sh.lam, sh.mu);
       tryPrimal(null, sh.lam, sh.mu);
+      // Small networks: the repair is cheap, and lumpy choices make a slightly dearer or cheaper
+      // price worth trying (a few per cent either way).
+      if (c.nOpt <= 100_000) {
+        const l2 = new Float64Array(Y);
+        for (const f of [0.97, 0.99, 1.01, 1.03, 1.06]) {
+          for (let y = 0; y < Y; y++) l2[y] = sh.lam[y] * f;
+          tryPrimal(null, l2, sh.mu);
+        }
+      }
     } else tryPrimal(null, bestLam, bestMu);
   }
   return { bound: bestBound, lam: bestLam, mu: bestMu, best: held.best };
