@@ -38,7 +38,7 @@ describe('fast against HiGHS on small strategy instances', () => {
         targetShare: 0.35,
       });
       const max = objective === 'benefit';
-      const exact = solvePlan(inst, 'exact', highs, { timeLimitSeconds: 30, mipRelGap: 1e-6 });
+      const exact = solvePlan(inst, 'exact', highs, { timeLimitSeconds: 10, mipRelGap: 1e-6 });
       const fast = solvePlan(inst, 'fast', null);
       // HiGHS's dual bound bounds its own plan…
       if (max) expect(exact.bound).toBeGreaterThanOrEqual(exact.objective - 1e-6);
