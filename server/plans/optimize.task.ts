@@ -1,6 +1,9 @@
 // The stateless optimiser (POST /api/plan/optimize), every method, in a worker: the body (up to 1 MB,
 // 20,000 options for exact) is parsed and checked here too, so the request thread only reads its bytes.
-import { type Instance, solveExact, solveFast, solveRanking } from '../../shared/engine/plan/optimize';
+// The object form is packed (shared/engine/plan/optimize.ts: costs in a repeated year add up),
+// solved by solvePlan, and unpacked into ids again.
+import { type Instance, pack, unpack } from '../../shared/engine/plan/optimize';
+import { solvePlan } from '../../shared/engine/plan/solve';
 import { OptimizeBodySchema } from '../../shared/schemas/plans';
 import { HttpError } from '../http/errors';
 import { parseJsonBody } from '../http/validate';
@@ -31,6 +34,7 @@ export default defineTask(async (bytes: Uint8Array) => {
       `Invalid request: method — the exact method takes at most ${MAX_EXACT_STATELESS.toLocaleString('en-US')} options here; use fast`,
       [{ path: 'body.method', message: 'too many options for exact' }],
     );
-  if (body.method === 'exact') return solveExact(inst, await loadSolver(), { timeLimitSeconds: body.timeLimitSeconds });
-  return body.method === 'fast' ? solveFast(inst) : solveRanking(inst);
+  const packed = pack(inst);
+  const highs = body.method === 'exact' ? await loadSolver() : null;
+  return unpack(inst, packed, solvePlan(packed, body.method, highs, { timeLimitSeconds: body.timeLimitSeconds }));
 });

@@ -66,6 +66,7 @@ const OptionSchema = z
     benefit: z.number().min(0).max(1e12),
     year: z.number().int().min(0).optional(),
     cost: z.number().min(0).max(1e12).optional(),
+    /** Spending by plan year; a year listed twice counts both amounts (they are added up). */
     costs: z
       .array(z.object({ year: z.number().int().min(0), cost: z.number().min(0).max(1e12) }))
       .min(1)
@@ -95,7 +96,28 @@ export const OptimizeBodySchema = z
     timeLimitSeconds: z.number().min(1).max(120).default(30),
   })
   .superRefine((b, ctx) => {
+    // Segment ids name the answer's rows, and option ids within a segment name its choice: both unique.
+    const seen = new Map<string, number>();
     for (const [i, s] of b.segments.entries()) {
+      const first = seen.get(s.id);
+      if (first !== undefined)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['segments', i, 'id'],
+          message: `repeats the id of segment ${first} ("${s.id}"); segment ids must be unique`,
+        });
+      else seen.set(s.id, i);
+      const optionSeen = new Map<string, number>();
+      for (const [j, o] of s.options.entries()) {
+        const firstOption = optionSeen.get(o.id);
+        if (firstOption !== undefined)
+          ctx.addIssue({
+            code: 'custom',
+            path: ['segments', i, 'options', j, 'id'],
+            message: `repeats the id of option ${firstOption} of this segment ("${o.id}"); option ids must be unique within a segment`,
+          });
+        else optionSeen.set(o.id, j);
+      }
       for (const [j, o] of s.options.entries()) {
         const years = o.costs ? o.costs.map((c) => c.year) : [o.year ?? 0];
         if (years.some((y) => y >= b.budgets.length))
@@ -114,9 +136,12 @@ export const OptimizeResultSchema = z.object({
   chosen: z.array(z.object({ segmentId: z.string(), optionId: z.string() })),
   totalBenefit: z.number(),
   spentByYear: z.array(z.number()),
+  /** HiGHS's dual bound (exact) or the Lagrangian bound (fast, worst-first) on the best total benefit. */
   bound: z.number(),
   gap: z.number(),
   status: z.string(),
+  /** Rows the answer does not meet (none in this endpoint today: it takes no targets). */
+  targetsMissed: z.array(z.string()),
 });
 
 // ---- Forecast (moved to ./forecast; these names stay for the plan module) ----

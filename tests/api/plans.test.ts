@@ -231,6 +231,66 @@ describe('POST /api/plan/optimize', () => {
     expect(late.body.error.issues[0].path).toBe('body.segments.0.options.0');
   });
 
+  it('adds up costs listed twice for one year, in every method (issue 13: spent 12 of a budget of 10 before)', async () => {
+    // Worked by hand: A's only option costs 6 + 6 = 12 in year 0 against a budget of 10, so it never fits;
+    // B (cost 8, benefit 5) does. Every method must choose B alone, spend 8 and report benefit 5.
+    for (const method of ['exact', 'fast', 'ranking']) {
+      const res = await eng.post('/api/plan/optimize').send({
+        budgets: [10],
+        method,
+        segments: [
+          {
+            id: 'A',
+            priority: 0,
+            options: [
+              {
+                id: 'A-twice',
+                benefit: 50,
+                costs: [
+                  { year: 0, cost: 6 },
+                  { year: 0, cost: 6 },
+                ],
+              },
+            ],
+          },
+          { id: 'B', priority: 1, options: [{ id: 'B1', year: 0, cost: 8, benefit: 5 }] },
+        ],
+      });
+      expect(res.status, method).toBe(200);
+      expect(res.body.chosen, method).toEqual([{ segmentId: 'B', optionId: 'B1' }]);
+      expect(res.body.spentByYear, method).toEqual([8]);
+      expect(res.body.totalBenefit, method).toBe(5);
+    }
+  });
+
+  it('refuses duplicate segment ids with 400 naming the field', async () => {
+    const res = await eng.post('/api/plan/optimize').send({
+      budgets: [10],
+      segments: [
+        { id: 'A', options: [{ id: 'a', year: 0, cost: 1, benefit: 1 }] },
+        { id: 'B', options: [] },
+        { id: 'A', options: [{ id: 'a', year: 0, cost: 2, benefit: 3 }] },
+      ],
+    });
+    expect(res.status).toBe(400);
+    expect(res.body.error.issues[0].path).toBe('body.segments.2.id');
+    expect(res.body.error.issues[0].message).toMatch(/repeats the id of segment 0/);
+    const opt = await eng.post('/api/plan/optimize').send({
+      budgets: [10],
+      segments: [
+        {
+          id: 'A',
+          options: [
+            { id: 'a', year: 0, cost: 1, benefit: 1 },
+            { id: 'a', year: 0, cost: 2, benefit: 3 },
+          ],
+        },
+      ],
+    });
+    expect(opt.status).toBe(400);
+    expect(opt.body.error.issues[0].path).toBe('body.segments.0.options.1.id');
+  });
+
   it('the exact method takes at most 20,000 options (checked in the worker, naming the field)', async () => {
     const over = syntheticOptimizeBody(2001, 10, 10, 1);
     const res = await eng.post('/api/plan/optimize').send(over);
