@@ -9,8 +9,9 @@ import {
   type PlanTreatment,
   surfaceAfter,
 } from './condition';
+import type { StructuralCheck } from '../structural';
 import type { PackedInstance } from './instance';
-import { SegmentWalker, type StrategyMeta, structuralCheck, surfaceSetsOf } from './strategies';
+import { SegmentWalker, type StrategyMeta, surfaceSetsOf } from './strategies';
 
 export type WorkItem = {
   year: number;
@@ -58,9 +59,7 @@ export type YearResult = {
 const FAILED_BAND = CONDITION_BANDS[CONDITION_BANDS.length - 1].id;
 const lower = (s: string) => s.charAt(0).toLowerCase() + s.slice(1);
 
-export function structuralWords(seg: PlanSegment, t: PlanTreatment, pci: number) {
-  if (t.thicknessIn === null) return null;
-  const c = structuralCheck(seg, t, pci);
+export function structuralWords(c: StructuralCheck, t: PlanTreatment) {
   if (!c.caution) return null;
   return (
     `Structural caution (AASHTO 1993 check): a ${t.thicknessIn} in lift gives a structural number of about ` +
@@ -107,8 +106,13 @@ export function simulate(
       for (let k = meta.actStart[o]; k < meta.actStart[o + 1]; k++)
         works.push({ treatment: meta.actTreatment[k], year: meta.actYear[k] });
     }
-    const steps = wk.replay(works, path);
-    const strategy = works.map((w) => `${lower(treatments[w.treatment].name)} ${settings.startYear + w.year}`).join(', ');
+    const acts = new Int32Array(works.length * 2 + 2);
+    const flags = new Uint8Array(works.length + 1);
+    const pcis = new Float64Array(works.length * 2 + 2);
+    wk.trace(null, works, path, 0, acts, flags, pcis);
+    const strategy = works
+      .map((w) => `${lower(treatments[w.treatment].name)} ${settings.startYear + w.year}`)
+      .join(', ');
     works.forEach((w, k) => {
       const t = treatments[w.treatment];
       const cost = wk.cost[w.treatment];
@@ -132,10 +136,13 @@ export function simulate(
         areaSy: s.areaSy,
         laneMiles: s.laneMiles,
         cost,
-        pciBefore: steps[k].before,
-        pciAfter: steps[k].after,
+        pciBefore: pcis[k * 2],
+        pciAfter: pcis[k * 2 + 1],
         strategy,
-        structuralFlag: meta.actFlag[meta.actStart[o] + k] ? structuralWords(s, t, steps[k].before) : null,
+        structuralFlag:
+          t.thicknessIn !== null && meta.actFlag[meta.actStart[o] + k]
+            ? structuralWords(wk.structuralCheck(w.treatment, pcis[k * 2]), t)
+            : null,
       });
     });
     lmSum += s.laneMiles;
@@ -179,4 +186,3 @@ export function simulate(
   work.sort((a, b) => a.year - b.year || b.cost - a.cost);
   return { years, work, lifeCycleCost, laneMiles: lmSum };
 }
-

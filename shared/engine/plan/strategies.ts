@@ -3,10 +3,11 @@
 // into a PackedInstance: cost per year, benefit over do-nothing, life-cycle cost, and the target rows.
 import { CONDITION_BANDS } from '../../condition';
 import type { Curve } from '../forecast/curve';
-import { checkOverlay, type StructuralCheck } from '../structural';
+import { checkOverlay, conditionFactor, type StructuralCheck } from '../structural';
 import { areaBetween, segmentWeight, strategyLifeCycleCost } from './benefit';
 import {
   applyTreatment,
+  surfaceAfter,
   type CondState,
   CurveTable,
   initialState,
@@ -15,7 +16,6 @@ import {
   type PlanSegment,
   type PlanSettings,
   type PlanTreatment,
-  stateValue,
   triggerPci,
   yearZeroPci,
 } from './condition';
@@ -47,24 +47,6 @@ export const isThinLift = (t: PlanTreatment) =>
   t.thicknessIn !== null &&
   (t.kind === 'thin_overlay' || t.kind === 'mill_and_overlay' || (t.kind === undefined && t.thicknessIn < 3));
 
-const structuralMemo = new Map<string, StructuralCheck>();
-/** checkOverlay (shared/engine/structural.ts), memoised on what it reads. */
-export function structuralCheck(seg: PlanSegment, t: PlanTreatment, pci: number) {
-  const trucks = (seg.adt ?? 0) * ((seg.truckPct ?? 0) / 100);
-  const f = pci >= 70 ? 0 : pci >= 55 ? 1 : pci >= 40 ? 2 : 3;
-  const key = `${trucks}|${seg.functionalClass}|${f}|${t.thicknessIn}|${t.lifeYears}`;
-  let c = structuralMemo.get(key);
-  if (!c) {
-    c = checkOverlay(
-      { adt: seg.adt, truckPct: seg.truckPct ?? null, functionalClass: seg.functionalClass, pci },
-      { thicknessIn: t.thicknessIn!, serviceLifeYears: t.lifeYears },
-    );
-    if (structuralMemo.size > 100_000) structuralMemo.clear();
-    structuralMemo.set(key, c);
-  }
-  return c;
-}
-
 class Grow {
   n = 0;
   constructor(
@@ -87,12 +69,25 @@ const f64 = (n: number) => new Float64Array(n);
 const i32 = (n: number) => new Int32Array(n);
 const u8 = (n: number) => new Uint8Array(n);
 
-/** One segment's context for walking strategies (shared by the generator and the simulation). */
+const SURFACE_INDEX: Record<string, number> = { asphalt: 0, chip_seal: 1, concrete: 2, gravel: 3, other: 4 };
+
+/**
+ * One segment's context for walking strategies (shared by the generator and the simulation). A path
+ * is read off a base array — do-nothing's raw curve values, or the raw values of the curve an
+ * age-resetting treatment started (cached per treatment and surface) — plus the points that works
+ * not resetting age have added since: PCI(y) = min(100, base[y − origin] + extra). This is the
+ * condition model of condition.ts (stateValue) tabulated once per segment.
+ */
 export class SegmentWalker {
   readonly none: Float64Array;
   readonly s0: CondState;
   readonly cost: Float64Array;
+  private noneRaw: Float64Array;
   private classOk: Uint8Array;
+  private bases = new Map<number, Float64Array>();
+  private structural: (StructuralCheck | undefined)[] = [];
+  private structuralPci: number[] = [];
+  private structuralFirst: (StructuralCheck | undefined)[] = [];
   constructor(
     readonly ct: CurveTable,
     readonly seg: PlanSegment,
@@ -102,9 +97,16 @@ export class SegmentWalker {
     readonly W: number,
   ) {
     this.s0 = initialState(ct, seg, settings.startYear);
+    this.noneRaw = new Float64Array(W + 1);
     this.none = new Float64Array(W + 1);
-    this.none[0] = yearZeroPci(ct, seg, this.s0, settings.startYear);
-    for (let t = 1; t <= W; t++) this.none[t] = stateValue(ct, this.s0, t);
+    for (let t = 0; t <= W; t++) {
+      this.noneRaw[t] = ct.pci(this.s0.curve, this.s0.age + t) + this.s0.shift;
+      this.none[t] = this.noneRaw[t] > 100 ? 100 : this.noneRaw[t];
+    }
+    // Year 0 is the measured PCI itself when no ageing is needed (no round trip through the curve).
+    const z = yearZeroPci(ct, seg, this.s0, settings.startYear);
+    this.none[0] = z;
+    this.noneRaw[0] = z;
     this.cost = new Float64Array(treatments.length);
     this.classOk = new Uint8Array(treatments.length);
     treatments.forEach((t, i) => {
@@ -113,85 +115,143 @@ export class SegmentWalker {
     });
   }
 
+  private check(ti: number, pci: number) {
+    const level = pci >= 70 ? 0 : pci >= 55 ? 1 : pci >= 40 ? 2 : 3;
+    const k = ti * 4 + level;
+    let c = this.structural[k];
+    if (!c) {
+      // One checkOverlay per lift (its design traffic and required SN do not depend on PCI); the
+      // condition factor's steps rescale its effective existing SN (structural.ts conditionFactor).
+      let first = this.structuralFirst[ti];
+      if (!first) {
+        const t = this.treatments[ti];
+        first = checkOverlay(
+          { adt: this.seg.adt, truckPct: this.seg.truckPct ?? null, functionalClass: this.seg.functionalClass, pci },
+          { thicknessIn: t.thicknessIn!, serviceLifeYears: t.lifeYears },
+        );
+        this.structuralPci[ti] = pci;
+        this.structuralFirst[ti] = first;
+        this.structural[k] = first;
+        return first;
+      }
+      const f0 = conditionFactor(this.structuralPci[ti]);
+      const existing = (first.effectiveExistingSn / f0) * conditionFactor(pci);
+      const sn = existing + (first.snWithOverlay - first.effectiveExistingSn);
+      const shortBy = Math.max(0, first.requiredSn - sn);
+      c = { ...first, effectiveExistingSn: existing, snWithOverlay: sn, shortBy, caution: shortBy > 0 };
+      this.structural[k] = c;
+    }
+    return c;
+  }
+
+  /** The AASHTO 1993 check (structural.ts checkOverlay) of treatment ti's lift on this road at this PCI. */
+  structuralCheck(ti: number, pci: number) {
+    return this.check(ti, pci);
+  }
+
   /** −1: not applicable; 0: applicable; 1: applicable and flagged by the structural check. */
-  applicable(ti: number, s: CondState, y: number, pci: number) {
+  applicable(ti: number, surface: string, lastYear: number, y: number, pci: number) {
     const t = this.treatments[ti];
-    if (!this.classOk[ti] || !this.surfaceSets[ti].has(s.surface) || !inPciRange(t, pci)) return -1;
-    if (y - s.lastYear < t.applicability.minYearsSinceLast) return -1;
+    if (!this.classOk[ti] || !this.surfaceSets[ti].has(surface) || !inPciRange(t, pci)) return -1;
+    if (y - lastYear < t.applicability.minYearsSinceLast) return -1;
     if (t.thicknessIn === null) return 0;
-    if (!structuralCheck(this.seg, t, pci).caution) return 0;
+    if (!this.check(ti, pci).caution) return 0;
     return isThinLift(t) && !this.settings.allowThinOnWeakBase ? -1 : 1;
   }
 
+  /** Raw values (before the 100 cap) of the curve an age-resetting treatment starts, years 0 … W after it. */
+  private base(ti: number, surface: string, before: number) {
+    const t = this.treatments[ti];
+    const cacheable = t.effect.type === 'reset';
+    const key = ti * 8 + (SURFACE_INDEX[surface] ?? 5);
+    if (cacheable) {
+      const b = this.bases.get(key);
+      if (b) return b;
+    }
+    const st: CondState = { ...this.s0, surface };
+    applyTreatment(this.ct, st, t, this.seg.functionalClass, 0, before);
+    const b = new Float64Array(this.W + 1);
+    for (let k = 0; k <= this.W; k++) b[k] = this.ct.pci(st.curve, st.age + st.speed * k) + st.shift;
+    if (cacheable) this.bases.set(key, b);
+    return b;
+  }
+
   /**
-   * Walks one strategy: the seed work (ti in year y0) and, with followUp, further work within the
-   * horizon whenever the road has fallen to a treatment's trigger PCI and that treatment fits
-   * (the cheapest such one). Writes the path (years 0 … W) and returns the number of works.
+   * Walks one strategy and writes its path (years 0 … W) at path[off …]. Either `works` is given
+   * (treatment, year pairs, in year order: a replay) or a seed (ti in year y0) with, when followUp,
+   * further work within the horizon whenever the road has fallen to a treatment's trigger PCI and that
+   * treatment fits (the cheapest such one). Works go to acts (treatment, year pairs) with their
+   * structural flags and before/after PCI; returns their number.
    */
-  walk(
-    ti: number,
-    y0: number,
-    flag0: number,
-    followUp: boolean,
-    H: number,
+  trace(
+    seed: { ti: number; y0: number; followUp: boolean; H: number } | null,
+    works: { treatment: number; year: number }[] | null,
     path: Float64Array,
     off: number,
     acts: Int32Array,
     flags: Uint8Array,
+    pcis?: Float64Array,
+    at = 0,
+    maxWorks = acts.length >> 1,
   ) {
-    const { ct, none, W } = this;
-    const st: CondState = { ...this.s0 };
-    for (let y = 0; y < y0; y++) path[off + y] = none[y];
-    path[off + y0] = applyTreatment(ct, st, this.treatments[ti], this.seg.functionalClass, y0, none[y0]);
-    acts[0] = ti;
-    acts[1] = y0;
-    flags[0] = flag0;
-    let n = 1;
-    for (let y = y0 + 1; y <= W; y++) {
-      let v = stateValue(ct, st, y);
-      if (followUp && y < H) {
-        let best = -1;
-        let bestFlag = 0;
-        for (let tj = 0; tj < this.treatments.length; tj++) {
-          if (v > triggerPci(this.treatments[tj]) + PCI_TOLERANCE) continue;
-          if (best >= 0 && this.cost[tj] >= this.cost[best]) continue;
-          const f = this.applicable(tj, st, y, v);
-          if (f < 0) continue;
-          best = tj;
-          bestFlag = f;
+    const { W, treatments } = this;
+    let B = this.noneRaw;
+    let origin = 0;
+    let extra = 0;
+    let surface = this.seg.surface;
+    let lastYear = this.s0.lastYear;
+    let n = 0;
+    let k = 0;
+    for (let y = 0; y <= W; y++) {
+      let v = y === 0 && origin === 0 ? this.none[0] + extra : B[y - origin] + extra;
+      if (v > 100) v = 100;
+      // Works this year: the replay's, or the seed, or a follow-up.
+      for (;;) {
+        let ti = -1;
+        let flag = 0;
+        if (works) {
+          if (k < works.length && works[k].year === y) ti = works[k++].treatment;
+        } else if (seed && n === 0 && y === seed.y0) {
+          ti = seed.ti;
+          flag = this.applicable(ti, surface, lastYear, y, v) === 1 ? 1 : 0;
+        } else if (seed?.followUp && n > 0 && y < seed.H && lastYear < y && n < maxWorks) {
+          for (let tj = 0; tj < treatments.length; tj++) {
+            if (v > triggerPci(treatments[tj]) + PCI_TOLERANCE) continue;
+            if (ti >= 0 && this.cost[tj] >= this.cost[ti]) continue;
+            const f = this.applicable(tj, surface, lastYear, y, v);
+            if (f < 0) continue;
+            ti = tj;
+            flag = f;
+          }
         }
-        if (best >= 0 && n * 2 + 1 < acts.length) {
-          v = applyTreatment(ct, st, this.treatments[best], this.seg.functionalClass, y, v);
-          acts[n * 2] = best;
-          acts[n * 2 + 1] = y;
-          flags[n] = bestFlag;
-          n++;
+        if (ti < 0) break;
+        const t = treatments[ti];
+        const before = v;
+        const raw = t.effect.type === 'reset' ? t.effect.value : before + t.effect.value;
+        const after = raw > 100 ? 100 : raw;
+        if (t.effect.resetsAge) {
+          B = this.base(ti, surface, before);
+          origin = y;
+          extra = 0;
+        } else extra += after - before;
+        surface = surfaceAfter(t, surface);
+        lastYear = y;
+        v = after;
+        if (n < maxWorks) {
+          acts[(at + n) * 2] = ti;
+          acts[(at + n) * 2 + 1] = y;
+          flags[at + n] = flag;
+          if (pcis) {
+            pcis[n * 2] = before;
+            pcis[n * 2 + 1] = after;
+          }
         }
+        n++;
+        if (!works) break;
       }
       path[off + y] = v;
     }
     return n;
-  }
-
-  /** Replays a list of works (treatment index, plan year), writing the path and each work's before/after PCI. */
-  replay(works: { treatment: number; year: number }[], path: Float64Array) {
-    const { ct, none, W } = this;
-    const st: CondState = { ...this.s0 };
-    const out: { before: number; after: number }[] = [];
-    let k = 0;
-    let treated = false;
-    for (let y = 0; y <= W; y++) {
-      let v = treated ? stateValue(ct, st, y) : none[y];
-      while (k < works.length && works[k].year === y) {
-        const before = v;
-        v = applyTreatment(ct, st, this.treatments[works[k].treatment], this.seg.functionalClass, y, v);
-        out.push({ before, after: v });
-        treated = true;
-        k++;
-      }
-      path[y] = v;
-    }
-    return out;
   }
 }
 
@@ -238,9 +298,9 @@ export function generateStrategies(
   const cFlags = new Uint8Array(maxCand * MAXW);
   const cN = new Int32Array(maxCand);
   const cBenefit = new Float64Array(maxCand);
-  const cLcc = new Float64Array(maxCand);
   const cRatio = new Float64Array(maxCand);
   const order: number[] = [];
+  const yearCost = new Float64Array(H);
 
   const segStart = new Int32Array(segments.length + 1);
   const benefit = new Grow(f64(1024), f64);
@@ -269,20 +329,19 @@ export function generateStrategies(
     let n = 0;
     for (let ti = 0; ti < T; ti++) {
       for (let y0 = 0; y0 < H; y0++) {
-        const f0 = wk.applicable(ti, wk.s0, y0, none[y0]);
-        if (f0 < 0) continue;
+        if (wk.applicable(ti, seg.surface, wk.s0.lastYear, y0, none[y0]) < 0) continue;
         for (let v = 0; v < 2; v++) {
           const off = n * (W + 1);
-          const works = wk.walk(
-            ti,
-            y0,
-            f0,
-            v === 1,
-            H,
+          const works = wk.trace(
+            { ti, y0, followUp: v === 1, H },
+            null,
             cPath,
             off,
-            cActs.subarray(n * MAXW * 2, (n + 1) * MAXW * 2),
-            cFlags.subarray(n * MAXW, (n + 1) * MAXW),
+            cActs,
+            cFlags,
+            undefined,
+            n * MAXW,
+            MAXW,
           );
           if (v === 1 && works === 1) continue; // no follow-up: the same as the seed alone
           if (floor !== undefined) {
@@ -292,17 +351,10 @@ export function generateStrategies(
           }
           const b = areaBetween(cPath.subarray(off, off + W + 1), none, W) * weight;
           if (!(b > 1e-9)) continue;
-          const acts = [];
           let total = 0;
-          for (let k = 0; k < works; k++) {
-            const tk = cActs[n * MAXW * 2 + k * 2];
-            const yk = cActs[n * MAXW * 2 + k * 2 + 1];
-            total += wk.cost[tk];
-            acts.push({ year: yk, cost: wk.cost[tk], serviceLifeYears: treatments[tk].lifeYears });
-          }
+          for (let k = 0; k < works; k++) total += wk.cost[cActs[n * MAXW * 2 + k * 2]];
           cN[n] = works;
           cBenefit[n] = b;
-          cLcc[n] = strategyLifeCycleCost(acts, rate, W).presentValue;
           cRatio[n] = total > 0 ? b / total : Number.POSITIVE_INFINITY;
           n++;
         }
@@ -328,9 +380,18 @@ export function generateStrategies(
     }
     for (const c of order) {
       benefit.push(cBenefit[c]);
-      lcc.push(cLcc[c]);
+      const activities = [];
+      for (let k = 0; k < cN[c]; k++) {
+        const tk = cActs[c * MAXW * 2 + k * 2];
+        activities.push({
+          year: cActs[c * MAXW * 2 + k * 2 + 1],
+          cost: wk.cost[tk],
+          serviceLifeYears: treatments[tk].lifeYears,
+        });
+      }
+      lcc.push(strategyLifeCycleCost(activities, rate, W).presentValue);
       actStart.push(actTreatment.n);
-      const yearCost = new Float64Array(H);
+      yearCost.fill(0);
       for (let k = 0; k < cN[c]; k++) {
         const tk = cActs[c * MAXW * 2 + k * 2];
         const yk = cActs[c * MAXW * 2 + k * 2 + 1];

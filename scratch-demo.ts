@@ -1,0 +1,26 @@
+import { createTestApp } from './tests/helpers/test-app';
+import { planInput } from './server/plans/plan-input';
+import { runPlan } from './shared/engine/plan/run-plan';
+import { plans } from './server/db/schema';
+const t = await createTestApp();
+const extra = JSON.parse(process.argv[2] ?? '{}');
+const settings = { startYear: 2027, horizonYears: 10, budgetMode: 'flat', annualBudget: 2_400_000, method: 'fast', ...extra };
+const eng = await t.as('engineer@brannock.example');
+const res = await eng.post(`/api/agencies/${t.ids.brannock}/plans`).send({ name: 'demo', settings });
+if (res.status !== 201) { console.log(res.status, JSON.stringify(res.body)); process.exit(1); }
+let t0 = performance.now();
+const input = planInput(t.deps, t.ids.brannock, res.body.id);
+console.log('input ms', (performance.now() - t0).toFixed(0), 'segments', input.segments.length);
+t0 = performance.now();
+const r = runPlan(input, null);
+console.log('run ms', (performance.now() - t0).toFixed(0));
+const counts: Record<string, number> = {};
+for (const w of r.work) counts[w.treatment] = (counts[w.treatment] ?? 0) + 1;
+console.log(counts, 'items', r.work.length, 'segments', r.summary.segmentsTreated, 'options', r.candidates);
+console.log('pci', r.summary.startPci.toFixed(1), '->', r.summary.finalPci.toFixed(1), 'dn', r.summary.finalPciDoNothing.toFixed(1), 'failed LM', r.summary.failedLaneMilesStart.toFixed(1), r.summary.failedLaneMilesEnd.toFixed(1));
+console.log('years', r.years.map((y) => `${y.calendarYear}: ${y.networkPci.toFixed(1)} spent ${(y.spent/1e6).toFixed(2)} backlog ${(y.backlog/1e6).toFixed(1)}M nofit ${y.backlogNoFit.segments}`).join('\n'));
+console.log('lcc', r.summary.lifeCycleCost.toFixed(0), 'tons', r.summary.tonsByMix, r.solution);
+const multi = new Map<number, number>(); for (const w of r.work) multi.set(w.ref, (multi.get(w.ref) ?? 0) + 1);
+console.log('segments with 2+ items', [...multi.values()].filter((v) => v > 1).length, 'flags', r.work.filter((w) => w.structuralFlag).length);
+console.log(r.work.slice(0,3).map(w=>w.strategy));
+await t.close();
