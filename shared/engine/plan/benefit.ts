@@ -16,9 +16,11 @@ export function segmentWeight(s: PlanSegment, weighting: PlanSettings['weighting
 
 /**
  * Area between a path and do-nothing's over the common window, years 0 … W, by trapezoids
- * (one-year steps): Σ_{t<W} ((p_t − d_t) + (p_{t+1} − d_{t+1})) / 2, in PCI-years.
+ * (one-year steps): Σ_{t<W} ((p_t − d_t) + (p_{t+1} − d_{t+1})) / 2, in PCI-years. Work is done at the
+ * start of its year, so the step over [y−1, y] ends at the PCI before year y's work: `jumps` is
+ * Σ (after − before) / 2 over the works of years 1 … W, taken off the plain trapezoid sum.
  */
-export function areaBetween(path: ArrayLike<number>, none: ArrayLike<number>, W: number) {
+export function areaBetween(path: ArrayLike<number>, none: ArrayLike<number>, W: number, jumps = 0) {
   let area = 0;
   let prev = path[0] - none[0];
   for (let t = 1; t <= W; t++) {
@@ -26,7 +28,7 @@ export function areaBetween(path: ArrayLike<number>, none: ArrayLike<number>, W:
     area += (prev + cur) / 2;
     prev = cur;
   }
-  return area;
+  return area - jumps;
 }
 
 /**

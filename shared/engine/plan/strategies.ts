@@ -85,6 +85,8 @@ export class SegmentWalker {
   private noneRaw: Float64Array;
   private classOk: Uint8Array;
   private bases = new Map<number, Float64Array>();
+  /** Σ (after − before) / 2 of the last traced path's works after year 0 (benefit.ts areaBetween). */
+  jumps = 0;
   private structural: (StructuralCheck | undefined)[] = [];
   private structuralPci: number[] = [];
   private structuralFirst: (StructuralCheck | undefined)[] = [];
@@ -200,6 +202,7 @@ export class SegmentWalker {
     let extra = 0;
     let surface = this.seg.surface;
     let lastYear = this.s0.lastYear;
+    this.jumps = 0;
     let n = 0;
     let k = 0;
     for (let y = 0; y <= W; y++) {
@@ -236,6 +239,7 @@ export class SegmentWalker {
         } else extra += after - before;
         surface = surfaceAfter(t, surface);
         lastYear = y;
+        if (y > 0) this.jumps += (after - before) / 2;
         v = after;
         if (n < maxWorks) {
           acts[(at + n) * 2] = ti;
@@ -349,7 +353,7 @@ export function generateStrategies(
             for (let y = 0; y < H; y++) if (cPath[off + y] < floor - PCI_TOLERANCE) low = true;
             if (low) continue;
           }
-          const b = areaBetween(cPath.subarray(off, off + W + 1), none, W) * weight;
+          const b = areaBetween(cPath.subarray(off, off + W + 1), none, W, wk.jumps) * weight;
           if (!(b > 1e-9)) continue;
           let total = 0;
           for (let k = 0; k < works; k++) total += wk.cost[cActs[n * MAXW * 2 + k * 2]];
