@@ -13,7 +13,10 @@ export function toLegacy(inst: PackedInstance): Instance {
   for (const r of floorRows)
     r.idx.forEach((o, k) => {
       let g = gainOf.get(o);
-      if (!g) gainOf.set(o, (g = new Array(Y).fill(0)));
+      if (!g) {
+        g = new Array(Y).fill(0);
+        gainOf.set(o, g);
+      }
       g[r.year] = Math.max(0, r.gain[k]);
     });
   const segments: Instance['segments'] = [];
