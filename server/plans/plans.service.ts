@@ -1,25 +1,17 @@
 import { and, desc, eq, isNotNull } from 'drizzle-orm';
-import { resolveTreatment } from '../../shared/engine/lcca/costing';
-import { familyKey } from '../../shared/engine/forecast/families';
-import type { PlanSegment, PlanTreatment } from '../../shared/engine/plan/network-plan';
-import { candidates, MAX_EXACT_OPTIONS, type PlanInput, type PlanResult } from '../../shared/engine/plan/run-plan';
-import { areaSy, laneMiles } from '../../shared/engine/quantities';
+import type { PlanInput, PlanResult } from '../../shared/engine/plan/run-plan';
 import { type AnyPlanResult, headline, headlineLines } from '../../shared/plan-headline';
-import { budgetsOf, type PlanSettingsInput } from '../../shared/schemas/plans';
+import type { PlanSettingsInput } from '../../shared/schemas/plans';
 import { agencyById } from '../agencies/agencies.repo';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
-import * as catalogRepo from '../catalog/catalog.repo';
 import type { Db } from '../db/client';
 import type { Deps } from '../deps';
 import { memberships, plans, planVersions, segments, users } from '../db/schema';
-import { curveLookup, families } from '../forecast/forecast.service';
 import { HttpError, notFound } from '../http/errors';
 import * as runsRepo from '../runs/runs.repo';
 import * as runs from '../runs/runs.service';
 import { budgetSearchTask, planRunTask, planSnapshotTask } from './plans.tasks';
-
-export const MAX_PLAN_SEGMENTS = 60_000;
 
 type PlanRow = typeof plans.$inferSelect;
 type VersionRow = typeof planVersions.$inferSelect;
@@ -215,119 +207,6 @@ export function listVersions(deps: Pick<Deps, 'db'>, agencyId: string, planId: s
       current: r.id === row.publishedVersionId,
     })),
   };
-}
-
-/** The whole input of a run, frozen: inventory, curves, planning costs and settings. */
-export function planInput(deps: Deps, agencyId: string, planId: string): PlanInput {
-  const row = planRow(deps, agencyId, planId, 'engineer');
-  const settings = JSON.parse(row.settings) as PlanSettingsInput;
-  const agency = agencyById(deps.db, agencyId)!;
-  const segRows = deps.db
-    .select()
-    .from(segments)
-    .where(and(eq(segments.agencyId, agencyId), isNotNull(segments.pci)))
-    .all();
-  const total = deps.db.select({ id: segments.id }).from(segments).where(eq(segments.agencyId, agencyId)).all().length;
-  if (total === 0)
-    throw new HttpError(409, 'empty_inventory', 'The inventory is empty: import segments before running a plan');
-  if (segRows.length === 0)
-    throw new HttpError(
-      409,
-      'no_condition',
-      'No segment has a PCI yet: import condition surveys before running a plan',
-    );
-  if (segRows.length > MAX_PLAN_SEGMENTS)
-    throw new HttpError(
-      413,
-      'plan_too_large',
-      `A plan takes at most ${MAX_PLAN_SEGMENTS.toLocaleString('en-US')} segments`,
-    );
-  const planSegments: PlanSegment[] = segRows.map((r) => ({
-    ref: r.id,
-    segmentId: r.segmentId,
-    roadName: r.roadName,
-    lengthMi: r.lengthMi,
-    lanes: r.lanes,
-    areaSy: areaSy(r.lengthMi, r.widthFt),
-    laneMiles: laneMiles(r.lengthMi, r.lanes),
-    functionalClass: r.functionalClass,
-    surface: r.surface,
-    adt: r.adt,
-    pci: r.pci!,
-    lastTreatmentYear: r.lastTreatmentYear,
-    familyKey: familyKey(r.surface, r.functionalClass, r.lastTreatment),
-  }));
-  const econ = catalogRepo.economicsOf(deps.db, agencyId);
-  const mixes = new Map(catalogRepo.listMixes(deps.db, agencyId).map((m) => [m.id, m]));
-  const all = catalogRepo.listTreatments(deps.db, agencyId);
-  const unknown = settings.treatmentIds.filter((id) => !all.some((t) => t.id === id));
-  if (unknown.length)
-    throw new HttpError(
-      400,
-      'invalid_request',
-      'Invalid request: settings.treatmentIds — names treatments not in the catalog',
-      [{ path: 'settings.treatmentIds', message: 'names treatments not in the catalog' }],
-    );
-  const chosen = settings.treatmentIds.length ? all.filter((t) => settings.treatmentIds.includes(t.id)) : all;
-  // Planning cost per segment: unit rates, traffic control and add-ons; mobilisation belongs to contracts, not segments.
-  const treatments: PlanTreatment[] = chosen.map((t) => {
-    const r = resolveTreatment(
-      t,
-      t.mixId ? (mixes.get(t.mixId) ?? null) : null,
-      {},
-      { ...econ, mobilizationPerJob: 0 },
-    );
-    return {
-      id: t.id,
-      name: t.name,
-      category: t.category,
-      costPerSy: r.rates.perSy * (1 + r.rates.addOnFraction),
-      costPerLaneMile: r.rates.perLaneMile * (1 + r.rates.addOnFraction),
-      tonsPerSy: r.tonsPerSy,
-      mixName: r.mix?.name ?? null,
-      thicknessIn: r.thicknessIn,
-      lifeYears: r.serviceLifeYears,
-      effect: t.effect,
-      applicability: t.applicability,
-    };
-  });
-  const fams = families(deps, agencyId, false);
-  const lookup = curveLookup(fams);
-  const curves = Object.fromEntries([...new Set(planSegments.map((s) => s.familyKey))].map((k) => [k, lookup(k)]));
-  const input: PlanInput = {
-    planName: row.name,
-    agencyName: agency.name,
-    method: settings.method,
-    minNetworkPci: settings.minNetworkPci,
-    settings: {
-      startYear: settings.startYear,
-      budgets: budgetsOf(settings),
-      weighting: settings.weighting,
-      needsWorkBelow: settings.needsWorkBelow,
-      minNetworkPci: settings.minNetworkPci,
-    },
-    segments: planSegments,
-    treatments,
-    curves,
-  };
-  const cand = candidates(input);
-  const options = cand.instance.segments.reduce((s, x) => s + x.options.length, 0);
-  if (options === 0)
-    throw new HttpError(
-      400,
-      'invalid_request',
-      'Invalid request: settings.treatmentIds — no treatment applies to any segment in the horizon',
-      [{ path: 'settings.treatmentIds', message: 'no treatment applies to any segment in the horizon' }],
-    );
-  if (settings.method === 'exact' && options > MAX_EXACT_OPTIONS) {
-    throw new HttpError(
-      400,
-      'invalid_request',
-      `Invalid request: settings.method — ${options.toLocaleString('en-US')} candidates is more than the exact method takes here (${MAX_EXACT_OPTIONS.toLocaleString('en-US')}); use the fast method, which reports its gap to a bound`,
-      [{ path: 'settings.method', message: 'too many candidates for the exact method; use fast' }],
-    );
-  }
-  return input;
 }
 
 /**

@@ -1,6 +1,32 @@
 import { z } from 'zod';
+import { FunctionalClassSchema } from './segments';
 
 export const PlanMethodSchema = z.enum(['exact', 'fast', 'ranking']);
+
+export const PlanTargetsSchema = z.object({
+  /** Lane-mile-weighted network PCI at or above this in every plan year. */
+  minNetworkPci: z.number().min(0, 'must be 0 to 100').max(100, 'must be 0 to 100').nullable().default(null),
+  /** No segment of the class below this PCI in any plan year. */
+  classFloors: z
+    .array(
+      z.object({
+        functionalClass: FunctionalClassSchema,
+        minPci: z.number().min(0, 'must be 0 to 100').max(100, 'must be 0 to 100'),
+      }),
+    )
+    .max(7)
+    .default([]),
+  /** Share of lane-miles at PCI 71 or more (Light wear or better) in every plan year, in percent. */
+  goodOrBetterPct: z.number().min(0, 'must be 0 to 100 %').max(100, 'must be 0 to 100 %').nullable().default(null),
+});
+export type PlanTargetsInput = z.infer<typeof PlanTargetsSchema>;
+
+export const MIX_POLICY_KINDS = ['thin_overlay', 'mill_and_overlay'] as const;
+export const MixPolicySchema = z.object({
+  kinds: z.array(z.enum(MIX_POLICY_KINDS)).min(1, 'name at least one kind of treatment').max(2),
+  mixId: z.string().min(1).max(64),
+  thicknessIn: z.number().positive('must be more than 0 in').max(12, 'must be 12 in or less'),
+});
 
 export const PlanSettingsSchema = z
   .object({
@@ -18,8 +44,50 @@ export const PlanSettingsSchema = z
     /** Treatments the plan may use; empty means all in the catalog. */
     treatmentIds: z.array(z.string()).max(50).default([]),
     needsWorkBelow: z.number().min(0).max(100).default(71),
+    /** What the plan optimises: most benefit within the budgets, or least life-cycle cost meeting the targets. */
+    objective: z.enum(['benefit', 'cost']).default('benefit'),
+    targets: PlanTargetsSchema.default({ minNetworkPci: null, classFloors: [], goodOrBetterPct: null }),
+    maxStrategiesPerSegment: z
+      .number()
+      .int('must be a whole number')
+      .min(1, 'must be 1 to 200')
+      .max(200, 'must be 1 to 200')
+      .default(24),
+    /** Replace the mix and lift of these treatment kinds across the plan. */
+    mixPolicy: MixPolicySchema.nullable().default(null),
+    /** Let a thin lift be planned where the AASHTO 1993 check flags the base (each such item says so). */
+    allowThinOnWeakBase: z.boolean().default(false),
+    /** Years past the horizon over which benefit is still counted (one window for every option). */
+    benefitTailYears: z
+      .number()
+      .int('must be a whole number')
+      .min(0, 'must be 0 to 30')
+      .max(30, 'must be 0 to 30')
+      .default(10),
   })
   .superRefine((s, ctx) => {
+    if (
+      s.objective === 'cost' &&
+      s.targets.minNetworkPci === null &&
+      s.minNetworkPci === null &&
+      s.targets.classFloors.length === 0 &&
+      s.targets.goodOrBetterPct === null
+    )
+      ctx.addIssue({
+        code: 'custom',
+        path: ['targets'],
+        message: 'the least-cost objective needs at least one condition target',
+      });
+    const seen = new Set<string>();
+    for (const [i, f] of s.targets.classFloors.entries()) {
+      if (seen.has(f.functionalClass))
+        ctx.addIssue({
+          code: 'custom',
+          path: ['targets', 'classFloors', i, 'functionalClass'],
+          message: 'is listed twice',
+        });
+      seen.add(f.functionalClass);
+    }
     if (s.budgetMode === 'custom') {
       if (!s.budgets) ctx.addIssue({ code: 'custom', path: ['budgets'], message: 'is required: one budget per year' });
       else if (s.budgets.length !== s.horizonYears)
@@ -28,7 +96,18 @@ export const PlanSettingsSchema = z
       ctx.addIssue({ code: 'custom', path: ['annualBudget'], message: 'is required' });
     }
   });
-export type PlanSettingsInput = z.infer<typeof PlanSettingsSchema>;
+/** Settings as parsed, every default filled in. */
+export type PlanSettingsParsed = z.infer<typeof PlanSettingsSchema>;
+/** The settings added with treatment strategies: optional in this type, so plans saved before them still type-check. */
+export type NewPlanSettingKeys =
+  | 'objective'
+  | 'targets'
+  | 'maxStrategiesPerSegment'
+  | 'mixPolicy'
+  | 'allowThinOnWeakBase'
+  | 'benefitTailYears';
+export type PlanSettingsInput = Omit<PlanSettingsParsed, NewPlanSettingKeys> &
+  Partial<Pick<PlanSettingsParsed, NewPlanSettingKeys>>;
 
 export function budgetsOf(s: PlanSettingsInput): number[] {
   if (s.budgetMode === 'custom') return s.budgets ?? [];

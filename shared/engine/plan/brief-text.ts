@@ -24,7 +24,8 @@ export const BRIEF_CAUTIONS =
 export function briefMethod(r: PlanResult) {
   return (
     `Condition is forecast with deterioration curves (PCI against age since the last treatment) fitted by least squares to the agency's own surveys, or editable defaults where a family has too few. ` +
-    `Each segment's candidate treatments in each year come from the catalog's rules; the benefit of a treatment is the area between the condition curves with and without it, weighted by lane-miles. ` +
+    `Surveyed condition is aged to the start year. Each segment's candidates are treatment strategies — a first treatment in a year where the catalog's rules allow it, alone or followed by further work when the road falls to a treatment's trigger condition — and after work a road follows the curve of the family it then belongs to, for the life its mix and lift give. ` +
+    `The benefit of a strategy is the area between the condition curves with and without it over one window for every option (the plan's years and a tail after them), weighted by lane-miles; its life-cycle cost comes from the same method as the comparisons (FHWA), with the remaining service life credited. ` +
     `${r.method === 'exact' ? 'The work was chosen by mixed-integer programming (HiGHS)' : r.method === 'fast' ? 'The work was chosen by a Lagrangian relaxation method' : 'The work was chosen worst-first'} to give the most benefit within each year's budget (${r.solution.status}; within ${(r.solution.gap * 100).toFixed(2)} % of the best possible). ` +
     `Costs are planning estimates in constant base-year dollars from the catalog's unit prices, traffic control and add-ons; mobilisation is priced per contract, not per segment.`
   );

@@ -1,8 +1,13 @@
-// One plan run from a self-contained input snapshot: candidates, the chosen
-// method beside the worst-first baseline, and the year-by-year results.
+// One plan run from a self-contained input snapshot: strategies, the chosen method beside the
+// worst-first baseline, and the year-by-year results (docs/COMPUTATION.md, The budget plan).
 import type { Curve } from '../forecast/curve';
-import { buildCandidates, type PlanSegment, type PlanSettings, type PlanTreatment, simulate } from './network-plan';
-import { type Highs, type Instance, type Method, type Solution, solveExact, solveFast, solveRanking } from './optimize';
+import { findBudget } from './budget-search';
+import type { PlanSegment, PlanSettings, PlanTreatment } from './condition';
+import type { PackedInstance } from './instance';
+import type { Highs, Method } from './optimize';
+import { simulate } from './simulate';
+import { solvePlan } from './solve';
+import { generateStrategies } from './strategies';
 
 export type PlanInput = {
   planName: string;
@@ -14,68 +19,76 @@ export type PlanInput = {
   treatments: PlanTreatment[];
   curves: Record<string, Curve>;
   timeLimitSeconds?: number;
+  /** The mix and lift a mix policy put on the named treatment kinds (null: the catalog's own). */
+  mixPolicy?: { mixName: string; thicknessIn: number } | null;
 };
 
 // Measured here: HiGHS in WebAssembly aborted on a 59k-binary plan model (bench/plan.bench.ts); 20k solves.
 export const MAX_EXACT_OPTIONS = 20_000;
 
-function chosenMap(inst: Instance, meta: ReturnType<typeof buildCandidates>['meta'], s: Solution) {
-  const byOption = new Map<string, { treatmentId: string; year: number }>();
-  meta.forEach((m, i) =>
-    m.options.forEach((o, j) => {
-      byOption.set(inst.segments[i].options[j].id, { treatmentId: o.treatment.id, year: o.year });
-    }),
-  );
-  const out = new Map<number, { treatmentId: string; year: number }>();
-  for (const c of s.chosen) out.set(Number(c.segmentId), byOption.get(c.optionId)!);
-  return out;
-}
-
-export function curveFn(input: PlanInput) {
+export function curveFn(input: Pick<PlanInput, 'curves'>) {
   return (key: string) =>
-    input.curves[key] ?? input.curves[`default|${key.split('|')[0]}`] ?? input.curves['default|other'];
+    input.curves[key] ??
+    input.curves[`default|${key.split('|')[0]}`] ??
+    input.curves['default|other'] ?? { p0: 100, a: 1, b: 1.4 };
 }
 
+/** The strategies of a run, packed for the methods. */
 export function candidates(input: PlanInput) {
-  return buildCandidates(input.segments, input.treatments, curveFn(input), input.settings);
+  return generateStrategies(input.segments, input.treatments, curveFn(input), input.settings);
+}
+
+const sumOf = (xs: number[]) => xs.reduce((a, b) => a + b, 0);
+
+function addTons(into: Record<string, number>, from: Record<string, number>) {
+  for (const [k, v] of Object.entries(from)) into[k] = (into[k] ?? 0) + v;
 }
 
 export function runPlan(input: PlanInput, highs: Highs | null, onProgress?: (f: number) => void) {
-  const curves = curveFn(input);
-  const { instance, meta } = buildCandidates(input.segments, input.treatments, curves, input.settings);
+  const g = generateStrategies(input.segments, input.treatments, curveFn(input), input.settings);
+  const inst: PackedInstance = g.inst;
   onProgress?.(0.1);
-  const options = instance.segments.reduce((s, x) => s + x.options.length, 0);
-  let solution: Solution;
-  if (input.method === 'exact') {
-    if (!highs) throw new Error('the exact method needs the HiGHS solver');
-    solution = solveExact(instance, highs, { timeLimitSeconds: input.timeLimitSeconds ?? 60, gap: 1e-4 });
-  } else if (input.method === 'fast')
-    solution = solveFast(instance, { onProgress: (f) => onProgress?.(0.1 + 0.7 * f) });
-  else solution = solveRanking(instance);
+  const options = inst.segStart[inst.nSegments];
+  const solution = solvePlan(inst, input.method, highs, {
+    timeLimitSeconds: input.timeLimitSeconds ?? 60,
+    onProgress: (f) => onProgress?.(0.1 + 0.7 * f),
+  });
   onProgress?.(0.85);
-  const baseline = input.method === 'ranking' ? solution : solveRanking(instance);
-  const sim = simulate(input.segments, input.treatments, curves, input.settings, chosenMap(instance, meta, solution));
+  const baseline = input.method === 'ranking' ? solution : solvePlan(inst, 'ranking', null);
+  const sim = simulate(input.segments, input.treatments, g.curveTable, input.settings, inst, g.meta, solution.pick);
   const baseSim =
     input.method === 'ranking'
       ? sim
-      : simulate(input.segments, input.treatments, curves, input.settings, chosenMap(instance, meta, baseline));
+      : simulate(input.segments, input.treatments, g.curveTable, input.settings, inst, g.meta, baseline.pick);
   const last = sim.years[sim.years.length - 1];
+  const minPci = input.settings.targets?.minNetworkPci ?? input.minNetworkPci ?? null;
   const floorMissed =
-    input.minNetworkPci === null
-      ? []
-      : sim.years.filter((y) => y.networkPci < input.minNetworkPci! - 1e-9).map((y) => y.calendarYear);
+    minPci === null ? [] : sim.years.filter((y) => y.networkPci < minPci - 1e-9).map((y) => y.calendarYear);
+  const benefitOf = (pick: Int32Array) => {
+    let b = 0;
+    for (const o of pick) if (o >= 0) b += inst.benefit[o];
+    return b;
+  };
+  const tonsByMix: Record<string, number> = {};
+  for (const y of sim.years) addTons(tonsByMix, y.tonsByMix);
+  let segmentsTreated = 0;
+  for (const o of solution.pick) if (o >= 0) segmentsTreated++;
   return {
     planName: input.planName,
     method: input.method,
-    candidates: { segments: instance.segments.filter((s) => s.options.length > 0).length, options },
+    candidates: { segments: countWithOptions(inst), options },
     solution: {
-      totalBenefit: solution.totalBenefit,
+      totalBenefit: benefitOf(solution.pick),
       bound: solution.bound,
       gap: solution.gap,
       status: solution.status,
+      objective: inst.objective,
+      objectiveValue: solution.objective,
+      targetsMissed: [...g.meta.floorsUnreachable, ...solution.targetsMissed],
+      mixPolicy: input.mixPolicy ?? null,
     },
     baseline: {
-      totalBenefit: baseline.totalBenefit,
+      totalBenefit: benefitOf(baseline.pick),
       finalPci: baseSim.years[baseSim.years.length - 1].networkPci,
       years: baseSim.years.map((y) => ({ calendarYear: y.calendarYear, networkPci: y.networkPci, spent: y.spent })),
     },
@@ -85,62 +98,62 @@ export function runPlan(input: PlanInput, highs: Highs | null, onProgress?: (f: 
       startPci: sim.years[0].networkPciDoNothing,
       finalPci: last.networkPci,
       finalPciDoNothing: last.networkPciDoNothing,
-      totalSpent: sim.years.reduce((s, y) => s + y.spent, 0),
-      totalBudget: sim.years.reduce((s, y) => s + y.budget, 0),
+      totalSpent: sumOf(sim.years.map((y) => y.spent)),
+      totalBudget: sumOf(sim.years.map((y) => y.budget)),
       backlogStart: sim.years[0].backlog,
       backlogEnd: last.backlog,
-      laneMiles: input.segments.reduce((s, x) => s + x.laneMiles, 0),
-      segmentsTreated: sim.work.length,
+      laneMiles: sim.laneMiles,
+      segmentsTreated,
+      workItems: sim.work.length,
+      lifeCycleCost: sim.lifeCycleCost,
+      failedLaneMilesStart: sim.years[0].failedLaneMiles,
+      failedLaneMilesEnd: last.failedLaneMiles,
+      tonsByMix,
     },
-    minNetworkPci: input.minNetworkPci,
+    minNetworkPci: minPci,
     floorMissedIn: floorMissed,
   };
 }
 
+function countWithOptions(inst: PackedInstance) {
+  let n = 0;
+  for (let i = 0; i < inst.nSegments; i++) if (inst.segStart[i + 1] > inst.segStart[i]) n++;
+  return n;
+}
+
 export type PlanResult = ReturnType<typeof runPlan>;
 
-/** "What annual budget holds the network at PCI X?" — bisection over flat budgets with the fast method. */
-export function budgetSearch(input: PlanInput, targetPci: number, onProgress?: (f: number) => void) {
-  const curves = curveFn(input);
+/**
+ * "What flat annual budget holds the network at PCI X?": findBudget (budget-search.ts) over the fast
+ * method on one set of strategies (they do not depend on the budget). The rule "hold-every-year"
+ * tests every year's network PCI; "final-year" the last year's only.
+ */
+export function budgetSearch(
+  input: PlanInput,
+  targetPci: number,
+  onProgress?: (f: number) => void,
+  rule: 'hold-every-year' | 'final-year' = 'hold-every-year',
+) {
+  const g = generateStrategies(input.segments, input.treatments, curveFn(input), input.settings);
   const H = input.settings.budgets.length;
-  const evalAt = (b: number) => {
-    const settings = { ...input.settings, budgets: new Array(H).fill(b) };
-    const { instance, meta } = buildCandidates(input.segments, input.treatments, curves, settings);
-    const s = solveFast(instance, { iterations: 80 });
-    const sim = simulate(input.segments, input.treatments, curves, settings, chosenMap(instance, meta, s));
-    return {
-      budget: b,
-      finalPci: sim.years[H - 1].networkPci,
-      minPci: Math.min(...sim.years.map((y) => y.networkPci)),
-    };
-  };
-  // Upper end: enough to do every segment's dearest option in one year.
-  const { instance } = buildCandidates(input.segments, input.treatments, curves, {
-    ...input.settings,
-    budgets: new Array(H).fill(Number.MAX_SAFE_INTEGER),
-  });
-  const maxNeed = instance.segments.reduce(
-    (s, x) => s + Math.max(0, ...x.options.map((o) => o.costs.reduce((t, c) => t + c.cost, 0))),
-    0,
+  const Y = g.inst.years;
+  // Upper end: enough to do every segment's dearest strategy's costliest year, every year.
+  let maxNeed = 0;
+  for (let i = 0; i < g.inst.nSegments; i++) {
+    let m = 0;
+    for (let o = g.inst.segStart[i]; o < g.inst.segStart[i + 1]; o++)
+      for (let y = 0; y < Y; y++) m = Math.max(m, g.inst.cost[o * Y + y]);
+    maxNeed += m;
+  }
+  const found = findBudget(
+    (b) => {
+      const settings = { ...input.settings, budgets: new Array(H).fill(b) };
+      const inst = { ...g.inst, budgets: Float64Array.from(settings.budgets) };
+      const s = solvePlan(inst, 'fast', null, { iterations: 80 });
+      const sim = simulate(input.segments, input.treatments, g.curveTable, settings, inst, g.meta, s.pick);
+      return { pciByYear: sim.years.map((y) => y.networkPci) };
+    },
+    { targetPci, rule, maxBudget: Math.max(1000, maxNeed), onProgress },
   );
-  const points: { budget: number; finalPci: number; minPci: number }[] = [];
-  const levels = 8;
-  for (let i = 0; i <= levels; i++) {
-    points.push(evalAt((maxNeed / H) * 2 * (i / levels) ** 2));
-    onProgress?.((i + 1) / (levels + 12));
-  }
-  let lo = 0;
-  let hi = maxNeed;
-  const ok = (p: { finalPci: number }) => p.finalPci >= targetPci;
-  if (!ok(evalAt(hi))) return { targetPci, budget: null as number | null, points, reachable: false };
-  for (let k = 0; k < 11; k++) {
-    const mid = (lo + hi) / 2;
-    const p = evalAt(mid);
-    points.push(p);
-    if (ok(p)) hi = mid;
-    else lo = mid;
-    onProgress?.((levels + 2 + k) / (levels + 12));
-  }
-  points.sort((a, b) => a.budget - b.budget);
-  return { targetPci, budget: hi, points, reachable: true };
+  return { targetPci, rule, ...found };
 }
