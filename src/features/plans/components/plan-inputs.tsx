@@ -6,6 +6,7 @@ import { MethodNote, PLAN_METHOD_NOTES } from '@/features/help/components/method
 import type { PlanSettings } from '@/features/plans/api/keys';
 import { BudgetInput } from './budget-input';
 import { money } from './money';
+import { PlanGoals } from './plan-goals';
 
 export type PlanDraft = { name: string; settings: PlanSettings };
 
@@ -181,6 +182,7 @@ export function PlanInputs({
             </tbody>
           </table>
         </div>
+        <PlanGoals s={s} set={set} />
         <fieldset className="text-sm" data-testid="mix-policy">
           <legend className="text-xs text-asphalt-muted">Mix policy</legend>
           <label className="flex items-center gap-2">

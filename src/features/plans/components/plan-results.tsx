@@ -121,6 +121,9 @@ export function PlanResults({ agencyId, r }: { agencyId: string; r: StoredResult
                 <th>Budget</th>
                 <th>Spent</th>
                 <th>Backlog</th>
+                <th title="Lane-miles under the needs-work PCI where no catalog treatment fits: counted, not priced">
+                  No fitting work, lane-mi
+                </th>
                 <th>Failed lane-mi</th>
                 <th>PCI</th>
               </tr>
@@ -132,6 +135,7 @@ export function PlanResults({ agencyId, r }: { agencyId: string; r: StoredResult
                   <td>{fmtMoney(y.budget)}</td>
                   <td>{fmtMoney(y.spent)}</td>
                   <td>{fmtMoney(y.backlog)}</td>
+                  <td>{y.backlogNoFit ? fmtInt(y.backlogNoFit.laneMiles) : '—'}</td>
                   <td>{fmtInt(h.failedByYear[i])}</td>
                   <td>{fmt1(y.networkPci)}</td>
                 </tr>
