@@ -5,7 +5,9 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mixes } from '../../server/db/schema';
 import { planInput } from '../../server/plans/plan-input';
-import { runPlan } from '../../shared/engine/plan/run-plan';
+import { CurveTable } from '../../shared/engine/plan/condition';
+import { curveFn, type PlanInput, runPlan } from '../../shared/engine/plan/run-plan';
+import { SegmentWalker, surfaceSetsOf } from '../../shared/engine/plan/strategies';
 import { PlanResultSchema } from '../../shared/schemas/plan-result';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
@@ -110,18 +112,46 @@ describe('plan settings reach the result', () => {
     expect(r.solution.totalBenefit).not.toBeCloseTo(plain.r.solution.totalBenefit, 0);
   });
 
+  /** Arterials at PCI 25 or less (the Broken up band) in the plan's last year: each segment's works replayed. */
+  function arterialsFailedAtEnd(input: PlanInput, r: ReturnType<typeof runPlan>) {
+    const H = input.settings.budgets.length;
+    const ct = new CurveTable(curveFn(input));
+    const sets = surfaceSetsOf(input.treatments);
+    const path = new Float64Array(H + 1);
+    const out: string[] = [];
+    for (const s of input.segments) {
+      if (!s.functionalClass.includes('arterial')) continue;
+      const works = r.work
+        .filter((w) => w.ref === s.ref)
+        .map((w) => ({ treatment: input.treatments.findIndex((x) => x.name === w.treatment), year: w.year }))
+        .sort((a, b) => a.year - b.year);
+      const wk = new SegmentWalker(ct, s, input.treatments, sets, input.settings, H);
+      wk.trace(null, works, path, 0, new Int32Array(works.length * 2 + 2), new Uint8Array(works.length + 1));
+      if (path[H - 1] <= 25) out.push(`${s.segmentId} ${path[H - 1].toFixed(1)}`);
+    }
+    return out;
+  }
+
   it('the demo plan over ten years mixes crack seals, chip seals, thin overlays and mill-and-overlays', async () => {
-    const { r } = await run({ horizonYears: 10, annualBudget: 5_000_000 });
+    const shown: Record<string, Awaited<ReturnType<typeof run>>> = {};
+    for (const annualBudget of [2_400_000, 5_000_000]) {
+      const x = await run({ horizonYears: 10, annualBudget });
+      shown[annualBudget] = x;
+      const counts: Record<string, number> = {};
+      for (const w of x.r.work) counts[w.treatment] = (counts[w.treatment] ?? 0) + 1;
+      console.log(`demo plan, $${annualBudget / 1e6}M a year for 10 years:`, counts, {
+        startPci: x.r.summary.startPci.toFixed(1),
+        finalPci: x.r.summary.finalPci.toFixed(1),
+        finalPciDoNothing: x.r.summary.finalPciDoNothing.toFixed(1),
+        failedLaneMiles: [x.r.summary.failedLaneMilesStart.toFixed(1), x.r.summary.failedLaneMilesEnd.toFixed(1)],
+        segmentsTreated: x.r.summary.segmentsTreated,
+        workItems: x.r.summary.workItems,
+        arterialsFailedAtEnd: arterialsFailedAtEnd(x.input, x.r),
+      });
+    }
+    const { r } = shown[5_000_000];
     const counts: Record<string, number> = {};
     for (const w of r.work) counts[w.treatment] = (counts[w.treatment] ?? 0) + 1;
-    console.log('demo plan, $5M a year for 10 years:', counts, {
-      startPci: r.summary.startPci.toFixed(1),
-      finalPci: r.summary.finalPci.toFixed(1),
-      finalPciDoNothing: r.summary.finalPciDoNothing.toFixed(1),
-      failedLaneMiles: [r.summary.failedLaneMilesStart.toFixed(1), r.summary.failedLaneMilesEnd.toFixed(1)],
-      segmentsTreated: r.summary.segmentsTreated,
-      workItems: r.summary.workItems,
-    });
     for (const k of ['Crack seal', 'Chip seal', 'Thin overlay', 'Mill and overlay (2 in)'])
       expect(counts[k], k).toBeGreaterThan(0);
     expect(r.summary.workItems).toBeGreaterThan(r.summary.segmentsTreated);

@@ -105,13 +105,15 @@ describe('plan condition model', () => {
     expect(Array.from(below.meta.actYear)).not.toContain(0);
   });
 
-  it('a gain that does not reset age shifts the curve up by the gain and decays with it', () => {
+  it('a gain that does not reset age shifts the curve up by the gain, fading to none at the end of its life', () => {
     const curve = { p0: 100, a: 0.75, b: 1.45 };
     const crack = treatment({ id: 'crack', effect: { type: 'gain', value: 5, resetsAge: false }, lifeYears: 3 });
     const w = walker(seg({ pci: 80 }), [crack], () => curve, settings(), 5);
     const p = pathOf(w, [{ treatment: 0, year: 0 }]);
     expect(p[0]).toBe(85);
-    for (let k = 1; k <= 5; k++) expect(p[k]).toBeCloseTo(w.none[k] + 5, 9);
+    // Life 3: 5, 3⅓, 1⅔ and 0 points above do-nothing in years 0 … 3, none after (fadeFactor).
+    for (let k = 1; k <= 5; k++) expect(p[k]).toBeCloseTo(w.none[k] + 5 * Math.max(0, 1 - k / 3), 9);
+    expect(p[4]).toBeCloseTo(w.none[4], 12);
     // Not the reading "counts as new at 85": that would be the curve restarted at PCI 85.
     expect(Math.abs(p[3] - pciAt(curve, ageAt(curve, 85) + 3))).toBeGreaterThan(0.5);
   });
@@ -162,10 +164,7 @@ describe('plan condition model', () => {
 
 describe('plan benefit and life-cycle cost', () => {
   // Hand-worked: linear curve 5 points a year, PCI 60, a reset to 100 with a 9-year life (100 → 55 in
-  // 9 years at 5 a year: speed 1). Horizon 2 years, tail 3: window years 0 … 5.
-  // Do-nothing: 60 55 50 45 40 35.
-  // Work in year 0: 100 95 90 85 80 75 → 40 above do-nothing in every year: 5 steps × 40 = 200.
-  // Work in year 1: 60 | 100 95 90 85 80 → step [0,1] ends before the work (55 vs 55: 0), then 4 × 45 = 180.
+  // 9 years at 5 a year: speed 1). Horizon 2 years, tail 3, rate 4 %: window years 0 … 5.
   const t = treatment({ id: 'overlay' });
   const st = settings();
   const g = generateStrategies([seg()], [t], () => linear(5), st);
@@ -174,13 +173,63 @@ describe('plan benefit and life-cycle cost', () => {
     return -1;
   };
 
-  it('does not reward deferral: the same work a year later, at the same cost, scores less (one common window)', () => {
-    const o0 = byYear(0);
-    const o1 = byYear(1);
-    expect(g.inst.cost[o0 * 2]).toBe(10_000);
-    expect(g.inst.cost[o1 * 2 + 1]).toBe(10_000);
-    expect(g.inst.benefit[o0]).toBeCloseTo(200, 9);
-    expect(g.inst.benefit[o1]).toBeCloseTo(180, 9);
+  it('does not reward deferral at the default settings: the same thin overlay a year later, same cost, scores less', () => {
+    // Default window tail (10 years) and the demo agency's real discount rate (2 %): the settings
+    // leave both unset. Linear curve, 5 points a year; PCI 60; a thin overlay sets PCI 95, life 8
+    // (95 → 55 in 8 years at 5 a year: speed 1). Horizon 2: window years 0 … 12.
+    // Do-nothing: 60 55 50 … 0.
+    // Year 0: path 95 90 … 60 55 50 …, counted at no less than 60 (the renewal credit): gains over
+    //   do-nothing 35 (years 0–7), 40 45 50 55 60 (years 8–12).
+    // Year 1: 60 | 95 90 … 55 50 …, counted at no less than 55: gains 0 at the end of step [0, 1]
+    //   (the PCI before the work), then 40 (years 1–9), 45 50 55 (years 10–12).
+    // Trapezoids, undiscounted: 245 + 37.5 + 42.5 + 47.5 + 52.5 + 57.5 = 482.5 against 320 + 42.5 +
+    // 47.5 + 52.5 = 462.5. Discounted, step t at P/F(2 %, t − ½) (engineering-economy interest
+    // tables: 0.990148, 0.970733, …, 0.796339): 424.80 against 405.73 present PCI-years.
+    const thin = treatment({
+      id: 'thin',
+      kind: 'thin_overlay',
+      lifeYears: 8,
+      effect: { type: 'reset', value: 95, resetsAge: true },
+      applicability: { pciMin: 45, pciMax: 75, surfaces: ['asphalt'], classes: ['local'], minYearsSinceLast: 50 },
+    });
+    const dflt: PlanSettings = { startYear: 2027, budgets: [1e9, 1e9], weighting: 'lane-miles', needsWorkBelow: 70 };
+    const d = generateStrategies([seg()], [thin], () => linear(5), dflt);
+    expect(d.meta.W).toBe(12);
+    const at = (y: number) => {
+      for (let o = 0; o < d.inst.segStart[1]; o++) if (d.meta.actYear[d.meta.actStart[o]] === y) return o;
+      return -1;
+    };
+    const o0 = at(0);
+    const o1 = at(1);
+    expect(d.inst.cost[o0 * 2]).toBe(10_000);
+    expect(d.inst.cost[o1 * 2 + 1]).toBe(10_000);
+    expect(d.inst.benefit[o0]).toBeCloseTo(424.8017, 3);
+    expect(d.inst.benefit[o1]).toBeCloseTo(405.7345, 3);
+    // Without discounting (rate 0) the same window gives the undiscounted figures.
+    const u = generateStrategies([seg()], [thin], () => linear(5), { ...dflt, discountRate: 0 });
+    expect(u.inst.benefit[o0]).toBeCloseTo(482.5, 9);
+    expect(u.inst.benefit[o1]).toBeCloseTo(462.5, 9);
+  });
+
+  it('later never scores more for one reset treatment, at any year, tail and rate (the derived condition)', () => {
+    const curve = { p0: 100, a: 0.75, b: 1.45 }; // the demo's asphalt default curve
+    const thin = treatment({ id: 'thin', lifeYears: 6, effect: { type: 'reset', value: 95, resetsAge: true } });
+    for (const tail of [0, 3, 10, 20])
+      for (const discountRate of [0, 0.02, 0.07])
+        for (const pci of [45, 60, 75, 90]) {
+          const d = generateStrategies(
+            [seg({ pci })],
+            [thin],
+            () => curve,
+            settings({ budgets: new Array(10).fill(1e9), benefitTailYears: tail, discountRate }),
+          );
+          const b = new Array(10).fill(Number.NaN);
+          for (let o = 0; o < d.inst.segStart[1]; o++)
+            if (d.meta.actStart[o + 1] - d.meta.actStart[o] === 1)
+              b[d.meta.actYear[d.meta.actStart[o]]] = d.inst.benefit[o];
+          for (let y = 0; y < 9; y++)
+            expect(b[y + 1], `tail ${tail} rate ${discountRate} PCI ${pci} year ${y}`).toBeLessThanOrEqual(b[y] + 1e-9);
+        }
   });
 
   it("gives each strategy its PV, EUAC and remaining-life credit by FHWA-SA-98-079's method", () => {

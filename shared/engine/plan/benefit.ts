@@ -15,17 +15,36 @@ export function segmentWeight(s: PlanSegment, weighting: PlanSettings['weighting
 }
 
 /**
- * Area between a path and do-nothing's over the common window, years 0 … W, by trapezoids
- * (one-year steps): Σ_{t<W} ((p_t − d_t) + (p_{t+1} − d_{t+1})) / 2, in PCI-years. Work is done at the
- * start of its year, so the step over [y−1, y] ends at the PCI before year y's work: `jumps` is
- * Σ (after − before) / 2 over the works of years 1 … W, taken off the plain trapezoid sum.
+ * Discount factors of the benefit's one-year steps: disc[t] for the step over [t − 1, t], t = 1 … W,
+ * is P/F at the step's middle, (1 + r)^−(t − ½), at the agency's real discount rate r — the rate of
+ * the life-cycle cost (benefits and costs discounted alike: OMB Circular A-94, FHWA-SA-98-079).
+ * disc[0] is unused (0).
  */
-export function areaBetween(path: ArrayLike<number>, none: ArrayLike<number>, W: number, jumps = 0) {
+export function stepDiscounts(rate: number, W: number) {
+  const d = new Float64Array(W + 1);
+  for (let t = 1; t <= W; t++) d[t] = (1 + rate) ** -(t - 0.5);
+  return d;
+}
+
+/**
+ * Discounted area between a path and do-nothing's over the common window, years 0 … W, by
+ * trapezoids (one-year steps): Σ_{t=1…W} disc[t]·((p_{t−1} − d_{t−1}) + (p_t − d_t)) / 2, in
+ * present PCI-years. Work is done at the start of its year, so the step over [y−1, y] ends at the PCI
+ * before year y's work: `jumps` is Σ disc[y]·(after − before) / 2 over the works of years 1 … W, taken
+ * off the plain trapezoid sum. Without `disc` the steps are not discounted.
+ */
+export function areaBetween(
+  path: ArrayLike<number>,
+  none: ArrayLike<number>,
+  W: number,
+  jumps = 0,
+  disc?: ArrayLike<number>,
+) {
   let area = 0;
   let prev = path[0] - none[0];
   for (let t = 1; t <= W; t++) {
     const cur = path[t] - none[t];
-    area += (prev + cur) / 2;
+    area += ((prev + cur) / 2) * (disc ? disc[t] : 1);
     prev = cur;
   }
   return area - jumps;

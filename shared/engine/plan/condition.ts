@@ -1,11 +1,12 @@
 // The plan's condition model (docs/COMPUTATION.md, The budget plan: condition).
 // A segment's PCI in plan year y is read off its family's deterioration curve:
-//   PCI(y) = min(100, curve(A + s·(y − Y0)) + g)
+//   PCI(y) = min(100, curve(A + s·(y − Y0)) + g + Σ g_k·fadeFactor(y − y_k, L_k))
 // where Y0 is the year the state began (plan start, or the year of the last
 // age-resetting treatment), A the age on the curve then, s a time scale (1 on the
 // family's own curve; after a treatment, the speed that brings the curve to the
-// end-of-life PCI exactly at the treatment's service life) and g a shift (the
-// points a gain that does not reset age added, kept as the curve decays).
+// end-of-life PCI exactly at the treatment's service life), g the excess of a PCI
+// above the curve's top, and g_k the points a gain that does not reset age added in
+// year y_k, fading straight to none at the end of that treatment's life L_k.
 import { classGroup } from '../forecast/families';
 import type { Curve } from '../forecast/curve';
 
@@ -155,7 +156,23 @@ export class CurveTable {
   }
 }
 
-/** A segment's condition state: PCI(y) = min(100, curve(age + speed·(y − origin)) + shift). */
+/**
+ * How much of a gain that does not reset age is left k years after the work: all of it at the work,
+ * none at the end of the treatment's life, straight in between: max(0, 1 − k / life). A planning rule
+ * of Wearcourse (common practice: a seal's benefit is spent within its service life); it replaces the
+ * permanent shift of the first strategy model, which let a crack seal lift the curve for good.
+ */
+export function fadeFactor(k: number, life: number) {
+  if (k <= 0) return 1;
+  if (!(life > 0)) return 0;
+  const f = 1 - k / life;
+  return f > 0 ? f : 0;
+}
+
+/** A gain that does not reset age: its points, its plan year and its treatment's life. */
+export type Fade = { gain: number; year: number; life: number };
+
+/** A segment's condition state: PCI(y) = min(100, curve(age + speed·(y − origin)) + shift + fading gains). */
 export type CondState = {
   curve: number;
   age: number;
@@ -165,10 +182,13 @@ export type CondState = {
   surface: string;
   /** Plan-year index of the last treatment (negative: before the plan; −Infinity: never). */
   lastYear: number;
+  /** Gains that do not reset age, since the last age-resetting work. */
+  fades: Fade[];
 };
 
 export function stateValue(ct: CurveTable, s: CondState, y: number) {
-  const v = ct.pci(s.curve, s.age + s.speed * (y - s.origin)) + s.shift;
+  let v = ct.pci(s.curve, s.age + s.speed * (y - s.origin)) + s.shift;
+  for (const f of s.fades) v += f.gain * fadeFactor(y - f.year, f.life);
   return v > 100 ? 100 : v;
 }
 
@@ -186,6 +206,7 @@ export function initialState(ct: CurveTable, seg: PlanSegment, startYear: number
     origin: 0,
     surface: seg.surface,
     lastYear: seg.lastTreatmentYear === null ? -Infinity : seg.lastTreatmentYear - startYear,
+    fades: [],
   };
 }
 
@@ -199,7 +220,7 @@ export function yearZeroPci(ct: CurveTable, seg: PlanSegment, s0: CondState, sta
  * Age-resetting work moves the road to the family it now belongs to (surface and treatment
  * group), starts at the after-PCI on that curve, and runs the curve at the speed that reaches
  * END_OF_LIFE_PCI at the treatment's life. Work that does not reset age keeps the curve, the
- * age and the speed and adds the points actually gained as a shift.
+ * age and the speed and adds the points actually gained as a fading gain (fadeFactor).
  */
 export function applyTreatment(
   ct: CurveTable,
@@ -213,7 +234,7 @@ export function applyTreatment(
   const after = raw > 100 ? 100 : raw;
   s.lastYear = y;
   if (!t.effect.resetsAge) {
-    s.shift += after - before;
+    if (after > before) s.fades = [...s.fades, { gain: after - before, year: y, life: t.lifeYears }];
     s.surface = surfaceAfter(t, s.surface);
     return after;
   }
@@ -228,6 +249,7 @@ export function applyTreatment(
   s.age = aStart;
   s.speed = speed;
   s.shift = shift;
+  s.fades = [];
   s.origin = y;
   return after;
 }

@@ -4,9 +4,10 @@
 import { CONDITION_BANDS } from '../../condition';
 import type { Curve } from '../forecast/curve';
 import { checkOverlay, conditionFactor, type StructuralCheck } from '../structural';
-import { areaBetween, segmentWeight, strategyLifeCycleCost } from './benefit';
+import { areaBetween, segmentWeight, stepDiscounts, strategyLifeCycleCost } from './benefit';
 import {
   applyTreatment,
+  fadeFactor,
   surfaceAfter,
   type CondState,
   CurveTable,
@@ -75,8 +76,9 @@ const SURFACE_INDEX: Record<string, number> = { asphalt: 0, chip_seal: 1, concre
  * One segment's context for walking strategies (shared by the generator and the simulation). A path
  * is read off a base array — do-nothing's raw curve values, or the raw values of the curve an
  * age-resetting treatment started (cached per treatment and surface) — plus the points that works
- * not resetting age have added since: PCI(y) = min(100, base[y − origin] + extra). This is the
- * condition model of condition.ts (stateValue) tabulated once per segment.
+ * not resetting age have added since, each fading over its treatment's life:
+ * PCI(y) = min(100, base[y − origin] + Σ gain_k·fadeFactor(y − y_k, life_k)). This is the condition
+ * model of condition.ts (stateValue) tabulated once per segment.
  */
 export class SegmentWalker {
   readonly none: Float64Array;
@@ -85,8 +87,18 @@ export class SegmentWalker {
   private noneRaw: Float64Array;
   private classOk: Uint8Array;
   private bases = new Map<number, Float64Array>();
-  /** Σ (after − before) / 2 of the last traced path's works after year 0 (benefit.ts areaBetween). */
+  /** Σ disc[y]·(after − before) / 2 of the last traced path's works after year 0 (benefit.ts areaBetween). */
   jumps = 0;
+  /** The benefit's step discounts at the plan's real discount rate (benefit.ts stepDiscounts). */
+  readonly disc: Float64Array;
+  /**
+   * The last traced path as the benefit counts it: never below the PCI at which its last
+   * age-resetting work was done (the renewal credit, docs/COMPUTATION.md "Benefit").
+   */
+  readonly bpath: Float64Array;
+  private fadeAmt: Float64Array;
+  private fadeAt: Int32Array;
+  private fadeLife: Float64Array;
   private structural: (StructuralCheck | undefined)[] = [];
   private structuralPci: number[] = [];
   private structuralFirst: (StructuralCheck | undefined)[] = [];
@@ -99,6 +111,11 @@ export class SegmentWalker {
     readonly W: number,
   ) {
     this.s0 = initialState(ct, seg, settings.startYear);
+    this.disc = stepDiscounts(settings.discountRate ?? FALLBACK_DISCOUNT_RATE, W);
+    this.bpath = new Float64Array(W + 1);
+    this.fadeAmt = new Float64Array(W + 2);
+    this.fadeAt = new Int32Array(W + 2);
+    this.fadeLife = new Float64Array(W + 2);
     this.noneRaw = new Float64Array(W + 1);
     this.none = new Float64Array(W + 1);
     for (let t = 0; t <= W; t++) {
@@ -199,13 +216,18 @@ export class SegmentWalker {
     const { W, treatments } = this;
     let B = this.noneRaw;
     let origin = 0;
-    let extra = 0;
+    let nFade = 0;
+    const { fadeAmt, fadeAt, fadeLife, disc } = this;
     let surface = this.seg.surface;
     let lastYear = this.s0.lastYear;
     this.jumps = 0;
+    const bpath = this.bpath;
+    let floor = Number.NEGATIVE_INFINITY;
     let n = 0;
     let k = 0;
     for (let y = 0; y <= W; y++) {
+      let extra = 0;
+      for (let f = 0; f < nFade; f++) extra += fadeAmt[f] * fadeFactor(y - fadeAt[f], fadeLife[f]);
       let v = y === 0 && origin === 0 ? this.none[0] + extra : B[y - origin] + extra;
       if (v > 100) v = 100;
       // Works this year: the replay's, or the seed, or a follow-up.
@@ -232,14 +254,21 @@ export class SegmentWalker {
         const before = v;
         const raw = t.effect.type === 'reset' ? t.effect.value : before + t.effect.value;
         const after = raw > 100 ? 100 : raw;
+        const bBefore = before > floor ? before : floor;
         if (t.effect.resetsAge) {
+          floor = before;
           B = this.base(ti, surface, before);
           origin = y;
-          extra = 0;
-        } else extra += after - before;
+          nFade = 0;
+        } else if (after > before) {
+          fadeAmt[nFade] = after - before;
+          fadeAt[nFade] = y;
+          fadeLife[nFade] = t.lifeYears;
+          nFade++;
+        }
         surface = surfaceAfter(t, surface);
         lastYear = y;
-        if (y > 0) this.jumps += (after - before) / 2;
+        if (y > 0) this.jumps += (disc[y] * ((after > floor ? after : floor) - bBefore)) / 2;
         v = after;
         if (n < maxWorks) {
           acts[(at + n) * 2] = ti;
@@ -254,6 +283,7 @@ export class SegmentWalker {
         if (!works) break;
       }
       path[off + y] = v;
+      bpath[y] = v > floor ? v : floor;
     }
     return n;
   }
@@ -353,7 +383,7 @@ export function generateStrategies(
             for (let y = 0; y < H; y++) if (cPath[off + y] < floor - PCI_TOLERANCE) low = true;
             if (low) continue;
           }
-          const b = areaBetween(cPath.subarray(off, off + W + 1), none, W, wk.jumps) * weight;
+          const b = areaBetween(wk.bpath, none, W, wk.jumps, wk.disc) * weight;
           if (!(b > 1e-9)) continue;
           let total = 0;
           for (let k = 0; k < works; k++) total += wk.cost[cActs[n * MAXW * 2 + k * 2]];

@@ -22,7 +22,7 @@ export function TreatmentEffectsCard({ treatments }: { treatments: Treatment[] }
               <td className="text-asphalt-muted">
                 {t.effect.resetsAge
                   ? 'follows the family curve from that PCI'
-                  : 'keeps ageing on the curve, shifted up'}
+                  : 'keeps ageing on the curve; the gain fades to none over its life'}
               </td>
               <td className="num">
                 {t.applicability.pciMin}–{t.applicability.pciMax}
