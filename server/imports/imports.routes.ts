@@ -10,7 +10,8 @@ import {
   SavedMappingSchema,
 } from '../../shared/schemas/imports';
 import type { Deps } from '../deps';
-import type { ApiRoutes } from '../http/api';
+import { type ApiRoutes, sendJsonText } from '../http/api';
+import { sendDownload } from '../http/download';
 import { HttpError } from '../http/errors';
 import * as service from './imports.service';
 import { importTask } from './imports.tasks';
@@ -49,7 +50,7 @@ const uploadOne: RequestHandler = (req, res, next) => {
 
 export function importRoutes(api: ApiRoutes, deps: Deps) {
   const engineer = { kind: 'agency', role: 'engineer' } as const;
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/agencies/:agencyId/imports',
     tag: 'Imports',
@@ -85,10 +86,11 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
         { signal, transfer: [bytes] },
       );
       if (report.importId) deps.listCache?.bump(agency!.id);
-      res.status(status).json(report);
+      res.status(status);
+      return sendJsonText(res, JSON.stringify(report));
     },
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/imports',
     tag: 'Imports',
@@ -98,7 +100,7 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
     response: ImportHistorySchema,
     handler: ({ agency }) => service.history(deps, agency!.id),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/imports/mapping',
     tag: 'Imports',
@@ -109,7 +111,7 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
     response: SavedMappingSchema,
     handler: ({ agency, query }) => service.mappingFor(deps, agency!.id, query.kind),
   });
-  api.add({
+  api.file({
     method: 'get',
     path: '/api/agencies/:agencyId/imports/:importId/rejected.csv',
     tag: 'Imports',
@@ -119,9 +121,7 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
     responseDescription: 'text/csv',
     handler: ({ agency, params, res }) => {
       const f = service.rejectedFile(deps, agency!.id, params.importId);
-      res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-      res.setHeader('Content-Disposition', `attachment; filename="${f.fileName.replace(/"/g, '')}"`);
-      res.send(f.csv);
+      sendDownload(res, f.base.replace(/"/g, ''), 'csv', f.csv);
     },
   });
 }

@@ -154,7 +154,7 @@ export function history(deps: Deps, agencyId: string) {
 export function rejectedFile(deps: Deps, agencyId: string, importId: string) {
   const row = repo.rejectedCsv(deps.db, agencyId, importId);
   if (!row) throw new HttpError(404, 'not_found', 'No such import');
-  return { fileName: `${row.fileName.replace(/\.[^.]+$/, '')}-rejected.csv`, csv: row.csv ?? 'row,reason\n' };
+  return { base: `${row.fileName.replace(/\.[^.]+$/, '')}-rejected`, csv: row.csv ?? 'row,reason\n' };
 }
 
 export function mappingFor(deps: Deps, agencyId: string, kind: 'segments' | 'surveys') {

@@ -3,21 +3,24 @@ import { AgencyParamsSchema, OkSchema } from '../../shared/schemas/common';
 import {
   AnalysisListSchema,
   AnalysisParamsSchema,
+  AnalysisSchema,
   EvaluateBodySchema,
   EvaluateResultSchema,
   SaveAnalysisBodySchema,
+  SavedAnalysisSchema,
   StudyRequestSchema,
 } from '../../shared/schemas/lcca';
 import { RunViewSchema } from '../../shared/schemas/runs';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
+import { sendDownload } from '../http/download';
 import { exportableComparison } from './lcca.export';
 import { comparisonExportTask } from './lcca.tasks';
 import * as service from './lcca.service';
 
 export function lccaRoutes(api: ApiRoutes, deps: Deps) {
   const engineer = { kind: 'agency', role: 'engineer' } as const;
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/lcca/evaluate',
     tag: 'Life-cycle cost',
@@ -28,7 +31,7 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     response: EvaluateResultSchema,
     handler: ({ body }) => service.evaluate(body),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/agencies/:agencyId/analyses/runs',
     tag: 'Life-cycle cost',
@@ -42,7 +45,7 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     heavy: true,
     handler: ({ agency, user, body }) => service.startComparison(deps, agency!.id, user!.id, body),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/agencies/:agencyId/analyses',
     tag: 'Life-cycle cost',
@@ -52,10 +55,10 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     params: AgencyParamsSchema,
     body: SaveAnalysisBodySchema,
     status: 201,
-    response: z.object({ id: z.string() }),
+    response: SavedAnalysisSchema,
     handler: ({ agency, user, body }) => service.saveAnalysis(deps, agency!.id, user!.id, body.name, body.runId),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/analyses',
     tag: 'Life-cycle cost',
@@ -65,16 +68,17 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     response: AnalysisListSchema,
     handler: ({ agency }) => service.listAnalyses(deps, agency!.id),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/analyses/:analysisId',
     tag: 'Life-cycle cost',
     summary: 'A saved comparison: its input snapshot and its result',
     access: engineer,
     params: AnalysisParamsSchema,
+    response: AnalysisSchema,
     handler: ({ agency, params }) => service.getAnalysis(deps, agency!.id, params.analysisId),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/agencies/:agencyId/analyses/:analysisId/rerun',
     tag: 'Life-cycle cost',
@@ -87,7 +91,7 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     heavy: true,
     handler: ({ agency, user, params }) => service.rerunAnalysis(deps, agency!.id, user!.id, params.analysisId),
   });
-  api.add({
+  api.typed({
     method: 'delete',
     path: '/api/agencies/:agencyId/analyses/:analysisId',
     tag: 'Life-cycle cost',
@@ -95,12 +99,9 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     access: engineer,
     params: AnalysisParamsSchema,
     response: OkSchema,
-    handler: ({ agency, user, params }) => {
-      service.deleteAnalysis(deps, agency!.id, user!.id, params.analysisId);
-      return { ok: true };
-    },
+    handler: ({ agency, user, params }) => service.deleteAnalysis(deps, agency!.id, user!.id, params.analysisId),
   });
-  api.add({
+  api.file({
     method: 'get',
     path: '/api/agencies/:agencyId/analyses/:analysisId/export',
     tag: 'Life-cycle cost',
@@ -124,16 +125,7 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
         { userId: user!.id, agencyId: agency!.id },
         { signal },
       );
-      if (query.format === 'xlsx') {
-        res.setHeader('Content-Type', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
-        res.setHeader('Content-Disposition', `attachment; filename="${base}.xlsx"`);
-        const bytes = file as Uint8Array;
-        res.send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
-      } else {
-        res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-        res.setHeader('Content-Disposition', `attachment; filename="${base}.csv"`);
-        res.send(file as string);
-      }
+      sendDownload(res, base, query.format, file);
     },
   });
 }

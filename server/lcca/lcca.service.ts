@@ -233,4 +233,5 @@ export function deleteAnalysis(deps: Deps, agencyId: string, userId: string, id:
     runs.deleteForSubject(tx, agencyId, id);
     recordAudit(tx, { agencyId, userId, action: 'analysis.delete', entity: 'analysis', entityId: id });
   });
+  return { ok: true as const };
 }

@@ -5,7 +5,7 @@ import type {
   SegmentListResponse,
   SegmentUpdate,
 } from '../../shared/schemas/segments';
-import { agencyById } from '../agencies/agencies.repo';
+import { agencyById } from '../agencies/agencies.service';
 import { recordAudit } from '../audit';
 import type { Db } from '../db/client';
 import type { Deps } from '../deps';
@@ -50,7 +50,7 @@ export function districtList(deps: Deps, agencyId: string) {
 }
 
 export function networkSummary(deps: Deps, agencyId: string): NetworkSummary {
-  const agency = agencyById(deps.db, agencyId)!;
+  const agency = agencyById(deps, agencyId)!;
   const rows = networkStats(deps.db, agencyId);
   let miles = 0;
   let lm = 0;

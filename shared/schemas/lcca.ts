@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { EconomicsSchema, MixSchema, TreatmentSchema } from './catalog';
 import { FunctionalClassSchema } from './segments';
+import type { StudyResult } from '../engine/lcca/study';
 
 // ---- The stateless evaluation (POST /api/lcca/evaluate) -------------------
 
@@ -221,4 +222,23 @@ export const AnalysisListSchema = z.object({
       laneMiles: z.number(),
     }),
   ),
+});
+
+export const SavedAnalysisSchema = z.object({ id: z.string() });
+
+/** A saved comparison: its input snapshot and, once run, its result (shared/engine/lcca/study.ts). */
+export const AnalysisSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  input: StudyInputSchema,
+  // The result's type comes from the engine; the document describes it as an object.
+  result: z
+    .custom<StudyResult>()
+    .meta({
+      type: 'object',
+      description: 'null until run: per alternative the costs, EUAC, cash flows, the risk run and the cautions',
+    })
+    .nullable(),
 });
