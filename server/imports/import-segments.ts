@@ -3,7 +3,6 @@
 import type { ImportIssue, ImportOptions, ImportReport } from '../../shared/schemas/imports';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
-import { imports } from '../db/schema';
 import {
   fitVertices,
   geometryProblem,
@@ -199,22 +198,17 @@ export async function importSegments(
           else write.latestPci(id, s.pci);
         }
       }
-      tx.insert(imports)
-        .values({
-          id: importId,
-          agencyId,
-          userId,
-          fileName: fileName.slice(0, 200),
-          kind: 'segments',
-          format: table.format,
-          mode: opts.mode,
-          added: report.added,
-          updated: report.updated,
-          unchanged: report.unchanged,
-          rejected: report.rejected,
-          rejectedCsv,
-        })
-        .run();
+      repo.insertImport(tx, {
+        id: importId,
+        agencyId,
+        userId,
+        fileName,
+        kind: 'segments',
+        format: table.format,
+        mode: opts.mode,
+        report,
+        rejectedCsv,
+      });
       if (opts.saveMapping) {
         repo.saveMapping(tx, agencyId, 'segments', mapping);
         if (Object.keys(read.values).length) repo.saveMapping(tx, agencyId, 'segments-values', read.values);

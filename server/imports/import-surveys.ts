@@ -3,7 +3,6 @@
 import type { ImportIssue, ImportOptions, ImportReport } from '../../shared/schemas/imports';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
-import { imports } from '../db/schema';
 import { type ImportDeps, type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
 import * as repo from './imports.repo';
 import { normalizeSurveyRow, type ReadOptions, type SurveyInput } from './normalize';
@@ -90,22 +89,17 @@ export async function importSurveys(
   try {
     deps.db.transaction((tx) => {
       staged.commit(agencyId);
-      tx.insert(imports)
-        .values({
-          id: importId,
-          agencyId,
-          userId,
-          fileName: fileName.slice(0, 200),
-          kind: 'surveys',
-          format: table.format,
-          mode: opts.mode,
-          added: report.added,
-          updated: report.updated,
-          unchanged: report.unchanged,
-          rejected: report.rejected,
-          rejectedCsv,
-        })
-        .run();
+      repo.insertImport(tx, {
+        id: importId,
+        agencyId,
+        userId,
+        fileName,
+        kind: 'surveys',
+        format: table.format,
+        mode: opts.mode,
+        report,
+        rejectedCsv,
+      });
       if (opts.saveMapping) repo.saveMapping(tx, agencyId, 'surveys', mapping);
       recordAudit(tx, {
         agencyId,

@@ -2,6 +2,7 @@ import { and, desc, eq } from 'drizzle-orm';
 import type { Statement } from 'better-sqlite3';
 import type { Db, Sqlite } from '../db/client';
 import { importMappings, imports, segments, surveys, users } from '../db/schema';
+import { FIELD_OF } from './segment-changes';
 
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
@@ -62,6 +63,26 @@ export function importHistory(db: Db, agencyId: string) {
     .all();
 }
 
+/** The import's history row, with its counts and the rejected rows as CSV. */
+export function insertImport(
+  tx: Tx,
+  row: Omit<typeof imports.$inferInsert, 'added' | 'updated' | 'unchanged' | 'rejected'> & {
+    report: { added: number; updated: number; unchanged: number; rejected: number };
+  },
+) {
+  const { report, ...rest } = row;
+  tx.insert(imports)
+    .values({
+      ...rest,
+      fileName: rest.fileName.slice(0, 200),
+      added: report.added,
+      updated: report.updated,
+      unchanged: report.unchanged,
+      rejected: report.rejected,
+    })
+    .run();
+}
+
 export function rejectedCsv(db: Db, agencyId: string, importId: string) {
   return db
     .select({ csv: imports.rejectedCsv, fileName: imports.fileName })
@@ -70,23 +91,7 @@ export function rejectedCsv(db: Db, agencyId: string, importId: string) {
     .get();
 }
 
-const COLUMN: Record<string, string> = {
-  roadName: 'road_name',
-  fromDesc: 'from_desc',
-  toDesc: 'to_desc',
-  lengthMi: 'length_mi',
-  widthFt: 'width_ft',
-  lanes: 'lanes',
-  functionalClass: 'functional_class',
-  surface: 'surface',
-  adt: 'adt',
-  truckPct: 'truck_pct',
-  lastTreatment: 'last_treatment',
-  lastTreatmentYear: 'last_treatment_year',
-  district: 'district',
-  notes: 'notes',
-  geometry: 'geometry',
-};
+const COLUMN = FIELD_OF;
 
 /**
  * Prepared statements for the import's write loop: tens of thousands of rows

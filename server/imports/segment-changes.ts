@@ -28,7 +28,8 @@ const OPTIONAL: [string, keyof SegmentInput][] = [
   ['notes', 'notes'],
 ];
 
-const FIELD_OF: Record<string, keyof typeof FIELD_LABELS> = {
+/** The segment's column names (snake_case, as in the table and the import's fields) by property. */
+export const FIELD_OF: Record<string, keyof typeof FIELD_LABELS> = {
   roadName: 'road_name',
   fromDesc: 'from_desc',
   toDesc: 'to_desc',

@@ -17,6 +17,7 @@ import {
   type SegmentFilter,
   type SegmentRow,
   segmentById,
+  segmentsByRefs as segmentRowsByRefs,
   segmentsGeoJson,
   surveysOf,
   toSegment,
@@ -89,6 +90,10 @@ export const segmentRowIn = (tx: Pick<Db, 'select'>, agencyId: string, segmentRe
   segmentById(tx, agencyId, segmentRef);
 
 /** Sets columns of the segment the history keeps current (latest PCI, last treatment). */
+/** The agency's segments among `segmentRefs` (a comparison's group). */
+export const segmentsByRefs = (deps: Pick<Deps, 'db'>, agencyId: string, segmentRefs: number[]) =>
+  segmentRowsByRefs(deps.db, agencyId, segmentRefs);
+
 export const touchSegment = (
   tx: Pick<Db, 'update'>,
   agencyId: string,

@@ -1,24 +1,24 @@
 import { z } from 'zod';
 import { AgencyParamsSchema, OkSchema } from '../../shared/schemas/common';
 import {
-  AnalysisListSchema,
-  AnalysisParamsSchema,
-  AnalysisSchema,
+  ComparisonListSchema,
+  ComparisonParamsSchema,
+  ComparisonSchema,
   EvaluateBodySchema,
   EvaluateResultSchema,
-  SaveAnalysisBodySchema,
-  SavedAnalysisSchema,
-  StudyRequestSchema,
-} from '../../shared/schemas/lcca';
+  SaveComparisonBodySchema,
+  SavedComparisonSchema,
+  ComparisonRequestSchema,
+} from '../../shared/schemas/comparisons';
 import { RunViewSchema } from '../../shared/schemas/runs';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
 import { sendDownload } from '../http/download';
-import { exportableComparison } from './lcca.export';
-import { comparisonExportTask } from './lcca.tasks';
-import * as service from './lcca.service';
+import { exportableComparison } from './comparisons.export';
+import { comparisonExportTask } from './comparisons.tasks';
+import * as service from './comparisons.service';
 
-export function lccaRoutes(api: ApiRoutes, deps: Deps) {
+export function comparisonRoutes(api: ApiRoutes, deps: Deps) {
   const engineer = { kind: 'agency', role: 'engineer' } as const;
   api.typed({
     method: 'post',
@@ -39,7 +39,7 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
       'Start a comparison of 2–6 catalog-based alternatives on a group of segments (or a typed-in section); runs off the request thread with Monte Carlo. Answers 202 with the run to poll at /api/agencies/{agencyId}/runs/{runId}.',
     access: engineer,
     params: AgencyParamsSchema,
-    body: StudyRequestSchema,
+    body: ComparisonRequestSchema,
     response: RunViewSchema,
     status: 202,
     heavy: true,
@@ -53,10 +53,10 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
       'Save a finished run with the snapshot of every input (catalog prices, economics, quantities), so that it reproduces exactly',
     access: engineer,
     params: AgencyParamsSchema,
-    body: SaveAnalysisBodySchema,
+    body: SaveComparisonBodySchema,
     status: 201,
-    response: SavedAnalysisSchema,
-    handler: ({ agency, user, body }) => service.saveAnalysis(deps, agency!.id, user!.id, body.name, body.runId),
+    response: SavedComparisonSchema,
+    handler: ({ agency, user, body }) => service.saveComparison(deps, agency!.id, user!.id, body.name, body.runId),
   });
   api.typed({
     method: 'get',
@@ -65,8 +65,8 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     summary: 'Saved comparisons',
     access: engineer,
     params: AgencyParamsSchema,
-    response: AnalysisListSchema,
-    handler: ({ agency }) => service.listAnalyses(deps, agency!.id),
+    response: ComparisonListSchema,
+    handler: ({ agency }) => service.listComparisons(deps, agency!.id),
   });
   api.typed({
     method: 'get',
@@ -74,9 +74,9 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     tag: 'Life-cycle cost',
     summary: 'A saved comparison: its input snapshot and its result',
     access: engineer,
-    params: AnalysisParamsSchema,
-    response: AnalysisSchema,
-    handler: ({ agency, params }) => service.getAnalysis(deps, agency!.id, params.analysisId),
+    params: ComparisonParamsSchema,
+    response: ComparisonSchema,
+    handler: ({ agency, params }) => service.getComparison(deps, agency!.id, params.analysisId),
   });
   api.typed({
     method: 'post',
@@ -85,11 +85,11 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     summary:
       'Run a saved comparison again from its own snapshot (its own prices); answers 202 with the run to poll, and the saved result is replaced when it finishes',
     access: engineer,
-    params: AnalysisParamsSchema,
+    params: ComparisonParamsSchema,
     response: RunViewSchema,
     status: 202,
     heavy: true,
-    handler: ({ agency, user, params }) => service.rerunAnalysis(deps, agency!.id, user!.id, params.analysisId),
+    handler: ({ agency, user, params }) => service.rerunComparison(deps, agency!.id, user!.id, params.analysisId),
   });
   api.typed({
     method: 'delete',
@@ -97,9 +97,9 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     tag: 'Life-cycle cost',
     summary: 'Delete a saved comparison',
     access: engineer,
-    params: AnalysisParamsSchema,
+    params: ComparisonParamsSchema,
     response: OkSchema,
-    handler: ({ agency, user, params }) => service.deleteAnalysis(deps, agency!.id, user!.id, params.analysisId),
+    handler: ({ agency, user, params }) => service.deleteComparison(deps, agency!.id, user!.id, params.analysisId),
   });
   api.file({
     method: 'get',
@@ -107,7 +107,7 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     tag: 'Life-cycle cost',
     summary: 'A saved comparison as CSV (results) or XLSX (results, cash flows, cost lines)',
     access: engineer,
-    params: AnalysisParamsSchema,
+    params: ComparisonParamsSchema,
     query: z.object({ format: z.enum(['csv', 'xlsx']).default('csv') }),
     responseDescription: 'text/csv or an XLSX workbook',
     heavy: true,
