@@ -3,6 +3,7 @@ import ExcelJS from 'exceljs';
 import type { ComparisonResult } from '../../shared/engine/lcca/comparison';
 import { toCsv } from '../csv';
 import type { Db } from '../db/client';
+import { fileSlug } from '../http/download';
 import { HttpError, notFound } from '../http/errors';
 import * as repo from './comparisons.repo';
 
@@ -14,7 +15,7 @@ export function exportableComparison(db: Db, agencyId: string, analysisId: strin
   const row = repo.exportable(db, agencyId, analysisId);
   if (!row) throw notFound('No such analysis');
   if (!row.hasResult) throw new HttpError(409, 'no_result', 'This comparison has no result yet; run it first');
-  return { name: row.name };
+  return { name: row.name, base: fileSlug(row.name).slice(0, 60) || 'comparison' };
 }
 
 /** The export itself, in a worker: the stored result is read, parsed and written out there. */

@@ -113,12 +113,7 @@ export function comparisonRoutes(api: ApiRoutes, deps: Deps) {
     heavy: true,
     handler: async ({ agency, user, params, query, res, signal }) => {
       // Cheap checks first (exists, has a result), so a 404 or 409 takes no slot; the file is built in a worker.
-      const a = exportableComparison(deps.db, agency!.id, params.analysisId);
-      const base =
-        a.name
-          .toLowerCase()
-          .replace(/[^a-z0-9]+/g, '-')
-          .slice(0, 60) || 'comparison';
+      const { base } = exportableComparison(deps.db, agency!.id, params.analysisId);
       const file = await deps.pool.run(
         comparisonExportTask,
         { agencyId: agency!.id, analysisId: params.analysisId, format: query.format },

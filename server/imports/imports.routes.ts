@@ -70,13 +70,7 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
           'Invalid request: file — attach the file in the multipart field "file"',
           [{ path: 'file', message: 'is required' }],
         );
-      // Path tricks in a client's file name are cut to the bare name; it is only ever a label.
-      const name =
-        req.file.originalname
-          .split(/[\\/]/)
-          .pop()!
-          .replace(/[^\w.\- ()]/g, '_')
-          .slice(0, 200) || 'upload';
+      const name = service.uploadName(req.file.originalname);
       // Reading, checking and writing run in a worker; the upload's bytes move there (not copied).
       const bytes = req.file.buffer;
       const { status, report } = await deps.pool.run(

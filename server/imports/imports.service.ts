@@ -151,6 +151,17 @@ export function history(deps: Deps, agencyId: string) {
   return { items: repo.importHistory(deps.db, agencyId) };
 }
 
+/** Path tricks in a client's file name are cut to the bare name; it is only ever a label. */
+export function uploadName(originalName: string) {
+  return (
+    originalName
+      .split(/[\\/]/)
+      .pop()!
+      .replace(/[^\w.\- ()]/g, '_')
+      .slice(0, 200) || 'upload'
+  );
+}
+
 export function rejectedFile(deps: Deps, agencyId: string, importId: string) {
   const row = repo.rejectedCsv(deps.db, agencyId, importId);
   if (!row) throw new HttpError(404, 'not_found', 'No such import');
