@@ -1,6 +1,5 @@
 import type { RequestHandler } from 'express';
 import rateLimit from 'express-rate-limit';
-import multer from 'multer';
 import { z } from 'zod';
 import { AgencyViewSchema, RestoreReportSchema } from '../../shared/schemas/agency';
 import { AgencyParamsSchema } from '../../shared/schemas/common';
@@ -8,16 +7,13 @@ import type { Deps } from '../deps';
 import type { ApiRoutes, SessionUser } from '../http/api';
 import { fileSlug, sendDownload } from '../http/download';
 import { HttpError } from '../http/errors';
+import { singleFileUpload } from '../http/upload';
 import { isAdminOfAny } from '../members/members.service';
 import * as service from './agencies.service';
 import { agencyExportTask, agencyRestoreTask } from './agencies.tasks';
 import { AgencyNameSchema } from './archive-schemas';
 
 export const MAX_ARCHIVE_UPLOAD_BYTES = 200 * 1024 * 1024;
-const archiveUpload = multer({
-  storage: multer.memoryStorage(),
-  limits: { fileSize: MAX_ARCHIVE_UPLOAD_BYTES, files: 1, fields: 4, parts: 6 },
-}).single('file');
 
 const AgencySettingsSchema = z.object({ name: AgencyNameSchema, units: z.enum(['us', 'metric']) });
 
@@ -109,22 +105,7 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
             },
           }),
       }),
-      (req, res, next) => {
-        if (!req.is('multipart/form-data'))
-          return next(
-            new HttpError(
-              415,
-              'unsupported_media_type',
-              'Send the archive as multipart/form-data with the field "file"',
-            ),
-          );
-        archiveUpload(req, res, (err: unknown) => {
-          if (!err) return next();
-          if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE')
-            return next(new HttpError(413, 'file_too_large', 'The archive is larger than the 200 MB limit'));
-          next(new HttpError(400, 'bad_upload', `Upload refused: ${(err as Error).message}`));
-        });
-      },
+      singleFileUpload({ what: 'archive', maxBytes: MAX_ARCHIVE_UPLOAD_BYTES, limits: { fields: 4, parts: 6 } }),
     ],
     heavy: true,
     handler: async ({ user, body, req, signal }) => {

@@ -1,5 +1,3 @@
-import type { RequestHandler } from 'express';
-import multer from 'multer';
 import { z } from 'zod';
 import { AgencyParamsSchema } from '../../shared/schemas/common';
 import {
@@ -13,42 +11,20 @@ import type { Deps } from '../deps';
 import { type ApiRoutes, sendJsonText } from '../http/api';
 import { sendDownload } from '../http/download';
 import { HttpError } from '../http/errors';
+import { singleFileUpload } from '../http/upload';
 import * as service from './imports.service';
 import { importTask } from './imports.tasks';
 
 export const MAX_UPLOAD_BYTES = 25 * 1024 * 1024;
 
-const upload = multer({
-  storage: multer.memoryStorage(),
-  limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 12, fieldSize: 64 * 1024, parts: 16 },
-}).single('file');
-
-// multer's own errors become our clear 4xx answers.
-const uploadOne: RequestHandler = (req, res, next) => {
-  if (!req.is('multipart/form-data')) {
-    next(new HttpError(415, 'unsupported_media_type', 'Send the file as multipart/form-data with the field "file"'));
-    return;
-  }
-  upload(req, res, (err: unknown) => {
-    if (!err) return next();
-    if (err instanceof multer.MulterError) {
-      if (err.code === 'LIMIT_FILE_SIZE')
-        return next(
-          new HttpError(
-            413,
-            'file_too_large',
-            `The file is larger than the ${MAX_UPLOAD_BYTES / 1024 / 1024} MB limit`,
-          ),
-        );
-      return next(
-        new HttpError(400, 'bad_upload', `Upload refused: ${err.message}${err.field ? ` (${err.field})` : ''}`),
-      );
-    }
-    next(new HttpError(400, 'bad_upload', 'The upload could not be read as multipart/form-data'));
-  });
-};
-
 export function importRoutes(api: ApiRoutes, deps: Deps) {
+  const uploadOne = singleFileUpload({
+    what: 'file',
+    maxBytes: MAX_UPLOAD_BYTES,
+    limits: { fields: 12, fieldSize: 64 * 1024, parts: 16 },
+    nameField: true,
+    unreadable: 'The upload could not be read as multipart/form-data',
+  });
   const engineer = { kind: 'agency', role: 'engineer' } as const;
   api.typed({
     method: 'post',
