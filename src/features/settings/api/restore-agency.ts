@@ -1,6 +1,6 @@
+// An agency export restored into a new agency: a multipart upload, so fetch rather than api().
 import type { RestoreReport } from '@shared/schemas/agency';
 import type { ErrorBody } from '@shared/schemas/common';
-// An agency export restored into a new agency: a multipart upload, so fetch rather than api().
 /** The restore's report when it worked (RestoreReportSchema), the error body when not. */
 export type RestoreAnswer = Partial<RestoreReport> & Partial<ErrorBody>;
 
