@@ -179,7 +179,7 @@ export async function importSegments(
       for (const p of planned) {
         if (p.kind !== 'update') continue;
         const s = p.a.seg;
-        const id = p.id!;
+        const segmentRef = p.segmentRef!;
         const old = existing.get(s.segmentId) as Record<string, unknown>;
         const changed = Object.fromEntries(
           p.changed.map((k) => [
@@ -187,15 +187,15 @@ export async function importSegments(
             k === 'geometry' ? { before: '(geometry)', after: '(geometry)' } : { before: old[k], after: p.patch[k] },
           ]),
         );
-        write.update(id, p.patch, now);
+        write.update(segmentRef, p.patch, now);
         write.audit(userId, 'segment.import.update', s.segmentId, {
           importId,
           changed,
           pci: s.pci !== null && s.pciDate ? { date: s.pciDate, pci: s.pci } : undefined,
         });
         if (s.pci !== null) {
-          if (s.pciDate) write.survey(id, s.pciDate, s.pci, source);
-          else write.latestPci(id, s.pci);
+          if (s.pciDate) write.survey(segmentRef, s.pciDate, s.pci, source);
+          else write.latestPci(segmentRef, s.pci);
         }
       }
       repo.insertImport(tx, {

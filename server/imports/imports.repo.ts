@@ -128,14 +128,14 @@ export function segmentWriter(sqlite: Sqlite, agencyId: string) {
       );
       return Number(s.run(agencyId, segmentId, ...keys.map((k) => patch[k] ?? null)).lastInsertRowid);
     },
-    update(id: number, patch: Record<string, unknown>, at: string) {
+    update(segmentRef: number, patch: Record<string, unknown>, at: string) {
       const keys = Object.keys(patch).sort();
       const s = stmt(
         `u:${keys.join(',')}`,
         () =>
           `UPDATE segments SET ${keys.map((k) => `${COLUMN[k]} = ?`).join(', ')}, updated_at = ? WHERE id = ? AND agency_id = ?`,
       );
-      s.run(...keys.map((k) => patch[k] ?? null), at, id, agencyId);
+      s.run(...keys.map((k) => patch[k] ?? null), at, segmentRef, agencyId);
     },
     survey(segmentRef: number, surveyDate: string, pci: number, source: string | null) {
       surveyUpsert.run(agencyId, segmentRef, surveyDate, pci, source);
