@@ -1,5 +1,5 @@
 // Saved comparisons (the `analyses` table keeps its name for existing databases and archives).
-import { and, desc, eq, isNotNull, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, isNotNull, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { analyses, users } from '../db/schema';
 
@@ -63,4 +63,9 @@ export function withResult(db: Read, agencyId: string, id: string) {
       .where(and(own(agencyId, id), isNotNull(analyses.result)))
       .get() ?? null
   );
+}
+
+/** Every saved comparison of the agency, by name, for its archive. */
+export function archiveRows(db: Read, agencyId: string) {
+  return db.select().from(analyses).where(eq(analyses.agencyId, agencyId)).orderBy(asc(analyses.name)).all();
 }

@@ -1,4 +1,4 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, asc, desc, eq } from 'drizzle-orm';
 import type { Statement } from 'better-sqlite3';
 import type { Db, Sqlite } from '../db/client';
 import { importMappings, imports, segments, surveys, users } from '../db/schema';
@@ -24,6 +24,16 @@ export function saveMapping(tx: Tx, agencyId: string, kind: string, mapping: unk
       set: { mapping: JSON.stringify(mapping), updatedAt: new Date().toISOString() },
     })
     .run();
+}
+
+/** The agency's saved column mappings, by kind, for its archive. */
+export function archiveMappings(db: Pick<Db, 'select'>, agencyId: string) {
+  return db
+    .select()
+    .from(importMappings)
+    .where(eq(importMappings.agencyId, agencyId))
+    .orderBy(asc(importMappings.kind))
+    .all();
 }
 
 export function existingSegments(db: Db, agencyId: string) {
