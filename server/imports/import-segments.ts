@@ -1,6 +1,6 @@
 // Segments: every row checked (values, geometry, plausibility), compared with the
 // inventory, then — unless a dry run or refused — written in one transaction.
-import type { ImportIssue, ImportOptions, ImportReport } from '../../shared/schemas/imports';
+import type { ImportIssue } from '../../shared/schemas/imports';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
 import {
@@ -13,7 +13,7 @@ import {
   reproject,
   to2d,
 } from './geometry';
-import { type ImportDeps, type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
+import { type ImportContext, type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
 import * as repo from './imports.repo';
 import { normalizeSegmentRow, type ReadOptions, type UnknownValues } from './normalize';
 import { plausibilityWarnings } from './plausibility';
@@ -72,16 +72,11 @@ function lineOf(
 }
 
 export async function importSegments(
-  deps: ImportDeps,
-  agencyId: string,
-  userId: string,
-  fileName: string,
-  table: RawTable,
-  opts: ImportOptions,
-  report: ImportReport,
+  ctx: ImportContext,
   read: ReadOptions,
   proj: string | null,
 ): Promise<ImportResult> {
+  const { deps, agencyId, userId, fileName, table, opts, report } = ctx;
   const { mapping } = report;
   const lengthColumn = mapping.length_mi ?? 'length_mi';
   const errors: ImportIssue[] = [...report.errors];

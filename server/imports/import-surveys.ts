@@ -1,23 +1,14 @@
 // Condition surveys: each row names a segment of the agency, a date and a PCI;
 // written (unless a dry run or refused) in one transaction.
-import type { ImportIssue, ImportOptions, ImportReport } from '../../shared/schemas/imports';
+import type { ImportIssue } from '../../shared/schemas/imports';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
-import { type ImportDeps, type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
+import { type ImportContext, type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
 import * as repo from './imports.repo';
 import { normalizeSurveyRow, type ReadOptions, type SurveyInput } from './normalize';
-import type { RawTable } from './read-file';
 
-export async function importSurveys(
-  deps: ImportDeps,
-  agencyId: string,
-  userId: string,
-  fileName: string,
-  table: RawTable,
-  opts: ImportOptions,
-  report: ImportReport,
-  read: Pick<ReadOptions, 'formats'>,
-): Promise<ImportResult> {
+export async function importSurveys(ctx: ImportContext, read: Pick<ReadOptions, 'formats'>): Promise<ImportResult> {
+  const { deps, agencyId, userId, fileName, table, opts, report } = ctx;
   const { mapping } = report;
   const existing = repo.existingSegments(deps.db, agencyId);
   const known = repo.existingSurveyKeys(deps.db, agencyId);

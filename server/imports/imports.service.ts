@@ -140,11 +140,11 @@ export async function runImport(
   report.dateFormat = formats.dateFormat;
   report.decimalComma = formats.decimalComma;
   report.warnings = [...crs.warnings, ...formats.warnings];
-  if (opts.kind === 'surveys')
-    return importSurveys(deps, agencyId, userId, file.name, table, opts, report, { formats });
+  const ctx = { deps, agencyId, userId, fileName: file.name, table, opts, report };
+  if (opts.kind === 'surveys') return importSurveys(ctx, { formats });
   const values = valueMapFor(repo.savedMapping(deps.db, agencyId, 'segments-values'), opts.values);
   report.valueMap = values;
-  return importSegments(deps, agencyId, userId, file.name, table, opts, report, { units, formats, values }, crs.proj);
+  return importSegments(ctx, { units, formats, values }, crs.proj);
 }
 
 export function history(deps: Deps, agencyId: string) {
