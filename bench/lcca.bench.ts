@@ -7,7 +7,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { npv as fnpv } from 'financial';
 import { evaluateNetwork } from '../shared/engine/lcca/network';
-import { activityCost, expandSchedule, type SchedulePlan } from '../shared/engine/lcca/schedule';
+import { activityCost, expandSchedule, type Schedule } from '../shared/engine/lcca/schedule';
 
 const N_SEG = 50_000;
 const YEARS = 40;
@@ -15,7 +15,7 @@ const RATE = 0.03;
 const r = (perSy: number, perJob = 3500) => ({ perSy, perLaneMile: 0, perJob, addOnFraction: 0.18 });
 const seal = { template: { label: 'crack seal', serviceLifeYears: 3, rates: r(0.4, 0) }, everyYears: 4 };
 // Six alternatives of the kind an engineer compares (rates are the demo scenario's, invented).
-const plans: SchedulePlan[] = [
+const plans: Schedule[] = [
   {
     initial: { label: 'mill and overlay 2 in', serviceLifeYears: 12, rates: r(15.9) },
     rehabilitation: [],

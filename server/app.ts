@@ -14,7 +14,7 @@ import { errorHandler } from './http/errors';
 import { originCheck, securityHeaders } from './http/security';
 import { catalogRoutes } from './catalog/catalog.routes';
 import { importRoutes } from './imports/imports.routes';
-import { lccaRoutes } from './lcca/lcca.routes';
+import { comparisonRoutes } from './comparisons/comparisons.routes';
 import { forecastRoutes } from './forecast/forecast.routes';
 import { planRoutes } from './plans/plans.routes';
 import { auditRoutes } from './audit-log/audit.routes';
@@ -96,7 +96,7 @@ export function createApp(deps: Deps) {
   memberRoutes(routes, deps);
   importRoutes(routes, deps);
   catalogRoutes(routes, deps);
-  lccaRoutes(routes, deps);
+  comparisonRoutes(routes, deps);
   forecastRoutes(routes, deps);
   planRoutes(routes, deps);
   auditRoutes(routes, deps);

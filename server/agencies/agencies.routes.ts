@@ -1,23 +1,19 @@
-import { and, eq } from 'drizzle-orm';
-import rateLimit from 'express-rate-limit';
 import type { RequestHandler } from 'express';
+import rateLimit from 'express-rate-limit';
 import { z } from 'zod';
+import { AgencyViewSchema, RestoreReportSchema } from '../../shared/schemas/agency';
 import { AgencyParamsSchema } from '../../shared/schemas/common';
-import { recordAudit } from '../audit';
 import type { Deps } from '../deps';
-import { agencies, memberships } from '../db/schema';
 import type { ApiRoutes, SessionUser } from '../http/api';
-import multer from 'multer';
+import { fileSlug, sendDownload } from '../http/download';
 import { HttpError } from '../http/errors';
-import { agencyById } from './agencies.repo';
+import { singleFileUpload } from '../http/upload';
+import { isAdminOfAny } from '../members/members.service';
+import * as service from './agencies.service';
 import { agencyExportTask, agencyRestoreTask } from './agencies.tasks';
 import { AgencyNameSchema } from './archive-schemas';
 
 export const MAX_ARCHIVE_UPLOAD_BYTES = 200 * 1024 * 1024;
-const archiveUpload = multer({
-  storage: multer.memoryStorage(),
-  limits: { fileSize: MAX_ARCHIVE_UPLOAD_BYTES, files: 1, fields: 4, parts: 6 },
-}).single('file');
 
 const AgencySettingsSchema = z.object({ name: AgencyNameSchema, units: z.enum(['us', 'metric']) });
 
@@ -29,13 +25,7 @@ const AgencySettingsSchema = z.object({ name: AgencyNameSchema, units: z.enum(['
 function mayRestore(deps: Deps): RequestHandler {
   return (req, _res, next) => {
     if (deps.config.restoreByAnyUser) return next();
-    const user = req.user as SessionUser;
-    const admin = deps.db
-      .select({ id: memberships.id })
-      .from(memberships)
-      .where(and(eq(memberships.userId, user.id), eq(memberships.role, 'admin')))
-      .get();
-    if (admin) return next();
+    if (isAdminOfAny(deps, (req.user as SessionUser).id)) return next();
     next(
       new HttpError(
         403,
@@ -47,20 +37,17 @@ function mayRestore(deps: Deps): RequestHandler {
 }
 
 export function agencyRoutes(api: ApiRoutes, deps: Deps) {
-  const view = (id: string) => {
-    const a = agencyById(deps.db, id)!;
-    return { id: a.id, name: a.name, kind: a.kind, units: a.units };
-  };
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/settings',
     tag: 'Agency',
     summary: 'Agency name, kind and display units',
     access: { kind: 'agency', role: 'viewer' },
     params: AgencyParamsSchema,
-    handler: ({ agency }) => view(agency!.id),
+    response: AgencyViewSchema,
+    handler: ({ agency }) => service.agencyView(deps, agency!.id),
   });
-  api.add({
+  api.typed({
     method: 'put',
     path: '/api/agencies/:agencyId/settings',
     tag: 'Agency',
@@ -68,23 +55,10 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
     access: { kind: 'agency', role: 'admin' },
     params: AgencyParamsSchema,
     body: AgencySettingsSchema,
-    handler: ({ agency, user, body }) => {
-      deps.db.transaction((tx) => {
-        const before = view(agency!.id);
-        tx.update(agencies).set(body).where(eq(agencies.id, agency!.id)).run();
-        recordAudit(tx, {
-          agencyId: agency!.id,
-          userId: user!.id,
-          action: 'agency.settings',
-          entity: 'agency',
-          entityId: agency!.id,
-          detail: { before, after: body },
-        });
-      });
-      return view(agency!.id);
-    },
+    response: AgencyViewSchema,
+    handler: ({ agency, user, body }) => service.updateSettings(deps, agency!.id, user!.id, body),
   });
-  api.add({
+  api.file({
     method: 'get',
     path: '/api/agencies/:agencyId/export',
     tag: 'Agency',
@@ -101,25 +75,11 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
         { userId: user!.id, agencyId: agency!.id },
         { signal },
       );
-      deps.db.transaction((tx) =>
-        recordAudit(tx, {
-          agencyId: agency!.id,
-          userId: user!.id,
-          action: 'agency.export',
-          entity: 'agency',
-          entityId: agency!.id,
-          detail: out.counts,
-        }),
-      );
-      res.setHeader('Content-Type', 'application/zip');
-      res.setHeader(
-        'Content-Disposition',
-        `attachment; filename="${out.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-export-${out.exportedAt.slice(0, 10)}.zip"`,
-      );
-      res.send(Buffer.from(out.buffer));
+      service.recordExport(deps, agency!.id, user!.id, out.counts);
+      sendDownload(res, `${fileSlug(out.name)}-export-${out.exportedAt.slice(0, 10)}`, 'zip', out.buffer);
     },
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/agencies/restore',
     tag: 'Agency',
@@ -127,6 +87,7 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
       'Restore an agency export into a new agency, with the caller as its admin (multipart: file, optional name). Only admins of an agency may restore (unless the operator allows everyone); every file is checked and nothing is written unless all of it is sound.',
     access: { kind: 'signed-in' },
     body: z.object({ name: AgencyNameSchema.optional() }),
+    response: RestoreReportSchema,
     status: 201,
     before: [
       mayRestore(deps),
@@ -144,22 +105,7 @@ export function agencyRoutes(api: ApiRoutes, deps: Deps) {
             },
           }),
       }),
-      (req, res, next) => {
-        if (!req.is('multipart/form-data'))
-          return next(
-            new HttpError(
-              415,
-              'unsupported_media_type',
-              'Send the archive as multipart/form-data with the field "file"',
-            ),
-          );
-        archiveUpload(req, res, (err: unknown) => {
-          if (!err) return next();
-          if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE')
-            return next(new HttpError(413, 'file_too_large', 'The archive is larger than the 200 MB limit'));
-          next(new HttpError(400, 'bad_upload', `Upload refused: ${(err as Error).message}`));
-        });
-      },
+      singleFileUpload({ what: 'archive', maxBytes: MAX_ARCHIVE_UPLOAD_BYTES, limits: { fields: 4, parts: 6 } }),
     ],
     heavy: true,
     handler: async ({ user, body, req, signal }) => {

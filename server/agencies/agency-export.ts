@@ -3,18 +3,21 @@
 import crypto from 'node:crypto';
 import { asc, eq } from 'drizzle-orm';
 import JSZip from 'jszip';
-import * as catalogRepo from '../catalog/catalog.repo';
+import * as catalog from '../catalog/catalog.service';
+import * as comparisonsRepo from '../comparisons/comparisons.repo';
 import { toCsv } from '../csv';
 import type { Deps } from '../deps';
-import { agencies, analyses, curveOverrides, importMappings, plans, segments, surveys } from '../db/schema';
+import { curveOverrides, plans, segments, surveys } from '../db/schema';
+import * as importsRepo from '../imports/imports.repo';
 import { treatmentRecordsCsv } from '../segment-history/segment-history.archive';
 import { segmentsCsv } from '../segments/segments.export';
+import { agencyById } from './agencies.repo';
 import { ARCHIVE_FORMAT, type ArchiveFile, type OptionalArchiveFile } from './archive-schemas';
 
 export const sha256 = (s: string) => crypto.createHash('sha256').update(s).digest('hex');
 
 export async function exportAgency(deps: Deps, agencyId: string) {
-  const agency = deps.db.select().from(agencies).where(eq(agencies.id, agencyId)).get()!;
+  const agency = agencyById(deps.db, agencyId)!;
   const segRows = deps.db
     .select()
     .from(segments)
@@ -23,15 +26,10 @@ export async function exportAgency(deps: Deps, agencyId: string) {
     .all();
   const idToSeg = new Map(segRows.map((s) => [s.id, s.segmentId]));
   const surveyRows = deps.db.select().from(surveys).where(eq(surveys.agencyId, agencyId)).all();
-  const mixList = catalogRepo.listMixes(deps.db, agencyId);
-  const treatmentList = catalogRepo.listTreatments(deps.db, agencyId);
+  const mixList = catalog.listMixes(deps, agencyId);
+  const treatmentList = catalog.listTreatments(deps, agencyId);
   const planRows = deps.db.select().from(plans).where(eq(plans.agencyId, agencyId)).orderBy(asc(plans.name)).all();
-  const analysisRows = deps.db
-    .select()
-    .from(analyses)
-    .where(eq(analyses.agencyId, agencyId))
-    .orderBy(asc(analyses.name))
-    .all();
+  const analysisRows = comparisonsRepo.archiveRows(deps.db, agencyId);
   const done = treatmentRecordsCsv(deps.db, agencyId, idToSeg);
   const curveRows = deps.db
     .select()
@@ -39,12 +37,7 @@ export async function exportAgency(deps: Deps, agencyId: string) {
     .where(eq(curveOverrides.agencyId, agencyId))
     .orderBy(asc(curveOverrides.familyKey))
     .all();
-  const mappingRows = deps.db
-    .select()
-    .from(importMappings)
-    .where(eq(importMappings.agencyId, agencyId))
-    .orderBy(asc(importMappings.kind))
-    .all();
+  const mappingRows = importsRepo.archiveMappings(deps.db, agencyId);
 
   const files: Record<ArchiveFile | OptionalArchiveFile, string> = {
     'segments.csv': segmentsCsv(segRows),
@@ -121,7 +114,7 @@ export async function exportAgency(deps: Deps, agencyId: string) {
       kind: agency.kind,
       state: agency.state,
       units: agency.units,
-      economics: catalogRepo.economicsOf(deps.db, agencyId),
+      economics: catalog.economicsOf(deps, agencyId),
     },
     counts: {
       segments: segRows.length,

@@ -18,22 +18,9 @@ import {
 import { restoreTreatmentRecords } from '../segment-history/segment-history.archive';
 import { badArchive, readArchive } from './archive-read';
 import { validateArchive } from './archive-validate';
+import type { RestoreReport } from '../../shared/schemas/agency';
 
-export type RestoreReport = {
-  agencyId: string;
-  counts: {
-    segments: number;
-    surveys: number;
-    treatmentRecords: number;
-    mixes: number;
-    treatments: number;
-    plans: number;
-    analyses: number;
-    curves: number;
-  };
-  /** Saved comparisons come back with their inputs; their results are computed again when re-run. */
-  analysesToRerun: number;
-};
+export type { RestoreReport } from '../../shared/schemas/agency';
 
 /** In the pool's worker, `db` is the worker's writable connection and the route bumps the list cache. */
 type Checked = ReturnType<typeof validateArchive>['data'];

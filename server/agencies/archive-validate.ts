@@ -4,10 +4,10 @@
 // collected and answered at once, each naming its file, row and field.
 import Papa from 'papaparse';
 import type { z } from 'zod';
-import { runStudy, StudyInputError } from '../../shared/engine/lcca/study';
+import { runComparison, ComparisonInputError } from '../../shared/engine/lcca/comparison';
 import { type MixInput, MixInputSchema, type TreatmentInput, TreatmentInputSchema } from '../../shared/schemas/catalog';
 import { SEGMENT_FIELDS, SURVEY_FIELDS } from '../../shared/schemas/imports';
-import { type StudyInput, StudyInputSchema } from '../../shared/schemas/lcca';
+import { type ComparisonInput, ComparisonInputSchema } from '../../shared/schemas/comparisons';
 import { unescapeFormula } from '../csv';
 import { fitVertices, geometryProblem, type LineGeometry, looksLonLat, to2d } from '../imports/geometry';
 import { normalizeSegmentRow, normalizeSurveyRow, type ReadOptions, type SegmentInput } from '../imports/normalize';
@@ -29,7 +29,7 @@ export type RestoreData = {
   mixes: { oldId: string; isDemo: boolean; input: MixInput }[];
   treatments: { oldId: string; isDemo: boolean; input: TreatmentInput }[];
   plans: z.infer<typeof ArchivePlanSchema>[];
-  analyses: { name: string; input: StudyInput }[];
+  analyses: { name: string; input: ComparisonInput }[];
   curves: z.infer<typeof ArchiveCurveSchema>[];
   mappings: z.infer<typeof ArchiveMappingSchema>[];
   treatmentRecords: ArchivedTreatmentRecord[];
@@ -170,13 +170,13 @@ export function validateArchive(a: ArchiveText): { data: RestoreData; issues: Ar
   list('analyses.json', json('analyses.json')).forEach((an, i) => {
     const r = ArchiveAnalysisSchema.safeParse(an);
     if (!r.success) return zodIssues('analyses.json', [i], r.error);
-    const input = StudyInputSchema.safeParse(r.data.input);
+    const input = ComparisonInputSchema.safeParse(r.data.input);
     if (!input.success) return zodIssues('analyses.json', [i, 'input'], input.error);
     try {
       // The deterministic part runs as the API runs it before starting a comparison.
-      runStudy({ ...input.data, risk: { ...input.data.risk, iterations: 100 } }, { monteCarlo: false });
+      runComparison({ ...input.data, risk: { ...input.data.risk, iterations: 100 } }, { monteCarlo: false });
     } catch (err) {
-      if (!(err instanceof StudyInputError)) throw err;
+      if (!(err instanceof ComparisonInputError)) throw err;
       add('analyses.json', where([i, 'input', err.path]), err.message);
       return;
     }

@@ -31,9 +31,9 @@ export function catalog(deps: Deps, agencyId: string) {
 
 // Reads for other modules (comparisons, plans, the agency export): the same
 // shapes as the repo's, reached through the service.
-export const listMixes = (deps: Deps, agencyId: string) => repo.listMixes(deps.db, agencyId);
-export const listTreatments = (deps: Deps, agencyId: string) => repo.listTreatments(deps.db, agencyId);
-export const economicsOf = (deps: Deps, agencyId: string) => repo.economicsOf(deps.db, agencyId);
+export const listMixes = (deps: Pick<Deps, 'db'>, agencyId: string) => repo.listMixes(deps.db, agencyId);
+export const listTreatments = (deps: Pick<Deps, 'db'>, agencyId: string) => repo.listTreatments(deps.db, agencyId);
+export const economicsOf = (deps: Pick<Deps, 'db'>, agencyId: string) => repo.economicsOf(deps.db, agencyId);
 
 export const priceHistory = (deps: Deps, agencyId: string) => ({ items: repo.history(deps.db, agencyId) });
 

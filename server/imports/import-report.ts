@@ -26,6 +26,17 @@ export type ImportDeps = {
   progress?: (fraction: number) => void;
 };
 
+/** One import as both importers (segments, surveys) take it: where it writes, who sends what, and its report. */
+export type ImportContext = {
+  deps: ImportDeps;
+  agencyId: string;
+  userId: string;
+  fileName: string;
+  table: RawTable;
+  opts: ImportOptions;
+  report: ImportReport;
+};
+
 /** A cell kept in the rejected-rows file is cut here: the file is for fixing rows, not for storing 20 MB cells. */
 export const MAX_KEPT_CELL_CHARS = 100_000;
 

@@ -1,9 +1,8 @@
 // Segments: every row checked (values, geometry, plausibility), compared with the
 // inventory, then — unless a dry run or refused — written in one transaction.
-import type { ImportIssue, ImportOptions, ImportReport } from '../../shared/schemas/imports';
+import type { ImportIssue } from '../../shared/schemas/imports';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
-import { imports } from '../db/schema';
 import {
   fitVertices,
   geometryProblem,
@@ -14,7 +13,7 @@ import {
   reproject,
   to2d,
 } from './geometry';
-import { type ImportDeps, type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
+import { type ImportContext, type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
 import * as repo from './imports.repo';
 import { normalizeSegmentRow, type ReadOptions, type UnknownValues } from './normalize';
 import { plausibilityWarnings } from './plausibility';
@@ -73,16 +72,11 @@ function lineOf(
 }
 
 export async function importSegments(
-  deps: ImportDeps,
-  agencyId: string,
-  userId: string,
-  fileName: string,
-  table: RawTable,
-  opts: ImportOptions,
-  report: ImportReport,
+  ctx: ImportContext,
   read: ReadOptions,
   proj: string | null,
 ): Promise<ImportResult> {
+  const { deps, agencyId, userId, fileName, table, opts, report } = ctx;
   const { mapping } = report;
   const lengthColumn = mapping.length_mi ?? 'length_mi';
   const errors: ImportIssue[] = [...report.errors];
@@ -180,7 +174,7 @@ export async function importSegments(
       for (const p of planned) {
         if (p.kind !== 'update') continue;
         const s = p.a.seg;
-        const id = p.id!;
+        const segmentRef = p.segmentRef!;
         const old = existing.get(s.segmentId) as Record<string, unknown>;
         const changed = Object.fromEntries(
           p.changed.map((k) => [
@@ -188,33 +182,28 @@ export async function importSegments(
             k === 'geometry' ? { before: '(geometry)', after: '(geometry)' } : { before: old[k], after: p.patch[k] },
           ]),
         );
-        write.update(id, p.patch, now);
+        write.update(segmentRef, p.patch, now);
         write.audit(userId, 'segment.import.update', s.segmentId, {
           importId,
           changed,
           pci: s.pci !== null && s.pciDate ? { date: s.pciDate, pci: s.pci } : undefined,
         });
         if (s.pci !== null) {
-          if (s.pciDate) write.survey(id, s.pciDate, s.pci, source);
-          else write.latestPci(id, s.pci);
+          if (s.pciDate) write.survey(segmentRef, s.pciDate, s.pci, source);
+          else write.latestPci(segmentRef, s.pci);
         }
       }
-      tx.insert(imports)
-        .values({
-          id: importId,
-          agencyId,
-          userId,
-          fileName: fileName.slice(0, 200),
-          kind: 'segments',
-          format: table.format,
-          mode: opts.mode,
-          added: report.added,
-          updated: report.updated,
-          unchanged: report.unchanged,
-          rejected: report.rejected,
-          rejectedCsv,
-        })
-        .run();
+      repo.insertImport(tx, {
+        id: importId,
+        agencyId,
+        userId,
+        fileName,
+        kind: 'segments',
+        format: table.format,
+        mode: opts.mode,
+        report,
+        rejectedCsv,
+      });
       if (opts.saveMapping) {
         repo.saveMapping(tx, agencyId, 'segments', mapping);
         if (Object.keys(read.values).length) repo.saveMapping(tx, agencyId, 'segments-values', read.values);

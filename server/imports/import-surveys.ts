@@ -1,24 +1,14 @@
 // Condition surveys: each row names a segment of the agency, a date and a PCI;
 // written (unless a dry run or refused) in one transaction.
-import type { ImportIssue, ImportOptions, ImportReport } from '../../shared/schemas/imports';
+import type { ImportIssue } from '../../shared/schemas/imports';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
-import { imports } from '../db/schema';
-import { type ImportDeps, type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
+import { type ImportContext, type ImportResult, rejectedRowsCsv, setIssues } from './import-report';
 import * as repo from './imports.repo';
 import { normalizeSurveyRow, type ReadOptions, type SurveyInput } from './normalize';
-import type { RawTable } from './read-file';
 
-export async function importSurveys(
-  deps: ImportDeps,
-  agencyId: string,
-  userId: string,
-  fileName: string,
-  table: RawTable,
-  opts: ImportOptions,
-  report: ImportReport,
-  read: Pick<ReadOptions, 'formats'>,
-): Promise<ImportResult> {
+export async function importSurveys(ctx: ImportContext, read: Pick<ReadOptions, 'formats'>): Promise<ImportResult> {
+  const { deps, agencyId, userId, fileName, table, opts, report } = ctx;
   const { mapping } = report;
   const existing = repo.existingSegments(deps.db, agencyId);
   const known = repo.existingSurveyKeys(deps.db, agencyId);
@@ -90,22 +80,17 @@ export async function importSurveys(
   try {
     deps.db.transaction((tx) => {
       staged.commit(agencyId);
-      tx.insert(imports)
-        .values({
-          id: importId,
-          agencyId,
-          userId,
-          fileName: fileName.slice(0, 200),
-          kind: 'surveys',
-          format: table.format,
-          mode: opts.mode,
-          added: report.added,
-          updated: report.updated,
-          unchanged: report.unchanged,
-          rejected: report.rejected,
-          rejectedCsv,
-        })
-        .run();
+      repo.insertImport(tx, {
+        id: importId,
+        agencyId,
+        userId,
+        fileName,
+        kind: 'surveys',
+        format: table.format,
+        mode: opts.mode,
+        report,
+        rejectedCsv,
+      });
       if (opts.saveMapping) repo.saveMapping(tx, agencyId, 'surveys', mapping);
       recordAudit(tx, {
         agencyId,

@@ -1,7 +1,8 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, asc, desc, eq } from 'drizzle-orm';
 import type { Statement } from 'better-sqlite3';
 import type { Db, Sqlite } from '../db/client';
 import { importMappings, imports, segments, surveys, users } from '../db/schema';
+import { FIELD_OF } from './segment-changes';
 
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
@@ -23,6 +24,16 @@ export function saveMapping(tx: Tx, agencyId: string, kind: string, mapping: unk
       set: { mapping: JSON.stringify(mapping), updatedAt: new Date().toISOString() },
     })
     .run();
+}
+
+/** The agency's saved column mappings, by kind, for its archive. */
+export function archiveMappings(db: Pick<Db, 'select'>, agencyId: string) {
+  return db
+    .select()
+    .from(importMappings)
+    .where(eq(importMappings.agencyId, agencyId))
+    .orderBy(asc(importMappings.kind))
+    .all();
 }
 
 export function existingSegments(db: Db, agencyId: string) {
@@ -62,6 +73,26 @@ export function importHistory(db: Db, agencyId: string) {
     .all();
 }
 
+/** The import's history row, with its counts and the rejected rows as CSV. */
+export function insertImport(
+  tx: Tx,
+  row: Omit<typeof imports.$inferInsert, 'added' | 'updated' | 'unchanged' | 'rejected'> & {
+    report: { added: number; updated: number; unchanged: number; rejected: number };
+  },
+) {
+  const { report, ...rest } = row;
+  tx.insert(imports)
+    .values({
+      ...rest,
+      fileName: rest.fileName.slice(0, 200),
+      added: report.added,
+      updated: report.updated,
+      unchanged: report.unchanged,
+      rejected: report.rejected,
+    })
+    .run();
+}
+
 export function rejectedCsv(db: Db, agencyId: string, importId: string) {
   return db
     .select({ csv: imports.rejectedCsv, fileName: imports.fileName })
@@ -70,23 +101,7 @@ export function rejectedCsv(db: Db, agencyId: string, importId: string) {
     .get();
 }
 
-const COLUMN: Record<string, string> = {
-  roadName: 'road_name',
-  fromDesc: 'from_desc',
-  toDesc: 'to_desc',
-  lengthMi: 'length_mi',
-  widthFt: 'width_ft',
-  lanes: 'lanes',
-  functionalClass: 'functional_class',
-  surface: 'surface',
-  adt: 'adt',
-  truckPct: 'truck_pct',
-  lastTreatment: 'last_treatment',
-  lastTreatmentYear: 'last_treatment_year',
-  district: 'district',
-  notes: 'notes',
-  geometry: 'geometry',
-};
+const COLUMN = FIELD_OF;
 
 /**
  * Prepared statements for the import's write loop: tens of thousands of rows
@@ -123,14 +138,14 @@ export function segmentWriter(sqlite: Sqlite, agencyId: string) {
       );
       return Number(s.run(agencyId, segmentId, ...keys.map((k) => patch[k] ?? null)).lastInsertRowid);
     },
-    update(id: number, patch: Record<string, unknown>, at: string) {
+    update(segmentRef: number, patch: Record<string, unknown>, at: string) {
       const keys = Object.keys(patch).sort();
       const s = stmt(
         `u:${keys.join(',')}`,
         () =>
           `UPDATE segments SET ${keys.map((k) => `${COLUMN[k]} = ?`).join(', ')}, updated_at = ? WHERE id = ? AND agency_id = ?`,
       );
-      s.run(...keys.map((k) => patch[k] ?? null), at, id, agencyId);
+      s.run(...keys.map((k) => patch[k] ?? null), at, segmentRef, agencyId);
     },
     survey(segmentRef: number, surveyDate: string, pci: number, source: string | null) {
       surveyUpsert.run(agencyId, segmentRef, surveyDate, pci, source);

@@ -1,5 +1,3 @@
-import type { RequestHandler } from 'express';
-import multer from 'multer';
 import { z } from 'zod';
 import { AgencyParamsSchema } from '../../shared/schemas/common';
 import {
@@ -10,46 +8,25 @@ import {
   SavedMappingSchema,
 } from '../../shared/schemas/imports';
 import type { Deps } from '../deps';
-import type { ApiRoutes } from '../http/api';
+import { type ApiRoutes, sendJsonText } from '../http/api';
+import { sendDownload } from '../http/download';
 import { HttpError } from '../http/errors';
+import { singleFileUpload } from '../http/upload';
 import * as service from './imports.service';
 import { importTask } from './imports.tasks';
 
 export const MAX_UPLOAD_BYTES = 25 * 1024 * 1024;
 
-const upload = multer({
-  storage: multer.memoryStorage(),
-  limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 12, fieldSize: 64 * 1024, parts: 16 },
-}).single('file');
-
-// multer's own errors become our clear 4xx answers.
-const uploadOne: RequestHandler = (req, res, next) => {
-  if (!req.is('multipart/form-data')) {
-    next(new HttpError(415, 'unsupported_media_type', 'Send the file as multipart/form-data with the field "file"'));
-    return;
-  }
-  upload(req, res, (err: unknown) => {
-    if (!err) return next();
-    if (err instanceof multer.MulterError) {
-      if (err.code === 'LIMIT_FILE_SIZE')
-        return next(
-          new HttpError(
-            413,
-            'file_too_large',
-            `The file is larger than the ${MAX_UPLOAD_BYTES / 1024 / 1024} MB limit`,
-          ),
-        );
-      return next(
-        new HttpError(400, 'bad_upload', `Upload refused: ${err.message}${err.field ? ` (${err.field})` : ''}`),
-      );
-    }
-    next(new HttpError(400, 'bad_upload', 'The upload could not be read as multipart/form-data'));
-  });
-};
-
 export function importRoutes(api: ApiRoutes, deps: Deps) {
+  const uploadOne = singleFileUpload({
+    what: 'file',
+    maxBytes: MAX_UPLOAD_BYTES,
+    limits: { fields: 12, fieldSize: 64 * 1024, parts: 16 },
+    nameField: true,
+    unreadable: 'The upload could not be read as multipart/form-data',
+  });
   const engineer = { kind: 'agency', role: 'engineer' } as const;
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/agencies/:agencyId/imports',
     tag: 'Imports',
@@ -69,13 +46,7 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
           'Invalid request: file — attach the file in the multipart field "file"',
           [{ path: 'file', message: 'is required' }],
         );
-      // Path tricks in a client's file name are cut to the bare name; it is only ever a label.
-      const name =
-        req.file.originalname
-          .split(/[\\/]/)
-          .pop()!
-          .replace(/[^\w.\- ()]/g, '_')
-          .slice(0, 200) || 'upload';
+      const name = service.uploadName(req.file.originalname);
       // Reading, checking and writing run in a worker; the upload's bytes move there (not copied).
       const bytes = req.file.buffer;
       const { status, report } = await deps.pool.run(
@@ -85,10 +56,11 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
         { signal, transfer: [bytes] },
       );
       if (report.importId) deps.listCache?.bump(agency!.id);
-      res.status(status).json(report);
+      res.status(status);
+      return sendJsonText(res, JSON.stringify(report));
     },
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/imports',
     tag: 'Imports',
@@ -98,7 +70,7 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
     response: ImportHistorySchema,
     handler: ({ agency }) => service.history(deps, agency!.id),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/imports/mapping',
     tag: 'Imports',
@@ -109,7 +81,7 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
     response: SavedMappingSchema,
     handler: ({ agency, query }) => service.mappingFor(deps, agency!.id, query.kind),
   });
-  api.add({
+  api.file({
     method: 'get',
     path: '/api/agencies/:agencyId/imports/:importId/rejected.csv',
     tag: 'Imports',
@@ -119,9 +91,7 @@ export function importRoutes(api: ApiRoutes, deps: Deps) {
     responseDescription: 'text/csv',
     handler: ({ agency, params, res }) => {
       const f = service.rejectedFile(deps, agency!.id, params.importId);
-      res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-      res.setHeader('Content-Disposition', `attachment; filename="${f.fileName.replace(/"/g, '')}"`);
-      res.send(f.csv);
+      sendDownload(res, f.base.replace(/"/g, ''), 'csv', f.csv);
     },
   });
 }

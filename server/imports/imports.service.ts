@@ -140,21 +140,32 @@ export async function runImport(
   report.dateFormat = formats.dateFormat;
   report.decimalComma = formats.decimalComma;
   report.warnings = [...crs.warnings, ...formats.warnings];
-  if (opts.kind === 'surveys')
-    return importSurveys(deps, agencyId, userId, file.name, table, opts, report, { formats });
+  const ctx = { deps, agencyId, userId, fileName: file.name, table, opts, report };
+  if (opts.kind === 'surveys') return importSurveys(ctx, { formats });
   const values = valueMapFor(repo.savedMapping(deps.db, agencyId, 'segments-values'), opts.values);
   report.valueMap = values;
-  return importSegments(deps, agencyId, userId, file.name, table, opts, report, { units, formats, values }, crs.proj);
+  return importSegments(ctx, { units, formats, values }, crs.proj);
 }
 
 export function history(deps: Deps, agencyId: string) {
   return { items: repo.importHistory(deps.db, agencyId) };
 }
 
+/** Path tricks in a client's file name are cut to the bare name; it is only ever a label. */
+export function uploadName(originalName: string) {
+  return (
+    originalName
+      .split(/[\\/]/)
+      .pop()!
+      .replace(/[^\w.\- ()]/g, '_')
+      .slice(0, 200) || 'upload'
+  );
+}
+
 export function rejectedFile(deps: Deps, agencyId: string, importId: string) {
   const row = repo.rejectedCsv(deps.db, agencyId, importId);
   if (!row) throw new HttpError(404, 'not_found', 'No such import');
-  return { fileName: `${row.fileName.replace(/\.[^.]+$/, '')}-rejected.csv`, csv: row.csv ?? 'row,reason\n' };
+  return { base: `${row.fileName.replace(/\.[^.]+$/, '')}-rejected`, csv: row.csv ?? 'row,reason\n' };
 }
 
 export function mappingFor(deps: Deps, agencyId: string, kind: 'segments' | 'surveys') {

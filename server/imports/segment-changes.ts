@@ -10,7 +10,7 @@ export type Accepted = { row: number; seg: SegmentInput; geometry: LineGeometry 
 export type Planned = {
   a: Accepted;
   kind: 'add' | 'update' | 'same';
-  id?: number;
+  segmentRef?: number;
   patch: Record<string, unknown>;
   /** The patch's fields whose stored value differs. */
   changed: string[];
@@ -28,7 +28,8 @@ const OPTIONAL: [string, keyof SegmentInput][] = [
   ['notes', 'notes'],
 ];
 
-const FIELD_OF: Record<string, keyof typeof FIELD_LABELS> = {
+/** The segment's column names (snake_case, as in the table and the import's fields) by property. */
+export const FIELD_OF: Record<string, keyof typeof FIELD_LABELS> = {
   roadName: 'road_name',
   fromDesc: 'from_desc',
   toDesc: 'to_desc',
@@ -65,7 +66,7 @@ export function planSegment(a: Accepted, old: SegmentRow | undefined, carries: (
     (s.pciDate === null
       ? old.pci !== s.pci
       : old.pciDate === null || s.pciDate > old.pciDate || (s.pciDate === old.pciDate && old.pci !== s.pci));
-  return { a, kind: changed.length || newSurvey ? 'update' : 'same', id: old.id, patch, changed, newSurvey };
+  return { a, kind: changed.length || newSurvey ? 'update' : 'same', segmentRef: old.id, patch, changed, newSurvey };
 }
 
 const shown = (k: string, v: unknown) => {

@@ -89,6 +89,15 @@ export function adminCount(db: Read, agencyId: string) {
     .all().length;
 }
 
+/** Whether the person is an admin of at least one agency. */
+export function isAdminOfAny(db: Read, userId: string) {
+  return !!db
+    .select({ id: memberships.id })
+    .from(memberships)
+    .where(and(eq(memberships.userId, userId), eq(memberships.role, 'admin')))
+    .get();
+}
+
 export function insertInvitation(tx: Pick<Db, 'insert'>, row: typeof invitations.$inferInsert) {
   tx.insert(invitations).values(row).run();
 }

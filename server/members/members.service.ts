@@ -1,6 +1,6 @@
 import type { InviteBody } from '../../shared/schemas/members';
 import { ROLE_RANK, type Role } from '../../shared/schemas/common';
-import { agencyById } from '../agencies/agencies.repo';
+import { agencyById } from '../agencies/agencies.service';
 import { recordAudit } from '../audit';
 import { isoIn, newId, newToken } from '../ids';
 import type { Deps } from '../deps';
@@ -20,6 +20,9 @@ export const roleIn = (deps: Pick<Deps, 'db'>, userId: string, agencyId: string)
 /** The agencies a person belongs to, with their role in each. */
 export const agenciesOfUser = (deps: Pick<Deps, 'db'>, userId: string) => repo.agenciesOfUser(deps.db, userId);
 
+/** Whether the person is an admin of at least one agency (who may restore an archive). */
+export const isAdminOfAny = (deps: Pick<Deps, 'db'>, userId: string) => repo.isAdminOfAny(deps.db, userId);
+
 /**
  * Joins the agency with an invitation's role. An invitation grants access; it never lowers a role
  * someone already has: a stale viewer invitation accepted by the agency's only admin leaves them admin.
@@ -37,7 +40,7 @@ export function joinByInvitation(
 }
 
 export async function invite(deps: Deps, agencyId: string, byUserId: string, input: InviteBody) {
-  const agency = agencyById(deps.db, agencyId)!;
+  const agency = agencyById(deps, agencyId)!;
   const already = repo.memberByEmail(deps.db, agencyId, input.email);
   if (already) throw new HttpError(409, 'already_member', `${input.email} is already a member of ${agency.name}`);
   const { token, hash } = newToken();

@@ -1,11 +1,11 @@
 import { RunParamsSchema, RunViewSchema } from '../../shared/schemas/runs';
 import type { Deps } from '../deps';
-import type { ApiRoutes } from '../http/api';
+import { type ApiRoutes, sendJsonText } from '../http/api';
 import * as service from './runs.service';
 
 export function runRoutes(api: ApiRoutes, deps: Deps) {
   const engineer = { kind: 'agency', role: 'engineer' } as const;
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/runs/:runId',
     tag: 'Runs',
@@ -14,11 +14,9 @@ export function runRoutes(api: ApiRoutes, deps: Deps) {
     access: engineer,
     params: RunParamsSchema,
     response: RunViewSchema,
-    handler: ({ agency, params, res }) => {
-      res.type('application/json').send(service.runJson(deps, agency!.id, params.runId));
-    },
+    handler: ({ agency, params, res }) => sendJsonText(res, service.runJson(deps, agency!.id, params.runId)),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/agencies/:agencyId/runs/:runId/cancel',
     tag: 'Runs',

@@ -131,6 +131,21 @@ export function segmentById(db: Pick<Db, 'select'>, agencyId: string, segmentRef
     .get();
 }
 
+/** The agency's segments among `segmentRefs` (read 900 at a time, under SQLite's parameter limit). */
+export function segmentsByRefs(db: Pick<Db, 'select'>, agencyId: string, segmentRefs: number[]) {
+  const rows: SegmentRow[] = [];
+  for (let i = 0; i < segmentRefs.length; i += 900) {
+    rows.push(
+      ...db
+        .select()
+        .from(segments)
+        .where(and(eq(segments.agencyId, agencyId), inArray(segments.id, segmentRefs.slice(i, i + 900))))
+        .all(),
+    );
+  }
+  return rows;
+}
+
 /** The segment's own columns changed, its `updatedAt` set now. */
 export function updateSegmentRow(
   tx: Pick<Db, 'update'>,

@@ -5,7 +5,7 @@ import type {
   SegmentListResponse,
   SegmentUpdate,
 } from '../../shared/schemas/segments';
-import { agencyById } from '../agencies/agencies.repo';
+import { agencyById } from '../agencies/agencies.service';
 import { recordAudit } from '../audit';
 import type { Db } from '../db/client';
 import type { Deps } from '../deps';
@@ -17,6 +17,7 @@ import {
   type SegmentFilter,
   type SegmentRow,
   segmentById,
+  segmentsByRefs as segmentRowsByRefs,
   segmentsGeoJson,
   surveysOf,
   toSegment,
@@ -50,7 +51,7 @@ export function districtList(deps: Deps, agencyId: string) {
 }
 
 export function networkSummary(deps: Deps, agencyId: string): NetworkSummary {
-  const agency = agencyById(deps.db, agencyId)!;
+  const agency = agencyById(deps, agencyId)!;
   const rows = networkStats(deps.db, agencyId);
   let miles = 0;
   let lm = 0;
@@ -89,6 +90,10 @@ export const segmentRowIn = (tx: Pick<Db, 'select'>, agencyId: string, segmentRe
   segmentById(tx, agencyId, segmentRef);
 
 /** Sets columns of the segment the history keeps current (latest PCI, last treatment). */
+/** The agency's segments among `segmentRefs` (a comparison's group). */
+export const segmentsByRefs = (deps: Pick<Deps, 'db'>, agencyId: string, segmentRefs: number[]) =>
+  segmentRowsByRefs(deps.db, agencyId, segmentRefs);
+
 export const touchSegment = (
   tx: Pick<Db, 'update'>,
   agencyId: string,

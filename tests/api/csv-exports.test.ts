@@ -3,10 +3,10 @@
 // spreadsheet shows it as text. Plain numbers (also negative ones) stay numbers.
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { StudyResult } from '../../shared/engine/lcca/study';
+import type { ComparisonResult } from '../../shared/engine/lcca/comparison';
 import type { PlanResult } from '../../shared/engine/plan/run-plan';
 import { FORMULA_LEADING, toCsv, unescapeFormula } from '../../server/csv';
-import { studyCsv } from '../../server/lcca/lcca.export';
+import { comparisonCsv } from '../../server/comparisons/comparisons.export';
 import { workListCsv } from '../../server/plans/plans.export';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
@@ -163,8 +163,8 @@ describe('each export escapes formula-leading cells', () => {
         { savings: -1234, savingsPerLaneMile: -617 },
       ],
       monteCarlo: null,
-    } as unknown as StudyResult;
-    const [head, , row] = cells(studyCsv(result));
+    } as unknown as ComparisonResult;
+    const [head, , row] = cells(comparisonCsv(result));
     expect(head.slice(0, 3)).toEqual(['Alternative', 'Rank', 'Present value ($)']);
     expect(head.every((h) => !/[a-z][A-Z]|_/.test(h))).toBe(true);
     expect(row[0]).toBe(`'${HOSTILE[0]}`);

@@ -3,7 +3,7 @@
 // the published formulas, never from the demo values themselves.
 import { DEMO_ECONOMICS, DEMO_MIXES, DEMO_TREATMENTS } from '../../server/seed/demo-catalog';
 import type { Mix, Treatment } from '../../shared/schemas/catalog';
-import type { AlternativeSpec, Group, StudyInput } from '../../shared/schemas/lcca';
+import type { AlternativeSpec, Group, ComparisonInput } from '../../shared/schemas/comparisons';
 
 export const mixes: Mix[] = DEMO_MIXES.map(({ key, ...m }) => ({ ...m, id: key, isDemo: true }));
 export const treatments: Treatment[] = DEMO_TREATMENTS.map(({ mixKey, ...t }) => ({
@@ -26,7 +26,7 @@ export const oneMile: Group = {
 export const alt = (name: string, initial: AlternativeSpec['initial'], more: Partial<AlternativeSpec> = {}) =>
   ({ name, initial, rehabilitation: [], maintenance: [], repeatAtEndOfLife: true, ...more }) as AlternativeSpec;
 
-export function studyInput(alternatives: AlternativeSpec[], over: Partial<StudyInput> = {}): StudyInput {
+export function comparisonInput(alternatives: AlternativeSpec[], over: Partial<ComparisonInput> = {}): ComparisonInput {
   return {
     economics: {
       discountRate: 0.04,

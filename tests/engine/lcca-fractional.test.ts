@@ -5,13 +5,13 @@
 // life left: RSL = C × (life left at N) / life (Interim Technical Bulletin
 // FHWA-SA-98-079, 1998). Expected values are worked by hand from those formulas.
 import { describe, expect, it } from 'vitest';
-import { evaluatePlanForGroup } from '../../shared/engine/lcca/network';
-import { expandSchedule, type SchedulePlan } from '../../shared/engine/lcca/schedule';
-import { runStudy, studyInputs, studyModel } from '../../shared/engine/lcca/study';
-import { alt, studyInput } from './lcca-fixture';
+import { evaluateScheduleForGroup } from '../../shared/engine/lcca/network';
+import { expandSchedule, type Schedule } from '../../shared/engine/lcca/schedule';
+import { runComparison, comparisonInputs, comparisonModel } from '../../shared/engine/lcca/comparison';
+import { alt, comparisonInput } from './lcca-fixture';
 
 const perJob = (cost: number) => ({ perSy: 0, perLaneMile: 0, perJob: cost, addOnFraction: 0 });
-const plan = (life: number): SchedulePlan => ({
+const plan = (life: number): Schedule => ({
   initial: { label: 'overlay', serviceLifeYears: life, rates: perJob(100_000) },
   rehabilitation: [],
   maintenance: [],
@@ -29,7 +29,7 @@ describe('fractional lives (FHWA-SA-98-079 present value, remaining service life
     const acts = expandSchedule(plan(11.5), 40);
     expect(acts.map((a) => a.year)).toEqual([0, 12, 23, 35]);
     expect(acts.map((a) => a.lifeEndsAt)).toEqual([11.5, 23, 34.5, 46]);
-    const { result } = evaluatePlanForGroup(plan(11.5), { areaSy: 0, laneMiles: 0 }, 0.04, 40);
+    const { result } = evaluateScheduleForGroup(plan(11.5), { areaSy: 0, laneMiles: 0 }, 0.04, 40);
     // Hand-worked at 4 %: PV(costs) = 100,000 × (1 + 1.04^−12 + 1.04^−23 + 1.04^−35) = 228,373.89;
     // RSL = 100,000 × 6 / 11.5 = 52,173.91, PV(RSL) = 52,173.91 × 1.04^−40 = 10,867.25;
     // NPV = 217,506.63; EUAC = NPV × A/P(4 %, 40) = 217,506.63 × 0.0505235 = 10,989.19.
@@ -49,16 +49,16 @@ describe('fractional lives (FHWA-SA-98-079 present value, remaining service life
 
   it('whole-year lives give the schedule they always did (work every life, nothing booked at N)', () => {
     expect(expandSchedule(plan(10), 40).map((a) => a.year)).toEqual([0, 10, 20, 30]);
-    const { result } = evaluatePlanForGroup(plan(10), { areaSy: 0, laneMiles: 0 }, 0.04, 40);
+    const { result } = evaluateScheduleForGroup(plan(10), { areaSy: 0, laneMiles: 0 }, 0.04, 40);
     expect(result.remainingServiceLifeValue).toBe(0);
   });
 
   it('a comparison shows the life it schedules: 1.25 in of a 14-year-at-1.5-in mix is 11.67 years, priced as such', () => {
-    const input = studyInput([
+    const input = comparisonInput([
       alt('1.25 in rubber-modified', { treatmentId: 'mill_and_overlay', mixId: 'rubber', thicknessIn: 1.25 }),
       alt('Chip seal cycle', { treatmentId: 'chip_seal' }),
     ]);
-    const r = runStudy(input, { monteCarlo: false });
+    const r = runComparison(input, { monteCarlo: false });
     const a = r.alternatives[0];
     expect(a.initial.serviceLifeYears).toBeCloseTo(14 * (1.25 / 1.5), 12);
     expect(a.cashFlows.map((c) => c.year)).toEqual([0, 12, 24, 35]);
@@ -67,11 +67,11 @@ describe('fractional lives (FHWA-SA-98-079 present value, remaining service life
   });
 
   it('tornado and Monte Carlo evaluate the lives they show (no rounding to whole years)', () => {
-    const input = studyInput([
+    const input = comparisonInput([
       alt('1.25 in rubber-modified', { treatmentId: 'mill_and_overlay', mixId: 'rubber', thicknessIn: 1.25 }),
       alt('Chip seal cycle', { treatmentId: 'chip_seal' }),
     ]);
-    const r = runStudy(input, { monteCarlo: false });
+    const r = runComparison(input, { monteCarlo: false });
     const first = r.alternatives[0].firstCost;
     const row = r.sensitivity.rows.find((x) => x.key === 'alt:0:life:0')!;
     expect(row.low).toBeCloseTo(8.75, 12);
@@ -81,8 +81,8 @@ describe('fractional lives (FHWA-SA-98-079 present value, remaining service life
     // 14.583: lives end 14.58, 29.17, 43.75 → booked 0, 15, 30; 3.75/14.583 remains at 40.
     expect(row.npvAtHigh[0]).toBeCloseTo(first * fhwa([0, 15, 30], 3.75 / 14.583333333333334, 0.04, 40), 4);
     // Monte Carlo draws go through the same model: a drawn life of 10.3 years is priced at 10.3.
-    const model = studyModel(input);
-    const base = Object.fromEntries(studyInputs(input).map((i) => [i.key, i.base]));
+    const model = comparisonModel(input);
+    const base = Object.fromEntries(comparisonInputs(input).map((i) => [i.key, i.base]));
     // 10.3: lives end 10.3, 20.6, 30.9, 41.2 → booked 0, 11, 21, 31; 1.2/10.3 remains at 40.
     expect(model({ ...base, 'alt:0:life:0': 10.3 })[0]).toBeCloseTo(
       first * fhwa([0, 11, 21, 31], 1.2 / 10.3, 0.04, 40),

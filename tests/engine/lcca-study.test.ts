@@ -3,8 +3,8 @@
 // width behind "per lane-mile", and cautions grouped by what they concern.
 import { describe, expect, it } from 'vitest';
 import { answerFor } from '../../shared/engine/lcca/answer';
-import { runStudy } from '../../shared/engine/lcca/study';
-import { alt, oneMile, studyInput } from './lcca-fixture';
+import { runComparison } from '../../shared/engine/lcca/comparison';
+import { alt, oneMile, comparisonInput } from './lcca-fixture';
 
 const three = [
   alt('2 in dense-graded', { treatmentId: 'mill_and_overlay' }),
@@ -15,7 +15,7 @@ const atPci = (pci: number) => ({ ...oneMile, segments: oneMile.segments.map((s)
 
 describe('the answer first', () => {
   it('names the winner, the margin over the period against the runner-up, and the part of the difference that decides it', () => {
-    const r = runStudy(studyInput(three.slice(0, 2)), { monteCarlo: false });
+    const r = runComparison(comparisonInput(three.slice(0, 2)), { monteCarlo: false });
     const a = r.answer;
     const [w, ru] = [r.alternatives[a.winner!], r.alternatives[a.runnerUp!]];
     expect(a.margin).toBeCloseTo(ru.presentValue - w.presentValue, 6);
@@ -30,7 +30,7 @@ describe('the answer first', () => {
   });
 
   it('leaves out an alternative that cannot give the same service: a chip seal on roads at PCI 42 (catalog range 50–85)', () => {
-    const r = runStudy(studyInput(three, { group: atPci(42) }), { monteCarlo: false });
+    const r = runComparison(comparisonInput(three, { group: atPci(42) }), { monteCarlo: false });
     const chip = 2;
     expect(r.alternatives[chip].service).toMatchObject({ equal: false, pciMin: 50, pciMax: 85, groupPci: 42 });
     expect(r.alternatives[0].service.equal).toBe(true);
@@ -50,7 +50,7 @@ describe('the answer first', () => {
       ...oneMile,
       segments: oneMile.segments.map((s) => ({ ...s, pci: 60, functionalClass: 'minor_arterial' as const })),
     };
-    const r = runStudy(studyInput(three, { group }), { monteCarlo: false });
+    const r = runComparison(comparisonInput(three, { group }), { monteCarlo: false });
     expect(r.alternatives[2].service).toMatchObject({ equal: false, reason: 'class', outsideClassShare: 1 });
     expect(r.answer.winner).not.toBe(2);
     expect(r.cautions.find((c) => c.kind === 'service')?.message).toMatch(
@@ -59,7 +59,9 @@ describe('the answer first', () => {
   });
 
   it('the chance of being cheapest is counted among the alternatives that give the same service', () => {
-    const r = runStudy(studyInput(three, { group: atPci(42), risk: { iterations: 400, seed: 3, ranges: {} } }));
+    const r = runComparison(
+      comparisonInput(three, { group: atPci(42), risk: { iterations: 400, seed: 3, ranges: {} } }),
+    );
     const among = r.monteCarlo!.probabilityCheapestAmong!;
     expect(among[2]).toBe(0);
     expect(among.reduce((s, p) => s + p, 0)).toBeCloseTo(1, 12);
@@ -77,12 +79,12 @@ describe('the answer first', () => {
         { ...oneMile.segments[0], segmentId: 'b', pci: 80, lengthMi: 1 },
       ],
     };
-    const r = runStudy(studyInput(three, { group }), { monteCarlo: false });
+    const r = runComparison(comparisonInput(three, { group }), { monteCarlo: false });
     expect(r.group.pci).toBeCloseTo((40 * 3 + 80 * 1) / 4, 12);
   });
 
   it('works on a saved result from before equal service was recorded (no service field)', () => {
-    const r = runStudy(studyInput(three.slice(0, 2)), { monteCarlo: false });
+    const r = runComparison(comparisonInput(three.slice(0, 2)), { monteCarlo: false });
     const old = { ...r, alternatives: r.alternatives.map(({ service: _s, ...a }) => a) };
     expect(answerFor(old).winner).toBe(r.answer.winner);
   });
@@ -90,7 +92,7 @@ describe('the answer first', () => {
 
 describe('quantities and prices behind the figures', () => {
   it('milling depth follows the lift: 1.5 in laid on a 2-in mill-and-overlay mills 1.5 in, priced by depth', () => {
-    const r = runStudy(studyInput(three.slice(0, 2)), { monteCarlo: false });
+    const r = runComparison(comparisonInput(three.slice(0, 2)), { monteCarlo: false });
     const thin = r.alternatives[1].initial;
     expect(thin.millDepthIn).toBe(1.5);
     expect(thin.label).toBe('Mill and overlay — Rubber-modified, dry process, 1.5 in, 1.5 in milled');
@@ -104,7 +106,7 @@ describe('quantities and prices behind the figures', () => {
   });
 
   it('states the lane width behind "per lane-mile": SY × 9 / (lane-miles × 5,280)', () => {
-    const r = runStudy(studyInput(three.slice(0, 2)), { monteCarlo: false });
+    const r = runComparison(comparisonInput(three.slice(0, 2)), { monteCarlo: false });
     // 1 mi × 24 ft = 14,080 SY on 2 lane-miles → 12-ft lanes (7,040 SY per lane-mile, common practice anchor).
     expect(r.group.laneWidthFt).toBeCloseTo(12, 12);
     const v = r.vsBaseline[1];
@@ -118,7 +120,7 @@ describe('quantities and prices behind the figures', () => {
   });
 
   it('cautions name the alternative they concern; one cold-weather note shared by two mixes stays one message', () => {
-    const r = runStudy(studyInput(three), { monteCarlo: false });
+    const r = runComparison(comparisonInput(three), { monteCarlo: false });
     const cold = r.cautions.filter((c) => c.kind === 'cold-weather');
     expect(cold.map((c) => c.alternativeIndex)).toEqual([0, 1]);
     expect(cold.map((c) => c.subject)).toEqual(['Dense-graded 12.5 mm', 'Rubber-modified, dry process']);

@@ -2,8 +2,8 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { evaluateAlternative, remainingLife, type Activity } from '../../shared/engine/lcca/evaluate';
 import { ap, pa } from '../../shared/engine/lcca/interest';
-import { evaluateNetwork, evaluatePlanForGroup } from '../../shared/engine/lcca/network';
-import { activityCost, expandSchedule, type SchedulePlan } from '../../shared/engine/lcca/schedule';
+import { evaluateNetwork, evaluateScheduleForGroup } from '../../shared/engine/lcca/network';
+import { activityCost, expandSchedule, type Schedule } from '../../shared/engine/lcca/schedule';
 
 describe('FHWA LCCA formulas (FHWA-SA-98-079, 1998): hand-worked cases', () => {
   it('no remaining life when every activity ends inside the period', () => {
@@ -146,7 +146,7 @@ describe('properties (fast-check)', () => {
 const rates = (perSy: number, perJob = 0, addOnFraction = 0) => ({ perSy, perLaneMile: 0, perJob, addOnFraction });
 
 describe('schedule expansion', () => {
-  const plan: SchedulePlan = {
+  const plan: Schedule = {
     initial: { label: 'mill and overlay 2 in', serviceLifeYears: 12, rates: rates(20) },
     rehabilitation: [{ label: 'overlay 1.5 in', serviceLifeYears: 10, rates: rates(14) }],
     maintenance: [{ template: { label: 'crack seal', serviceLifeYears: 3, rates: rates(0.4) }, everyYears: 4 }],
@@ -179,7 +179,7 @@ describe('schedule expansion', () => {
 
 describe('vectorised network evaluation', () => {
   it('equals a segment-by-segment evaluation, and the group total equals one evaluation of the group', () => {
-    const plan: SchedulePlan = {
+    const plan: Schedule = {
       initial: {
         label: 'thin overlay',
         serviceLifeYears: 9,
@@ -205,7 +205,7 @@ describe('vectorised network evaluation', () => {
       expect(res.npv[i]).toBeCloseTo(one.presentValue, 6);
       expect(res.euac[i]).toBeCloseTo(one.presentValue * ap(0.03, 40), 6);
     }
-    const group = evaluatePlanForGroup(
+    const group = evaluateScheduleForGroup(
       plan,
       { areaSy: total, laneMiles: laneMiles.reduce((s, v) => s + v, 0) },
       0.03,

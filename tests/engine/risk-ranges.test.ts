@@ -3,16 +3,16 @@
 // closed-form mean (a+b+c)/3 assumes it), and a tornado row whose range leaves
 // the base case out misreads. The engine refuses such a range, naming the field.
 import { describe, expect, it } from 'vitest';
-import { runStudy, StudyInputError } from '../../shared/engine/lcca/study';
-import { RangeOverrideSchema } from '../../shared/schemas/lcca';
-import { alt, studyInput } from './lcca-fixture';
+import { runComparison, ComparisonInputError } from '../../shared/engine/lcca/comparison';
+import { RangeOverrideSchema } from '../../shared/schemas/comparisons';
+import { alt, comparisonInput } from './lcca-fixture';
 
 const alts = [
   alt('2 in dense-graded', { treatmentId: 'mill_and_overlay' }),
   alt('Chip seal cycle', { treatmentId: 'chip_seal' }),
 ];
 const withRanges = (ranges: Record<string, { low: number; high: number }>) =>
-  studyInput(alts, {
+  comparisonInput(alts, {
     risk: {
       iterations: 200,
       seed: 7,
@@ -24,9 +24,9 @@ const withRanges = (ranges: Record<string, { low: number; high: number }>) =>
 
 function refusal(ranges: Record<string, { low: number; high: number }>) {
   try {
-    runStudy(withRanges(ranges), { monteCarlo: false });
+    runComparison(withRanges(ranges), { monteCarlo: false });
   } catch (e) {
-    if (e instanceof StudyInputError) return { path: e.path, message: e.message };
+    if (e instanceof ComparisonInputError) return { path: e.path, message: e.message };
     throw e;
   }
   return null;
@@ -55,7 +55,7 @@ describe('risk ranges (the base must lie inside low–high)', () => {
   });
 
   it('accepts a valid range and uses it as given (the base is never moved)', () => {
-    const r = runStudy(withRanges({ 'mix:dense': { low: 70, high: 90 } }), { monteCarlo: false });
+    const r = runComparison(withRanges({ 'mix:dense': { low: 70, high: 90 } }), { monteCarlo: false });
     const row = r.sensitivity.rows.find((x) => x.key === 'mix:dense')!;
     expect([row.low, row.high]).toEqual([70, 90]);
     const base = r.sensitivity.base[0];

@@ -2,6 +2,7 @@
 // by how much over the period, and why (the part of the difference that
 // decides it), among the alternatives that give the same service on these
 // roads. Works on saved results of any age (fields added later are optional).
+import type { ServiceCheck } from './comparison-cautions';
 
 export type AnswerAlternative = {
   name: string;
@@ -11,14 +12,7 @@ export type AnswerAlternative = {
   firstCost: number;
   initial: { serviceLifeYears: number };
   cashFlows: { kind?: string }[];
-  service?: {
-    equal: boolean;
-    groupPci: number | null;
-    pciMin: number;
-    pciMax: number;
-    treatment: string;
-    reason?: 'pci' | 'class';
-  };
+  service?: Omit<ServiceCheck, 'outsideClassShare'>;
 };
 
 export type AnswerInput = {

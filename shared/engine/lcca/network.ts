@@ -5,7 +5,7 @@
 // multiply-adds. A whole network is one pass over Float64Arrays.
 import { evaluateAlternative, type Activity } from './evaluate';
 import { ap } from './interest';
-import { activityCost, expandSchedule, type RatedActivity, type SchedulePlan } from './schedule';
+import { activityCost, expandSchedule, type RatedActivity, type Schedule } from './schedule';
 
 export type Quantities = { areaSy: Float64Array; laneMiles: Float64Array };
 
@@ -45,7 +45,7 @@ export type NetworkAlternativeResult = {
  * (mobilisation and traffic control once), shared among segments by area.
  */
 export function evaluateNetwork(
-  plans: SchedulePlan[],
+  plans: Schedule[],
   q: Quantities,
   discountRate: number,
   analysisPeriodYears: number,
@@ -71,8 +71,8 @@ export function evaluateNetwork(
 }
 
 /** The group's full result (cash flows, RSL) for display: the group as one job. */
-export function evaluatePlanForGroup(
-  plan: SchedulePlan,
+export function evaluateScheduleForGroup(
+  plan: Schedule,
   totals: { areaSy: number; laneMiles: number },
   discountRate: number,
   analysisPeriodYears: number,

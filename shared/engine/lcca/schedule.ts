@@ -24,7 +24,7 @@ export type ActivityTemplate = {
 
 export type MaintenanceCycle = { template: ActivityTemplate; everyYears: number };
 
-export type SchedulePlan = {
+export type Schedule = {
   initial: ActivityTemplate;
   /** Treatments applied in turn as each life ends; the last one repeats. Empty: the initial repeats. */
   rehabilitation: ActivityTemplate[];
@@ -62,7 +62,7 @@ export const bookingYear = (t: number) => Math.max(0, Math.ceil(t - 1e-9));
  */
 const MIN_LIFE_YEARS = 1;
 
-export function expandSchedule(plan: SchedulePlan, analysisPeriodYears: number): RatedActivity[] {
+export function expandSchedule(plan: Schedule, analysisPeriodYears: number): RatedActivity[] {
   const out: RatedActivity[] = [];
   let startsAt = 0;
   let current = plan.initial;

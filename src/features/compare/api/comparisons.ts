@@ -1,7 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import type { StudyResult } from '@shared/engine/lcca/study';
-import type { AnalysisListSchema, StudyInput } from '@shared/schemas/lcca';
+import type { ComparisonResult } from '@shared/engine/lcca/comparison';
+import type { ComparisonListSchema, ComparisonInput } from '@shared/schemas/comparisons';
 import { api } from '@/lib/api-client';
 import { comparisonKeys } from './keys';
 import type { ComparisonRun } from './comparison-runs';
@@ -9,12 +9,12 @@ import type { ComparisonRun } from './comparison-runs';
 export const comparisonsQueryOptions = (agencyId: string) =>
   queryOptions({
     queryKey: comparisonKeys.list(agencyId),
-    queryFn: () => api<z.infer<typeof AnalysisListSchema>>(`/api/agencies/${agencyId}/analyses`),
+    queryFn: () => api<z.infer<typeof ComparisonListSchema>>(`/api/agencies/${agencyId}/analyses`),
   });
 
 export const useComparisons = (agencyId: string) => useQuery(comparisonsQueryOptions(agencyId));
 
-export type SavedComparison = { id: string; name: string; input: StudyInput; result: StudyResult | null };
+export type SavedComparison = { id: string; name: string; input: ComparisonInput; result: ComparisonResult | null };
 
 export const comparisonQueryOptions = (agencyId: string, id: string | null) =>
   queryOptions({

@@ -1,7 +1,7 @@
 import type { Catalog } from '@shared/schemas/catalog';
 import { OVERLAY_KINDS } from '@shared/schemas/catalog';
 import { millDepthFor } from '@shared/engine/lcca/costing';
-import type { AlternativeSpec, Step } from '@shared/schemas/lcca';
+import type { AlternativeSpec, Step } from '@shared/schemas/comparisons';
 import { Select, TextInput } from '@/components/ui/field';
 import { autoName } from '../lib/default-alternatives';
 import { ALT_COLORS } from './charts';

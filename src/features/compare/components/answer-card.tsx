@@ -1,5 +1,5 @@
 import { answerFor } from '@shared/engine/lcca/answer';
-import type { StudyResult } from '@shared/engine/lcca/study';
+import type { ComparisonResult } from '@shared/engine/lcca/comparison';
 import { fmt1, fmtInt, fmtMoney } from '@/lib/format';
 import { laneWidthFt, perTon, saving, syPerLaneMile } from '../lib/result-figures';
 
@@ -14,7 +14,7 @@ function Figure({ label, value, detail, testId }: { label: string; value: string
 }
 
 /** The answer first: one sentence, then the figures practitioners quote, against the runner-up. */
-export function AnswerCard({ r }: { r: StudyResult }) {
+export function AnswerCard({ r }: { r: ComparisonResult }) {
   const a = answerFor(r);
   const w = a.winner === null ? null : r.alternatives[a.winner];
   const ru = a.runnerUp === null ? null : r.alternatives[a.runnerUp];

@@ -1,10 +1,10 @@
-import type { StudyResult } from '@shared/engine/lcca/study';
+import type { ComparisonResult } from '@shared/engine/lcca/comparison';
 import { Card } from '@/components/ui/page';
 import { groupCautions } from '../lib/cautions';
 import { Swatch } from './ranked-table';
 
 /** Cautions by kind, each once, beside the alternatives (and mixes or treatments) they concern. */
-export function CautionsPanel({ r }: { r: StudyResult }) {
+export function CautionsPanel({ r }: { r: ComparisonResult }) {
   const names = r.alternatives.map((a) => a.name);
   const groups = groupCautions(r.cautions, names);
   if (groups.length === 0) return null;

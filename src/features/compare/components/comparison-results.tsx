@@ -1,4 +1,4 @@
-import type { StudyResult } from '@shared/engine/lcca/study';
+import type { ComparisonResult } from '@shared/engine/lcca/comparison';
 import { Card } from '@/components/ui/page';
 import { AnswerCard } from './answer-card';
 import { CautionsPanel } from './cautions-panel';
@@ -8,7 +8,7 @@ import { RiskCard } from './risk-card';
 import { SavingsTable } from './savings-table';
 
 /** The result, answer first: the sentence, the ranking, savings, cautions by kind, cash flows, then the risk. */
-export function ComparisonResults({ r }: { r: StudyResult }) {
+export function ComparisonResults({ r }: { r: ComparisonResult }) {
   return (
     <div
       className="space-y-4"

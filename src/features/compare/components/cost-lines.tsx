@@ -1,4 +1,4 @@
-import type { StudyResult } from '@shared/engine/lcca/study';
+import type { ComparisonResult } from '@shared/engine/lcca/comparison';
 import { fmtInt, fmtMoney } from '@/lib/format';
 
 const LIFE_SOURCE: Record<string, string> = {
@@ -8,7 +8,7 @@ const LIFE_SOURCE: Record<string, string> = {
 };
 
 /** The first application's cost lines and how its present value is made up. */
-export function CostLines({ r, i }: { r: StudyResult; i: number }) {
+export function CostLines({ r, i }: { r: ComparisonResult; i: number }) {
   const a = r.alternatives[i];
   const be = r.breakEven[i];
   return (

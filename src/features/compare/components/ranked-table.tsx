@@ -1,5 +1,5 @@
 import { Fragment, useState } from 'react';
-import type { StudyResult } from '@shared/engine/lcca/study';
+import type { ComparisonResult } from '@shared/engine/lcca/comparison';
 import { Card } from '@/components/ui/page';
 import { fmtMoney } from '@/lib/format';
 import { kindsFor } from '../lib/cautions';
@@ -20,7 +20,7 @@ export function Swatch({ i }: { i: number }) {
 }
 
 /** Ranked by present value; each row names the kinds of caution that concern it and opens its cost lines. */
-export function RankedTable({ r }: { r: StudyResult }) {
+export function RankedTable({ r }: { r: ComparisonResult }) {
   const [open, setOpen] = useState<number | null>(null);
   const mc = r.monteCarlo;
   const names = r.alternatives.map((a) => a.name);

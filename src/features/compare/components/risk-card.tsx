@@ -1,11 +1,11 @@
-import type { StudyResult } from '@shared/engine/lcca/study';
+import type { ComparisonResult } from '@shared/engine/lcca/comparison';
 import { Card } from '@/components/ui/page';
 import { fmtInt, fmtMoney } from '@/lib/format';
 import { McHistogram } from './charts';
 import { Swatch } from './ranked-table';
 import { Tornado } from './tornado';
 
-export function RiskCard({ r }: { r: StudyResult }) {
+export function RiskCard({ r }: { r: ComparisonResult }) {
   const mc = r.monteCarlo;
   return (
     <Card title="How sure is the answer">

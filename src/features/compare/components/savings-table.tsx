@@ -1,4 +1,4 @@
-import type { StudyResult } from '@shared/engine/lcca/study';
+import type { ComparisonResult } from '@shared/engine/lcca/comparison';
 import { Card } from '@/components/ui/page';
 import { fmt1, fmtInt, fmtMoney } from '@/lib/format';
 import { laneWidthFt } from '../lib/result-figures';
@@ -19,7 +19,7 @@ function Two({ top, bottom, tone }: { top: string; bottom: string; tone?: 'good'
 const tone = (v: number) => (v > 0 ? 'good' : v < 0 ? 'bad' : undefined);
 
 /** Each alternative against the baseline: for the job and per lane-mile, money and mix. */
-export function SavingsTable({ r }: { r: StudyResult }) {
+export function SavingsTable({ r }: { r: ComparisonResult }) {
   const base = r.alternatives[r.baselineIndex];
   return (
     <Card title={`Against the baseline, ${base.name}`}>

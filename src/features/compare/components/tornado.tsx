@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import type { StudyResult } from '@shared/engine/lcca/study';
+import type { ComparisonResult } from '@shared/engine/lcca/comparison';
 import { tornadoRows } from '../lib/tornado';
 import { money } from './charts';
 
@@ -7,7 +7,7 @@ import { money } from './charts';
  * One alternative's net present value with each input moved to its low and high
  * in turn: full labels, the range moved over, and only the inputs that change it.
  */
-export function Tornado({ r }: { r: StudyResult }) {
+export function Tornado({ r }: { r: ComparisonResult }) {
   const [alt, setAlt] = useState(r.answer?.winner ?? r.ranking[0]);
   const names = r.alternatives.map((a) => a.name);
   const { shown, hidden } = tornadoRows(r.sensitivity.rows, alt, names);

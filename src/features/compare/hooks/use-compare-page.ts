@@ -4,7 +4,7 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { toast } from 'sonner';
-import type { AlternativeSpec, Group, StudyRequest } from '@shared/schemas/lcca';
+import type { AlternativeSpec, Group, ComparisonRequest } from '@shared/schemas/comparisons';
 import { useCatalog } from '@/features/catalog/api/get-catalog';
 import { useSegments } from '@/features/segments/api/get-segments';
 import { type SavedComparison, useComparison } from '../api/comparisons';
@@ -82,7 +82,7 @@ export function useComparePage(agencyId: string) {
     return totals && ids.length ? segmentGroup(ids, totals) : null;
   }, [roads, ids, selection.data?.totals]);
 
-  const request: StudyRequest | null =
+  const request: ComparisonRequest | null =
     alts && group
       ? {
           name: name || group.label,

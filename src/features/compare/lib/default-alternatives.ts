@@ -1,5 +1,5 @@
 import type { Catalog } from '@shared/schemas/catalog';
-import type { AlternativeSpec } from '@shared/schemas/lcca';
+import type { AlternativeSpec } from '@shared/schemas/comparisons';
 
 /**
  * The name an alternative gets from its first treatment: "1.5 in Rubber-modified,

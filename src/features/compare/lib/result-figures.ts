@@ -1,16 +1,16 @@
 // Figures of a result that saved results of every age can give: fields added
 // later (lane width, first cost per ton) are derived when absent.
-import type { StudyResult } from '@shared/engine/lcca/study';
+import type { ComparisonResult } from '@shared/engine/lcca/comparison';
 
 const FT_PER_MILE = 5280;
 
-export const laneWidthFt = (r: StudyResult) =>
+export const laneWidthFt = (r: ComparisonResult) =>
   r.group.laneWidthFt ?? (r.group.areaSy * 9) / (r.group.laneMiles * FT_PER_MILE);
 
 /** Square yards in one lane-mile at that width. */
-export const syPerLaneMile = (r: StudyResult) => r.group.areaSy / r.group.laneMiles;
+export const syPerLaneMile = (r: ComparisonResult) => r.group.areaSy / r.group.laneMiles;
 
-export const perTon = (a: StudyResult['alternatives'][number]) =>
+export const perTon = (a: ComparisonResult['alternatives'][number]) =>
   a.initialTons > 0 ? a.firstCost / a.initialTons : null;
 
 export const saving = (v: number, fmt: (x: number) => string) =>

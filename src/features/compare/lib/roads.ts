@@ -1,7 +1,7 @@
 // The roads a comparison runs on: segments picked under Roads, or a section
 // typed in. Both turn into the request's group, and a saved comparison's group
 // turns back into them, so reopening it shows (and re-runs on) the same roads.
-import type { Group } from '@shared/schemas/lcca';
+import type { Group } from '@shared/schemas/comparisons';
 import type { FunctionalClass } from '@shared/schemas/segments';
 import { areaSy, laneMiles } from '@shared/engine/quantities';
 

@@ -1,7 +1,7 @@
 // What a result was run on, in a comparable form, so that a result shown
 // beside changed inputs carries an "out of date" mark saying what changed.
 import type { Economics, Mix, Treatment } from '@shared/schemas/catalog';
-import type { AlternativeSpec, Step, StudyInput } from '@shared/schemas/lcca';
+import type { AlternativeSpec, Step, ComparisonInput } from '@shared/schemas/comparisons';
 import { type Roads, roadsOfGroup } from './roads';
 
 export type RunBasis = { roads: string; alternatives: string; baseline: number; iterations: number; prices: string };
@@ -76,7 +76,7 @@ export function basisOf(
   return { roads: roadsKey(roads), alternatives: altsKey(alts), baseline, iterations, prices: pricesKey(alts, prices) };
 }
 
-export function basisOfSaved(input: StudyInput): RunBasis {
+export function basisOfSaved(input: ComparisonInput): RunBasis {
   return basisOf(roadsOfGroup(input.group), input.alternatives, input.baselineIndex, input.risk.iterations, {
     mixes: input.catalog.mixes,
     treatments: input.catalog.treatments,

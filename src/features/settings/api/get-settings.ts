@@ -1,8 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { AgencyView } from '@shared/schemas/agency';
 import { api } from '@/lib/api-client';
 import { settingsKeys, settingsPath } from './keys';
 
-export type AgencySettings = { id: string; name: string; kind: string; units: 'us' | 'metric' };
+/** The agency as the settings route answers it (AgencyViewSchema). */
+export type AgencySettings = AgencyView;
 
 export const getSettings = (agencyId: string) => api<AgencySettings>(settingsPath(agencyId));
 

@@ -1,9 +1,8 @@
 // An agency export restored into a new agency: a multipart upload, so fetch rather than api().
-export type RestoreAnswer = {
-  counts?: { segments: number };
-  analysesToRerun?: number;
-  error?: { message?: string };
-};
+import type { RestoreReport } from '@shared/schemas/agency';
+import type { ErrorBody } from '@shared/schemas/common';
+/** The restore's report when it worked (RestoreReportSchema), the error body when not. */
+export type RestoreAnswer = Partial<RestoreReport> & Partial<ErrorBody>;
 
 export async function restoreAgency(archive: File): Promise<{ ok: boolean; body: RestoreAnswer }> {
   const form = new FormData();

@@ -4,13 +4,13 @@
 // rules, cold-weather notes of the mixes used, and lives that are assumptions.
 import type { Mix } from '../../schemas/catalog';
 import { OVERLAY_KINDS } from '../../schemas/catalog';
-import type { Group, StudyInput } from '../../schemas/lcca';
+import type { Group, ComparisonInput } from '../../schemas/comparisons';
 import { checkOverlay } from '../structural';
-import type { Lookup } from './study-plan';
+import type { Lookup } from './schedule-input';
 
 export type CautionKind = 'service' | 'structural' | 'applicability' | 'cold-weather' | 'life-assumption';
 
-export type StudyCaution = {
+export type ComparisonCaution = {
   kind: CautionKind;
   /** The alternative it concerns, by name and by position in the input. */
   alternative: string;
@@ -53,7 +53,7 @@ export function groupPci(group: Group): number | null {
 }
 
 /** Equal service: the initial treatment is one the catalog gives to roads in this condition. */
-export function serviceChecks(input: StudyInput, look: Lookup): ServiceCheck[] {
+export function serviceChecks(input: ComparisonInput, look: Lookup): ServiceCheck[] {
   const pci = groupPci(input.group);
   const length = input.group.segments.reduce((s, x) => s + (x.lengthMi ?? 1), 0);
   return input.alternatives.map((a) => {
@@ -76,13 +76,13 @@ type AltView = {
   rehabilitation: unknown[];
 };
 
-export function studyCautions(
-  input: StudyInput,
+export function comparisonCautions(
+  input: ComparisonInput,
   look: Lookup,
   alternatives: AltView[],
   service: ServiceCheck[],
-): StudyCaution[] {
-  const cautions: StudyCaution[] = [];
+): ComparisonCaution[] {
+  const cautions: ComparisonCaution[] = [];
   const n = input.group.segments.length;
   const anyEqual = service.some((s) => s.equal);
   input.alternatives.forEach((a, i) => {

@@ -1,11 +1,11 @@
 // From a comparison's alternatives (catalog steps) to schedule plans: each step
 // resolved against the snapshot of the catalog, with its lift checked.
 import type { Mix, Treatment } from '../../schemas/catalog';
-import type { AlternativeSpec, Step, StudyInput } from '../../schemas/lcca';
+import type { AlternativeSpec, Step, ComparisonInput } from '../../schemas/comparisons';
 import { type PriceOverrides, type ResolvedTreatment, resolveTreatment } from './costing';
-import type { ActivityTemplate, SchedulePlan } from './schedule';
+import type { ActivityTemplate, Schedule } from './schedule';
 
-export class StudyInputError extends Error {
+export class ComparisonInputError extends Error {
   constructor(
     public path: string,
     message: string,
@@ -16,7 +16,7 @@ export class StudyInputError extends Error {
 
 export type Lookup = { mix: (id: string) => Mix | undefined; treatment: (id: string) => Treatment | undefined };
 
-export function lookup(input: StudyInput): Lookup {
+export function lookup(input: ComparisonInput): Lookup {
   const m = new Map(input.catalog.mixes.map((x) => [x.id, x]));
   const t = new Map(input.catalog.treatments.map((x) => [x.id, x]));
   return { mix: (id) => m.get(id), treatment: (id) => t.get(id) };
@@ -25,25 +25,25 @@ export function lookup(input: StudyInput): Lookup {
 export function resolveStep(
   step: Step,
   path: string,
-  input: StudyInput,
+  input: ComparisonInput,
   look: Lookup,
   over: PriceOverrides,
   lifeOverride?: number,
 ): ResolvedTreatment {
   const t = look.treatment(step.treatmentId);
-  if (!t) throw new StudyInputError(`${path}.treatmentId`, 'is not a treatment in the catalog');
+  if (!t) throw new ComparisonInputError(`${path}.treatmentId`, 'is not a treatment in the catalog');
   const mixId = step.mixId ?? t.mixId;
   const mix = mixId ? look.mix(mixId) : undefined;
-  if (mixId && !mix) throw new StudyInputError(`${path}.mixId`, 'is not a mix in the catalog');
+  if (mixId && !mix) throw new ComparisonInputError(`${path}.mixId`, 'is not a mix in the catalog');
   const thickness = mix ? (step.thicknessIn ?? t.defaultThicknessIn) : null;
   if (mix && thickness !== null && (thickness < mix.minLiftIn - 1e-9 || thickness > mix.maxLiftIn + 1e-9)) {
-    throw new StudyInputError(
+    throw new ComparisonInputError(
       `${path}.thicknessIn`,
       `${thickness} in is outside the ${mix.name} lift range of ${mix.minLiftIn}–${mix.maxLiftIn} in`,
     );
   }
   if (step.serviceLifeYears !== undefined && step.serviceLifeYears !== null && step.serviceLifeYears <= 0)
-    throw new StudyInputError(`${path}.serviceLifeYears`, 'must be more than 0');
+    throw new ComparisonInputError(`${path}.serviceLifeYears`, 'must be more than 0');
   return resolveTreatment(
     t,
     mix ?? null,
@@ -64,10 +64,10 @@ const template = (r: ResolvedTreatment, salvage = true): ActivityTemplate => ({
 });
 
 /** Keys of the lives a model varies: alt:<i>:life:<j>, j = 0 for the initial step, 1… for rehabilitation steps. */
-export function buildPlan(
+export function buildSchedule(
   spec: AlternativeSpec,
   i: number,
-  input: StudyInput,
+  input: ComparisonInput,
   look: Lookup,
   over: PriceOverrides,
   values?: Record<string, number>,
@@ -81,7 +81,7 @@ export function buildPlan(
     const r = resolveStep({ treatmentId: m.treatmentId }, `alternatives.${i}.maintenance.${j}`, input, look, over);
     return { template: template(r, false), everyYears: m.everyYears };
   });
-  const plan: SchedulePlan = {
+  const plan: Schedule = {
     initial: template(initial),
     rehabilitation: rehab.map((r) => template(r)),
     maintenance: maint,

@@ -1,23 +1,26 @@
 import { z } from 'zod';
 import { AgencyParamsSchema, OkSchema } from '../../shared/schemas/common';
 import {
-  AnalysisListSchema,
-  AnalysisParamsSchema,
+  ComparisonListSchema,
+  ComparisonParamsSchema,
+  ComparisonSchema,
   EvaluateBodySchema,
   EvaluateResultSchema,
-  SaveAnalysisBodySchema,
-  StudyRequestSchema,
-} from '../../shared/schemas/lcca';
+  SaveComparisonBodySchema,
+  SavedComparisonSchema,
+  ComparisonRequestSchema,
+} from '../../shared/schemas/comparisons';
 import { RunViewSchema } from '../../shared/schemas/runs';
 import type { Deps } from '../deps';
 import type { ApiRoutes } from '../http/api';
-import { exportableComparison } from './lcca.export';
-import { comparisonExportTask } from './lcca.tasks';
-import * as service from './lcca.service';
+import { sendDownload } from '../http/download';
+import { exportableComparison } from './comparisons.export';
+import { comparisonExportTask } from './comparisons.tasks';
+import * as service from './comparisons.service';
 
-export function lccaRoutes(api: ApiRoutes, deps: Deps) {
+export function comparisonRoutes(api: ApiRoutes, deps: Deps) {
   const engineer = { kind: 'agency', role: 'engineer' } as const;
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/lcca/evaluate',
     tag: 'Life-cycle cost',
@@ -28,7 +31,7 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
     response: EvaluateResultSchema,
     handler: ({ body }) => service.evaluate(body),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/agencies/:agencyId/analyses/runs',
     tag: 'Life-cycle cost',
@@ -36,13 +39,13 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
       'Start a comparison of 2–6 catalog-based alternatives on a group of segments (or a typed-in section); runs off the request thread with Monte Carlo. Answers 202 with the run to poll at /api/agencies/{agencyId}/runs/{runId}.',
     access: engineer,
     params: AgencyParamsSchema,
-    body: StudyRequestSchema,
+    body: ComparisonRequestSchema,
     response: RunViewSchema,
     status: 202,
     heavy: true,
     handler: ({ agency, user, body }) => service.startComparison(deps, agency!.id, user!.id, body),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/agencies/:agencyId/analyses',
     tag: 'Life-cycle cost',
@@ -50,90 +53,74 @@ export function lccaRoutes(api: ApiRoutes, deps: Deps) {
       'Save a finished run with the snapshot of every input (catalog prices, economics, quantities), so that it reproduces exactly',
     access: engineer,
     params: AgencyParamsSchema,
-    body: SaveAnalysisBodySchema,
+    body: SaveComparisonBodySchema,
     status: 201,
-    response: z.object({ id: z.string() }),
-    handler: ({ agency, user, body }) => service.saveAnalysis(deps, agency!.id, user!.id, body.name, body.runId),
+    response: SavedComparisonSchema,
+    handler: ({ agency, user, body }) => service.saveComparison(deps, agency!.id, user!.id, body.name, body.runId),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/analyses',
     tag: 'Life-cycle cost',
     summary: 'Saved comparisons',
     access: engineer,
     params: AgencyParamsSchema,
-    response: AnalysisListSchema,
-    handler: ({ agency }) => service.listAnalyses(deps, agency!.id),
+    response: ComparisonListSchema,
+    handler: ({ agency }) => service.listComparisons(deps, agency!.id),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: '/api/agencies/:agencyId/analyses/:analysisId',
     tag: 'Life-cycle cost',
     summary: 'A saved comparison: its input snapshot and its result',
     access: engineer,
-    params: AnalysisParamsSchema,
-    handler: ({ agency, params }) => service.getAnalysis(deps, agency!.id, params.analysisId),
+    params: ComparisonParamsSchema,
+    response: ComparisonSchema,
+    handler: ({ agency, params }) => service.getComparison(deps, agency!.id, params.analysisId),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/agencies/:agencyId/analyses/:analysisId/rerun',
     tag: 'Life-cycle cost',
     summary:
       'Run a saved comparison again from its own snapshot (its own prices); answers 202 with the run to poll, and the saved result is replaced when it finishes',
     access: engineer,
-    params: AnalysisParamsSchema,
+    params: ComparisonParamsSchema,
     response: RunViewSchema,
     status: 202,
     heavy: true,
-    handler: ({ agency, user, params }) => service.rerunAnalysis(deps, agency!.id, user!.id, params.analysisId),
+    handler: ({ agency, user, params }) => service.rerunComparison(deps, agency!.id, user!.id, params.analysisId),
   });
-  api.add({
+  api.typed({
     method: 'delete',
     path: '/api/agencies/:agencyId/analyses/:analysisId',
     tag: 'Life-cycle cost',
     summary: 'Delete a saved comparison',
     access: engineer,
-    params: AnalysisParamsSchema,
+    params: ComparisonParamsSchema,
     response: OkSchema,
-    handler: ({ agency, user, params }) => {
-      service.deleteAnalysis(deps, agency!.id, user!.id, params.analysisId);
-      return { ok: true };
-    },
+    handler: ({ agency, user, params }) => service.deleteComparison(deps, agency!.id, user!.id, params.analysisId),
   });
-  api.add({
+  api.file({
     method: 'get',
     path: '/api/agencies/:agencyId/analyses/:analysisId/export',
     tag: 'Life-cycle cost',
     summary: 'A saved comparison as CSV (results) or XLSX (results, cash flows, cost lines)',
     access: engineer,
-    params: AnalysisParamsSchema,
+    params: ComparisonParamsSchema,
     query: z.object({ format: z.enum(['csv', 'xlsx']).default('csv') }),
     responseDescription: 'text/csv or an XLSX workbook',
     heavy: true,
     handler: async ({ agency, user, params, query, res, signal }) => {
       // Cheap checks first (exists, has a result), so a 404 or 409 takes no slot; the file is built in a worker.
-      const a = exportableComparison(deps.db, agency!.id, params.analysisId);
-      const base =
-        a.name
-          .toLowerCase()
-          .replace(/[^a-z0-9]+/g, '-')
-          .slice(0, 60) || 'comparison';
+      const { base } = exportableComparison(deps.db, agency!.id, params.analysisId);
       const file = await deps.pool.run(
         comparisonExportTask,
         { agencyId: agency!.id, analysisId: params.analysisId, format: query.format },
         { userId: user!.id, agencyId: agency!.id },
         { signal },
       );
-      if (query.format === 'xlsx') {
-        res.setHeader('Content-Type', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
-        res.setHeader('Content-Disposition', `attachment; filename="${base}.xlsx"`);
-        const bytes = file as Uint8Array;
-        res.send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
-      } else {
-        res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-        res.setHeader('Content-Disposition', `attachment; filename="${base}.csv"`);
-        res.send(file as string);
-      }
+      sendDownload(res, base, query.format, file);
     },
   });
 }

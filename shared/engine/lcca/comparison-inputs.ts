@@ -1,13 +1,13 @@
 // The uncertain inputs of a comparison (rate, prices, lives) with their ranges,
 // and the model that maps their values to each alternative's net present value.
-import type { Step, StudyInput } from '../../schemas/lcca';
+import type { Step, ComparisonInput } from '../../schemas/comparisons';
 import type { PriceOverrides } from './costing';
-import { evaluatePlanForGroup } from './network';
+import { evaluateScheduleForGroup } from './network';
 import type { ModelInput } from './risk';
-import { buildPlan, lookup, resolveStep, StudyInputError } from './study-plan';
+import { buildSchedule, lookup, resolveStep, ComparisonInputError } from './schedule-input';
 
 /** The uncertain inputs: rate, each mix price, each treatment's other prices, each life. */
-export function studyInputs(input: StudyInput): ModelInput[] {
+export function comparisonInputs(input: ComparisonInput): ModelInput[] {
   const look = lookup(input);
   const out: ModelInput[] = [];
   const r = input.economics.discountRate;
@@ -82,35 +82,35 @@ const fmtValue = (key: string, v: number) =>
  * and a tornado row whose range leaves out the base case reads wrong), inside
  * what the quantity can be. The base is never moved to fit a range.
  */
-function checkRanges(input: StudyInput, inputs: ModelInput[]) {
+function checkRanges(input: ComparisonInput, inputs: ModelInput[]) {
   const byKey = new Map(inputs.map((i) => [i.key, i]));
   for (const [key, o] of Object.entries(input.risk.ranges)) {
     const path = `risk.ranges.${key}`;
     const inp = byKey.get(key);
     if (!inp)
-      throw new StudyInputError(
+      throw new ComparisonInputError(
         path,
         `is not an uncertain input of this comparison (it has: ${inputs.map((i) => i.key).join(', ')})`,
       );
     if (!Number.isFinite(o.low) || !Number.isFinite(o.high))
-      throw new StudyInputError(path, 'needs a low and a high value');
+      throw new ComparisonInputError(path, 'needs a low and a high value');
     if (o.low > o.high)
-      throw new StudyInputError(
+      throw new ComparisonInputError(
         `${path}.low`,
         `low ${fmtValue(key, o.low)} is above high ${fmtValue(key, o.high)} for ${inp.label}`,
       );
     if (o.low > inp.base)
-      throw new StudyInputError(
+      throw new ComparisonInputError(
         `${path}.low`,
         `low ${fmtValue(key, o.low)} is above the value the comparison uses, ${fmtValue(key, inp.base)}, for ${inp.label}; the range must contain it`,
       );
     if (o.high < inp.base)
-      throw new StudyInputError(
+      throw new ComparisonInputError(
         `${path}.high`,
         `high ${fmtValue(key, o.high)} is below the value the comparison uses, ${fmtValue(key, inp.base)}, for ${inp.label}; the range must contain it`,
       );
     if (key === 'rate' ? o.low <= -1 : key.includes(':life:') ? o.low <= 0 : o.low < 0)
-      throw new StudyInputError(
+      throw new ComparisonInputError(
         `${path}.low`,
         key === 'rate'
           ? 'a discount rate must be more than −100 %'
@@ -130,15 +130,15 @@ function overridesFrom(values: Record<string, number>): PriceOverrides {
   return over;
 }
 
-export function studyModel(input: StudyInput) {
+export function comparisonModel(input: ComparisonInput) {
   const look = lookup(input);
   const q = { areaSy: input.group.areaSy, laneMiles: input.group.laneMiles };
   return (values: Record<string, number>) => {
     const over = overridesFrom(values);
     return input.alternatives.map(
       (a, i) =>
-        evaluatePlanForGroup(
-          buildPlan(a, i, input, look, over, values).plan,
+        evaluateScheduleForGroup(
+          buildSchedule(a, i, input, look, over, values).plan,
           q,
           values.rate,
           input.economics.analysisPeriodYears,

@@ -1,41 +1,33 @@
 // A saved comparison as CSV or XLSX: the ranked results, cost lines and cash flows.
-import { and, eq, isNotNull, sql } from 'drizzle-orm';
 import ExcelJS from 'exceljs';
-import type { StudyResult } from '../../shared/engine/lcca/study';
+import type { ComparisonResult } from '../../shared/engine/lcca/comparison';
 import { toCsv } from '../csv';
 import type { Db } from '../db/client';
-import { analyses } from '../db/schema';
+import { fileSlug } from '../http/download';
 import { HttpError, notFound } from '../http/errors';
+import * as repo from './comparisons.repo';
 
 /**
  * What the request thread checks before the export takes a slot: the comparison is the agency's and has a
  * result. Reads the name and whether a result is stored, never the result itself.
  */
 export function exportableComparison(db: Db, agencyId: string, analysisId: string) {
-  const row = db
-    .select({ name: analyses.name, hasResult: sql<number>`${analyses.result} IS NOT NULL` })
-    .from(analyses)
-    .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, analysisId)))
-    .get();
+  const row = repo.exportable(db, agencyId, analysisId);
   if (!row) throw notFound('No such analysis');
   if (!row.hasResult) throw new HttpError(409, 'no_result', 'This comparison has no result yet; run it first');
-  return { name: row.name };
+  return { name: row.name, base: fileSlug(row.name).slice(0, 60) || 'comparison' };
 }
 
 /** The export itself, in a worker: the stored result is read, parsed and written out there. */
 export async function comparisonFile(db: Db, agencyId: string, analysisId: string, format: 'csv' | 'xlsx') {
-  const row = db
-    .select({ name: analyses.name, result: analyses.result })
-    .from(analyses)
-    .where(and(eq(analyses.agencyId, agencyId), eq(analyses.id, analysisId), isNotNull(analyses.result)))
-    .get();
+  const row = repo.withResult(db, agencyId, analysisId);
   if (!row?.result) throw notFound('No such analysis with a result');
-  const result = JSON.parse(row.result) as StudyResult;
-  return format === 'xlsx' ? await studyXlsx(row.name, result) : studyCsv(result);
+  const result = JSON.parse(row.result) as ComparisonResult;
+  return format === 'xlsx' ? await comparisonXlsx(row.name, result) : comparisonCsv(result);
 }
 
 /** One row per alternative, keyed by plain-word headers (the CSV and the workbook's first sheet). */
-export function resultRows(result: StudyResult): Record<string, string | number>[] {
+export function resultRows(result: ComparisonResult): Record<string, string | number>[] {
   return result.alternatives.map((a, i) => ({
     Alternative: a.name,
     Rank: result.ranking.indexOf(i) + 1,
@@ -53,7 +45,7 @@ export function resultRows(result: StudyResult): Record<string, string | number>
   }));
 }
 
-export function studyCsv(result: StudyResult) {
+export function comparisonCsv(result: ComparisonResult) {
   const rows = resultRows(result);
   return toCsv(
     Object.keys(rows[0] ?? {}),
@@ -61,7 +53,7 @@ export function studyCsv(result: StudyResult) {
   );
 }
 
-export async function studyXlsx(name: string, result: StudyResult) {
+export async function comparisonXlsx(name: string, result: ComparisonResult) {
   const wb = new ExcelJS.Workbook();
   wb.creator = 'Wearcourse';
   const summary = wb.addWorksheet('Results');

@@ -2,37 +2,37 @@
 // built from catalog items: the answer first, then results, cost lines,
 // sensitivity, break-even rates, Monte Carlo and cautions. Pure: the same input
 // gives the same output.
-import type { StudyInput } from '../../schemas/lcca';
+import type { ComparisonInput } from '../../schemas/comparisons';
 import { answerFor } from './answer';
 import { costLines } from './costing';
-import { evaluatePlanForGroup } from './network';
+import { evaluateScheduleForGroup } from './network';
 import { breakEvenRate, monteCarlo, sensitivity } from './risk';
-import { serviceChecks, studyCautions } from './study-cautions';
-import { studyInputs, studyModel } from './study-inputs';
-import { buildPlan, lookup, StudyInputError } from './study-plan';
+import { serviceChecks, comparisonCautions } from './comparison-cautions';
+import { comparisonInputs, comparisonModel } from './comparison-inputs';
+import { buildSchedule, lookup, ComparisonInputError } from './schedule-input';
 
-export { StudyInputError } from './study-plan';
-export { studyInputs, studyModel } from './study-inputs';
-export type { StudyCaution } from './study-cautions';
+export { ComparisonInputError } from './schedule-input';
+export { comparisonInputs, comparisonModel } from './comparison-inputs';
+export type { ComparisonCaution } from './comparison-cautions';
 
 /** Feet in a mile; with 9 sq ft to the square yard, lane width = SY × 9 / (lane-miles × 5,280). */
 const FT_PER_MILE = 5280;
 
-export type StudyResult = ReturnType<typeof runStudy>;
+export type ComparisonResult = ReturnType<typeof runComparison>;
 
-export function runStudy(
-  input: StudyInput,
+export function runComparison(
+  input: ComparisonInput,
   opts: { onProgress?: (fraction: number) => void; monteCarlo?: boolean } = {},
 ) {
   if (input.baselineIndex >= input.alternatives.length)
-    throw new StudyInputError('baselineIndex', 'names no alternative');
+    throw new ComparisonInputError('baselineIndex', 'names no alternative');
   const look = lookup(input);
   const { discountRate: rate, analysisPeriodYears: N } = input.economics;
   const q = { areaSy: input.group.areaSy, laneMiles: input.group.laneMiles };
   const service = serviceChecks(input, look);
   const alternatives = input.alternatives.map((a, i) => {
-    const { plan, initial, rehab } = buildPlan(a, i, input, look, {});
-    const { result, rated } = evaluatePlanForGroup(plan, q, rate, N);
+    const { plan, initial, rehab } = buildSchedule(a, i, input, look, {});
+    const { result, rated } = evaluateScheduleForGroup(plan, q, rate, N);
     const first = costLines(initial, q);
     return {
       name: a.name,
@@ -80,8 +80,8 @@ export function runStudy(
     tonsSavedPerLaneMile: (base.initialTons - a.initialTons) / q.laneMiles,
   }));
 
-  const inputs = studyInputs(input);
-  const model = studyModel(input);
+  const inputs = comparisonInputs(input);
+  const model = comparisonModel(input);
   const tornado = sensitivity(inputs, model);
   const baseValues = Object.fromEntries(inputs.map((i) => [i.key, i.base]));
   const breakEven = alternatives.map((_, i) =>
@@ -120,6 +120,6 @@ export function runStudy(
     sensitivity: { base: tornado.base, rows: tornado.rows.map((r) => ({ ...r })) },
     breakEven,
     monteCarlo: mc,
-    cautions: studyCautions(input, look, alternatives, service),
+    cautions: comparisonCautions(input, look, alternatives, service),
   };
 }

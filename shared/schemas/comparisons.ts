@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { EconomicsSchema, MixSchema, TreatmentSchema } from './catalog';
 import { FunctionalClassSchema } from './segments';
+import type { ComparisonResult } from '../engine/lcca/comparison';
 
 // ---- The stateless evaluation (POST /api/lcca/evaluate) -------------------
 
@@ -26,7 +27,7 @@ const TemplateSchema = z.object({
   userCostPerJob: z.number().min(0).optional(),
 });
 
-export const PlanSchema = z.object({
+export const ScheduleSchema = z.object({
   initial: TemplateSchema,
   rehabilitation: z.array(TemplateSchema).max(10).default([]),
   maintenance: z
@@ -41,7 +42,7 @@ export const EvaluateAlternativeSchema = z
     name: z.string().trim().min(1).max(80),
     activities: z.array(ActivitySchema).max(200).optional(),
     /** Richer form: a plan priced per SY / lane-mile / job, expanded over the period. */
-    plan: PlanSchema.optional(),
+    plan: ScheduleSchema.optional(),
   })
   .refine((a) => (a.activities?.length ?? 0) > 0 || a.plan, {
     message: 'an alternative needs at least one activity (or a plan)',
@@ -151,7 +152,7 @@ export type Group = z.infer<typeof GroupSchema>;
  * The low and high of one uncertain input (keys as in the result's sensitivity
  * rows: rate, mix:<id>, treatment:<id>, alt:<i>:life:<j>). The range must hold
  * the value the comparison uses; the engine refuses one that does not, naming
- * the field (shared/engine/lcca/study.ts).
+ * the field (shared/engine/lcca/comparison.ts).
  */
 export const RangeOverrideSchema = z
   .object({
@@ -161,7 +162,7 @@ export const RangeOverrideSchema = z
   })
   .refine((r) => r.low <= r.high, { message: 'low is above high', path: ['low'] });
 
-export const StudyInputSchema = z.object({
+export const ComparisonInputSchema = z.object({
   economics: EconomicsSchema,
   group: GroupSchema,
   alternatives: z
@@ -185,30 +186,30 @@ export const StudyInputSchema = z.object({
   /** The catalog items the study uses, as they were: the snapshot that makes a re-run exact. */
   catalog: z.object({ mixes: z.array(MixSchema), treatments: z.array(TreatmentSchema) }),
 });
-export type StudyInput = z.infer<typeof StudyInputSchema>;
+export type ComparisonInput = z.infer<typeof ComparisonInputSchema>;
 
 /** What the client sends: the catalog snapshot and economics are filled in by the server. */
-export const StudyRequestSchema = z.object({
+export const ComparisonRequestSchema = z.object({
   name: z.string().trim().min(1).max(120).default('Untitled comparison'),
   group: GroupSchema,
-  alternatives: StudyInputSchema.shape.alternatives,
+  alternatives: ComparisonInputSchema.shape.alternatives,
   baselineIndex: z.number().int().min(0).default(0),
-  risk: StudyInputSchema.shape.risk.default({ iterations: 5000, seed: 2027, ranges: {} }),
+  risk: ComparisonInputSchema.shape.risk.default({ iterations: 5000, seed: 2027, ranges: {} }),
   economics: EconomicsSchema.partial().optional(),
 });
-export type StudyRequest = z.infer<typeof StudyRequestSchema>;
+export type ComparisonRequest = z.infer<typeof ComparisonRequestSchema>;
 
-export const AnalysisParamsSchema = z.object({
+export const ComparisonParamsSchema = z.object({
   agencyId: z.string().min(1).max(64),
   analysisId: z.string().min(1).max(64),
 });
 
-export const SaveAnalysisBodySchema = z.object({
+export const SaveComparisonBodySchema = z.object({
   name: z.string().trim().min(1).max(120),
   runId: z.string().min(1).max(64),
 });
 
-export const AnalysisListSchema = z.object({
+export const ComparisonListSchema = z.object({
   items: z.array(
     z.object({
       id: z.string(),
@@ -221,4 +222,23 @@ export const AnalysisListSchema = z.object({
       laneMiles: z.number(),
     }),
   ),
+});
+
+export const SavedComparisonSchema = z.object({ id: z.string() });
+
+/** A saved comparison: its input snapshot and, once run, its result (shared/engine/lcca/comparison.ts). */
+export const ComparisonSchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  input: ComparisonInputSchema,
+  // The result's type comes from the engine; the document describes it as an object.
+  result: z
+    .custom<ComparisonResult>()
+    .meta({
+      type: 'object',
+      description: 'null until run: per alternative the costs, EUAC, cash flows, the risk run and the cautions',
+    })
+    .nullable(),
 });
