@@ -107,13 +107,6 @@ export type FileRouteDef<
 
 export type ApiRoutes = {
   list: RouteDef[];
-  /**
-   * @deprecated The unchecked declaration, kept until the last modules move to `typed` (JSON) or
-   * `file` (files and streams). New routes use those two.
-   */
-  add: <PS extends AnyZod | undefined, QS extends AnyZod | undefined, BS extends AnyZod | undefined>(
-    def: RouteDef<PS, QS, BS>,
-  ) => void;
   /** A JSON route, its handler's return checked against `response` at compile time. */
   typed: <
     PS extends AnyZod | undefined,
@@ -137,7 +130,7 @@ export function createApiRoutes(): ApiRoutes {
     }
     list.push(def as unknown as RouteDef);
   };
-  return { list, add, typed: add, file: add };
+  return { list, typed: add, file: add };
 }
 
 function authorize(def: RouteDef, req: Request, roleIn: MembershipLookup) {

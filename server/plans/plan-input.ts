@@ -9,7 +9,7 @@ import { generateStrategies } from '../../shared/engine/plan/strategies';
 import { areaSy, laneMiles } from '../../shared/engine/quantities';
 import { budgetsOf, type PlanSettingsParsed, PlanSettingsSchema } from '../../shared/schemas/plans';
 import { SURFACES } from '../../shared/schemas/segments';
-import { agencyById } from '../agencies/agencies.repo';
+import { agencyById } from '../agencies/agencies.service';
 import * as catalogRepo from '../catalog/catalog.repo';
 import type { Deps } from '../deps';
 import { plans, segments } from '../db/schema';
@@ -43,7 +43,7 @@ export function planInput(deps: Pick<Deps, 'db'>, agencyId: string, planId: stri
     .get();
   if (!row) throw notFound('No such plan');
   const settings = storedSettings(row.settings);
-  const agency = agencyById(deps.db, agencyId)!;
+  const agency = agencyById(deps, agencyId)!;
   const segRows = deps.db
     .select()
     .from(segments)

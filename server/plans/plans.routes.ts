@@ -12,9 +12,10 @@ import {
   PlanViewSchema,
   PublishVersionBodySchema,
 } from '../../shared/schemas/plans';
+import { PlanLatestResultSchema } from '../../shared/schemas/plan-result';
 import { RunViewSchema } from '../../shared/schemas/runs';
 import type { Deps } from '../deps';
-import type { ApiRoutes } from '../http/api';
+import { type ApiRoutes, sendJsonText } from '../http/api';
 import { HttpError } from '../http/errors';
 import { parsePart } from '../http/validate';
 import * as service from './plans.service';
@@ -25,7 +26,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
   const viewer = { kind: 'agency', role: 'viewer' } as const;
   const base = '/api/agencies/:agencyId/plans';
 
-  api.add({
+  api.typed({
     method: 'post',
     path: '/api/plan/optimize',
     tag: 'Plans',
@@ -40,7 +41,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
       deps.pool.run(optimizeTask, rawBody!, { userId: user!.id, agencyId: null }, { signal, transfer: [rawBody!] }),
   });
 
-  api.add({
+  api.typed({
     method: 'get',
     path: base,
     tag: 'Plans',
@@ -50,7 +51,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     response: z.object({ items: z.array(PlanViewSchema) }),
     handler: ({ agency }) => service.listPlans(deps, agency!.id, agency!.role),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: base,
     tag: 'Plans',
@@ -62,7 +63,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     status: 201,
     handler: ({ agency, user, body }) => service.createPlan(deps, agency!.id, user!.id, body.name, body.settings),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: `${base}/:planId`,
     tag: 'Plans',
@@ -72,7 +73,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     response: PlanViewSchema,
     handler: ({ agency, params }) => service.getPlan(deps, agency!.id, params.planId, agency!.role),
   });
-  api.add({
+  api.typed({
     method: 'put',
     path: `${base}/:planId`,
     tag: 'Plans',
@@ -84,7 +85,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     handler: ({ agency, user, params, body }) =>
       service.updatePlan(deps, agency!.id, user!.id, params.planId, body.name, body.settings),
   });
-  api.add({
+  api.typed({
     method: 'delete',
     path: `${base}/:planId`,
     tag: 'Plans',
@@ -94,10 +95,10 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     response: OkSchema,
     handler: ({ agency, user, params }) => {
       service.deletePlan(deps, agency!.id, user!.id, params.planId);
-      return { ok: true };
+      return { ok: true as const };
     },
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: `${base}/:planId/run`,
     tag: 'Plans',
@@ -118,7 +119,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
         req.is('application/json') ? parsePart(PlanRunBodySchema, req.body ?? {}, 'body') : undefined,
       ),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: `${base}/:planId/result`,
     tag: 'Plans',
@@ -127,13 +128,11 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     access: viewer,
     params: PlanParamsSchema,
     query: PlanVersionQuerySchema,
-    handler: ({ agency, params, query, res }) => {
-      res
-        .type('application/json')
-        .send(service.latestResultJson(deps, agency!.id, params.planId, agency!.role, query.version));
-    },
+    response: PlanLatestResultSchema,
+    handler: ({ agency, params, query, res }) =>
+      sendJsonText(res, service.latestResultJson(deps, agency!.id, params.planId, agency!.role, query.version)),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: `${base}/:planId/publish`,
     tag: 'Plans',
@@ -142,6 +141,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     access: engineer,
     params: PlanParamsSchema,
     body: PublishVersionBodySchema,
+    response: PlanViewSchema.extend({ notified: z.number().int() }),
     heavy: true,
     handler: ({ agency, user, params, body, signal }) =>
       service.publish(
@@ -163,7 +163,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
         body.version,
       ),
   });
-  api.add({
+  api.typed({
     method: 'get',
     path: `${base}/:planId/versions`,
     tag: 'Plans',
@@ -173,7 +173,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     response: PlanVersionListSchema,
     handler: ({ agency, params }) => service.listVersions(deps, agency!.id, params.planId),
   });
-  api.add({
+  api.typed({
     method: 'post',
     path: `${base}/:planId/budget-search`,
     tag: 'Plans',
@@ -188,7 +188,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
     handler: ({ agency, user, params, body }) =>
       service.startBudgetSearch(deps, agency!.id, user!.id, params.planId, body.targetPci),
   });
-  api.add({
+  api.file({
     method: 'get',
     path: `${base}/:planId/work-list`,
     tag: 'Plans',
@@ -225,7 +225,7 @@ export function planRoutes(api: ApiRoutes, deps: Deps) {
       }
     },
   });
-  api.add({
+  api.file({
     method: 'get',
     path: `${base}/:planId/brief.pdf`,
     tag: 'Plans',

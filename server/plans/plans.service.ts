@@ -2,7 +2,7 @@ import { and, desc, eq, isNotNull } from 'drizzle-orm';
 import type { PlanInput, PlanResult } from '../../shared/engine/plan/run-plan';
 import { type AnyPlanResult, headline, headlineLines } from '../../shared/plan-headline';
 import type { PlanSettingsInput } from '../../shared/schemas/plans';
-import { agencyById } from '../agencies/agencies.repo';
+import { agencyById } from '../agencies/agencies.service';
 import { recordAudit } from '../audit';
 import { newId } from '../auth/tokens';
 import type { Db } from '../db/client';
@@ -406,7 +406,7 @@ export async function publish(
   });
   let notified = 0;
   if (notify) {
-    const agency = agencyById(deps.db, agencyId)!;
+    const agency = agencyById(deps, agencyId)!;
     const viewers = deps.db
       .select({ email: users.email, name: users.name })
       .from(memberships)
@@ -471,4 +471,4 @@ export function segmentLimits(deps: Pick<Deps, 'db'>, agencyId: string) {
   return new Map(rows.map((r) => [r.ref, r]));
 }
 
-export const agencyName = (deps: Pick<Deps, 'db'>, agencyId: string) => agencyById(deps.db, agencyId)!.name;
+export const agencyName = (deps: Pick<Deps, 'db'>, agencyId: string) => agencyById(deps, agencyId)!.name;

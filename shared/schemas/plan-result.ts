@@ -84,3 +84,15 @@ export const PlanResultSchema = z.object({
   floorMissedIn: z.array(z.number().int()),
 });
 export type PlanResultShape = z.infer<typeof PlanResultSchema>;
+
+/** `GET …/plans/:planId/result`: the latest finished run's result (results stored by older versions may lack newer fields). */
+export const PlanLatestResultSchema = z.object({
+  latest: z
+    .object({
+      runId: z.string(),
+      endedAt: z.string().nullable(),
+      version: z.number().int().nullable(),
+      result: PlanResultSchema,
+    })
+    .nullable(),
+});

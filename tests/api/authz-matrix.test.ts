@@ -1,6 +1,6 @@
 // The authorization matrix, generated from the router's own route list: every
 // declared route × signed out × each role × own/foreign agency. A route added
-// without an access rule cannot exist (api.add requires one), and a route
+// without an access rule cannot exist (api.typed and api.file require one), and a route
 // mounted outside the list fails the completeness check below.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLE_RANK } from '../../shared/schemas/common';
