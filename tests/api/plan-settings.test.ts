@@ -157,4 +157,18 @@ describe('plan settings reach the result', () => {
     expect(r.summary.workItems).toBeGreaterThan(r.summary.segmentsTreated);
     expect(r.summary.finalPci).toBeGreaterThan(r.summary.finalPciDoNothing);
   });
+  it('with a floor for arterials, the ten-year demo plan at $5M leaves no arterial failed', async () => {
+    // The benefit alone never buys reconstruction (its benefit per dollar is low), so failed arterials stay
+    // failed without a rule; a class floor (targets.classFloors) is how an agency says "not on our arterials".
+    const floors = ['principal_arterial', 'minor_arterial'].map((functionalClass) => ({ functionalClass, minPci: 26 }));
+    const x = await run({ horizonYears: 10, annualBudget: 5_000_000, targets: { classFloors: floors } });
+    const failed = arterialsFailedAtEnd(x.input, x.r);
+    console.log('demo plan with arterial floors at PCI 26, $5M a year:', {
+      finalPci: x.r.summary.finalPci.toFixed(1),
+      failedLaneMiles: [x.r.summary.failedLaneMilesStart.toFixed(1), x.r.summary.failedLaneMilesEnd.toFixed(1)],
+      targetsMissed: x.r.solution.targetsMissed,
+      arterialsFailedAtEnd: failed,
+    });
+    expect(failed).toEqual([]);
+  });
 });
