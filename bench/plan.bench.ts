@@ -9,14 +9,8 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import loadHighs from 'highs';
-import { resolveTreatment } from '../shared/engine/lcca/costing';
-import { DEFAULT_CURVES } from '../shared/engine/forecast/families';
 import { optionCount, type PackedInstance } from '../shared/engine/plan/instance';
-import { buildCandidates, type PlanSegment, type PlanTreatment } from '../shared/engine/plan/network-plan';
 import { solvePlan } from '../shared/engine/plan/solve';
-import { rng } from '../shared/engine/random';
-import type { Mix, Treatment } from '../shared/schemas/catalog';
-import { DEMO_ECONOMICS, DEMO_MIXES, DEMO_TREATMENTS } from '../server/seed/demo-catalog';
 import { syntheticStrategies } from './synthetic-strategies';
 
 const N = Number(process.env.BENCH_SEGMENTS ?? 20_000);
@@ -201,81 +195,7 @@ for (const [segments, per] of [
   );
 }
 
-// ---- 3. Today's candidate generation (network-plan.ts) on the older benchmark network -------
-
-const u = rng(99);
-const mixes: Mix[] = DEMO_MIXES.map(({ key, ...m }) => ({
-  ...m,
-  id: key,
-  isDemo: true,
-  coldWeatherNote: m.coldWeatherNote ?? null,
-  spreadRateLbPerSyIn: m.spreadRateLbPerSyIn ?? 110,
-}));
-const econ = {
-  discountRate: 0.02,
-  discountRateSource: null,
-  analysisPeriodYears: 40,
-  baseYear: 2027,
-  ...DEMO_ECONOMICS,
-  mobilizationPerJob: 0,
-};
-const treatments: PlanTreatment[] = DEMO_TREATMENTS.map(({ mixKey, ...tr0 }, i) => {
-  const tr: Treatment = {
-    ...tr0,
-    id: `t${i}`,
-    mixId: mixKey,
-    defaultThicknessIn: tr0.defaultThicknessIn ?? null,
-    millDepthIn: tr0.millDepthIn ?? 0,
-    isDemo: true,
-  };
-  const r = resolveTreatment(tr, mixKey ? mixes.find((m) => m.id === mixKey)! : null, {}, econ);
-  return {
-    id: tr.id,
-    name: tr.name,
-    category: tr.category,
-    costPerSy: r.rates.perSy * (1 + r.rates.addOnFraction),
-    costPerLaneMile: 0,
-    tonsPerSy: r.tonsPerSy,
-    mixName: r.mix?.name ?? null,
-    thicknessIn: r.thicknessIn,
-    lifeYears: r.serviceLifeYears,
-    effect: tr.effect,
-    applicability: tr.applicability,
-  };
-});
-const classes = ['local', 'local', 'local', 'minor_collector', 'major_collector', 'minor_arterial'];
-const segs: PlanSegment[] = Array.from({ length: N }, (_, i) => {
-  const len = 0.1 + u() * 0.9;
-  const surface = u() < 0.75 ? 'asphalt' : 'chip_seal';
-  return {
-    ref: i,
-    segmentId: `B-${i}`,
-    roadName: `Road ${i % 500}`,
-    lengthMi: len,
-    lanes: 2,
-    areaSy: (len * 5280 * 24) / 9,
-    laneMiles: len * 2,
-    functionalClass: classes[i % classes.length],
-    surface,
-    adt: Math.round(50 + u() * 3000),
-    pci: Math.round(15 + u() * 83),
-    lastTreatmentYear: 2005 + Math.floor(u() * 20),
-    familyKey: surface,
-  };
-});
-t = performance.now();
-const { packed } = buildCandidates(segs, treatments, (k) => DEFAULT_CURVES[k] ?? DEFAULT_CURVES.other, {
-  startYear: 2027,
-  budgets: new Array(H).fill(N * 1000),
-  weighting: 'lane-miles',
-  needsWorkBelow: 71,
-});
-const genMs = performance.now() - t;
-t = performance.now();
-const f2 = solvePlan(packed, 'fast', null);
-console.log(
-  `strategy generation on a synthetic network: ${ms(genMs)} for ${optionCount(packed).toLocaleString('en-US')} strategies; fast on them ${ms(performance.now() - t)}, gap ${pct(f2.gap)}`,
-);
+// Strategy generation on the demo catalog (20,000 segments × 10 years) is timed in bench/plan-candidates.bench.ts.
 const mem = process.memoryUsage();
 console.log(`memory: RSS ${(mem.rss / 1024 / 1024).toFixed(0)} MB, heap ${(mem.heapUsed / 1024 / 1024).toFixed(0)} MB`);
 process.exit(0);
