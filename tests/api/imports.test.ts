@@ -4,6 +4,7 @@ import Database from 'better-sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { syntheticCsv } from '../../bench/synthetic-network';
 import { createTestApp, type TestApp } from '../helpers/test-app';
+import { until } from '../helpers/until';
 
 const sample = (name: string) => path.resolve('data/samples', name);
 
@@ -625,14 +626,6 @@ describe('imports in the worker pool', () => {
     audit: n('SELECT count(*) AS n FROM audit_log WHERE agency_id = ?', p.ids.brannock),
   });
   const csv = (count: number, prefix: string) => Buffer.from(syntheticCsv(count).replace(/^SYN-/gm, `${prefix}-`));
-  async function until(cond: () => boolean, what: string) {
-    for (let i = 0; i < 3000; i++) {
-      if (cond()) return;
-      await new Promise((r) => setTimeout(r, 10));
-    }
-    throw new Error(`never happened: ${what}`);
-  }
-
   beforeAll(async () => {
     p = await createTestApp({ signInRateLimit: 1000, workers: { threads: 2, perAgency: 1, perUser: 1 } });
     pEng = await p.as('engineer@brannock.example');

@@ -5,6 +5,7 @@ import Database from 'better-sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { editedArchive, editFeature, editJson } from '../helpers/archive';
 import { createTestApp, type TestApp } from '../helpers/test-app';
+import { until } from '../helpers/until';
 
 let t: TestApp;
 let admin: Awaited<ReturnType<TestApp['as']>>;
@@ -137,14 +138,6 @@ describe('restore in the worker pool', () => {
     mixes: m('SELECT count(*) AS n FROM mixes'),
     audit: m('SELECT count(*) AS n FROM audit_log'),
   });
-  async function until(cond: () => boolean, what: string) {
-    for (let i = 0; i < 3000; i++) {
-      if (cond()) return;
-      await new Promise((r) => setTimeout(r, 10));
-    }
-    throw new Error(`never happened: ${what}`);
-  }
-
   beforeAll(async () => {
     p = await createTestApp({ restoreRateLimit: 1000, workers: { threads: 2, perAgency: 1, perUser: 1 } });
     pAdmin = await p.as('admin@marlow.example');

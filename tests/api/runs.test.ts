@@ -9,18 +9,10 @@ import Database from 'better-sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { syntheticOptimizeBody } from '../../bench/synthetic-network';
 import { APP_URL, createTestApp, type TestApp } from '../helpers/test-app';
+import { until } from '../helpers/until';
 
 type Client = Awaited<ReturnType<TestApp['as']>>;
 const INTERRUPTED = 'interrupted by a server restart — run it again';
-
-/** Waits for a condition the test cannot await directly (a task reaching the pool); gives up after many tries. */
-async function until(cond: () => boolean | Promise<boolean>, what: string) {
-  for (let i = 0; i < 3000; i++) {
-    if (await cond()) return;
-    await new Promise((r) => setTimeout(r, 10));
-  }
-  throw new Error(`never happened: ${what}`);
-}
 
 async function pollToEnd(c: Client, agencyId: string, runId: string) {
   let body: { status: string } = { status: 'running' };
